@@ -1,0 +1,6 @@
+//! clearspan plans eyewear for working distances. The crate is a pure core
+//! (optics, lens families, gaze geometry, planning, saved format) that builds
+//! and tests natively, and, behind the `web` feature, a thin leptos app over it.
+
+pub mod core;
+pub mod scenario;

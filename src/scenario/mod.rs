@@ -1,0 +1,8 @@
+//! The planning case as the user enters and saves it, and the single gate
+//! that checks it before the optics runs.
+
+mod model;
+mod validate;
+
+pub use model::*;
+pub use validate::{validate, FieldError, ValidScenario, MAX_NAME_CHARS, MAX_OPTIONS, MAX_TASKS};

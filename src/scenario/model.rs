@@ -1,0 +1,244 @@
+//! The scenario: one wearer, the tasks of their working day and the lens
+//! options to compare. These are the plain, serialisable types of the current
+//! saved-format version; every number carries its unit in its field name.
+//! They are checked once by [`crate::scenario::validate`] before any optics
+//! runs on them.
+
+use serde::{Deserialize, Serialize};
+
+/// One planning case: a wearer, a working day of tasks and lens options.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct Scenario {
+    /// A name the user gives the case (a wearer's initials, a workstation).
+    pub name: String,
+    /// The person who will wear the lenses.
+    pub wearer: Wearer,
+    /// The tasks of the working day, in the order the user entered them.
+    pub tasks: Vec<Task>,
+    /// The lens options to compare.
+    pub options: Vec<LensOption>,
+}
+
+/// The wearer's eyes, prescription and fitting data.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct Wearer {
+    /// Age in years, used for the amplitude of accommodation when none was measured.
+    pub age_years: f64,
+    /// A measured amplitude of accommodation, which takes precedence over age.
+    pub measured_amplitude: Option<MeasuredAmplitude>,
+    /// Distance prescription of the right eye, at the spectacle plane.
+    pub right: Prescription,
+    /// Distance prescription of the left eye, at the spectacle plane.
+    pub left: Prescription,
+    /// Near addition found at the eye examination, in dioptres, if any.
+    pub prescribed_addition_d: Option<f64>,
+    /// Spectacles (with their vertex distance) or contact lenses.
+    pub correction: Correction,
+    /// Monocular distance pupillary distance of the right eye, in millimetres.
+    pub pd_right_mm: f64,
+    /// Monocular distance pupillary distance of the left eye, in millimetres.
+    pub pd_left_mm: f64,
+    /// Fitting-point height above the lowest point of the lens, in millimetres.
+    pub fitting_height_mm: f64,
+    /// Lens height of the frame (box B dimension), in millimetres.
+    pub lens_height_mm: f64,
+    /// Pantoscopic tilt of the frame front, in degrees (lower rim towards the face is positive).
+    pub pantoscopic_tilt_deg: f64,
+    /// How the pupil diameter is known.
+    pub pupil: PupilSource,
+    /// Share of the amplitude of accommodation used for sustained work (0.5 keeps half in reserve).
+    pub usable_fraction: f64,
+    /// How much defocus each task tolerates.
+    pub blur_tolerance: BlurTolerance,
+}
+
+/// A measured amplitude of accommodation and how it was measured.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct MeasuredAmplitude {
+    /// The amplitude found, in dioptres.
+    pub dioptres: f64,
+    /// The clinical method used.
+    pub method: AmplitudeMethod,
+    /// Whether the figure refers to the spectacle plane or to the eye.
+    pub plane: ReferencePlane,
+}
+
+/// Clinical methods for measuring the amplitude of accommodation.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case")]
+pub enum AmplitudeMethod {
+    /// Push-up to the near point with the distance correction worn.
+    PushUp,
+    /// Minus lenses added in front of a fixed near target until it blurs.
+    MinusLens,
+}
+
+/// Where a vergence or power is referred to.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case")]
+pub enum ReferencePlane {
+    /// The back vertex of the spectacle lens.
+    Spectacle,
+    /// The cornea (ocular value).
+    Ocular,
+}
+
+/// A sphero-cylindrical prescription in the notation the practitioner wrote.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct Prescription {
+    /// Sphere power, in dioptres.
+    pub sphere_d: f64,
+    /// Cylinder power, in dioptres (either sign).
+    pub cylinder_d: f64,
+    /// Cylinder axis, in degrees (0 to 180, TABO convention).
+    pub axis_deg: f64,
+}
+
+/// How the distance correction is worn.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case", tag = "kind")]
+pub enum Correction {
+    /// Spectacle lenses at a vertex distance from the cornea.
+    Spectacles {
+        /// Back vertex of the lens to the cornea, in millimetres.
+        vertex_mm: f64,
+    },
+    /// Contact lenses (vertex distance zero).
+    ContactLenses,
+}
+
+/// How the pupil diameter is known.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case", tag = "kind")]
+pub enum PupilSource {
+    /// Measured pupil diameter, in millimetres.
+    Measured {
+        /// Pupil diameter, in millimetres.
+        diameter_mm: f64,
+    },
+    /// Estimated from the task lighting and the wearer's age.
+    FromLighting {
+        /// Adapting luminance, in candelas per square metre.
+        luminance_cd_m2: f64,
+    },
+}
+
+/// How much defocus a task tolerates before it counts as blurred.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case", tag = "kind")]
+pub enum BlurTolerance {
+    /// Derived from each task's critical detail size and the pupil.
+    FromDetail,
+    /// A clinical half depth of field, the same for every task, in dioptres.
+    Clinical {
+        /// Half depth of field, in dioptres (0.25 strict, 0.50 lenient).
+        half_depth_d: f64,
+    },
+}
+
+/// One task of the working day.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct Task {
+    /// What the task is ("main monitor", "bench vice").
+    pub name: String,
+    /// Viewing distance from the spectacle plane along the line of sight, in metres.
+    pub distance_m: f64,
+    /// Where the task sits vertically relative to the eyes.
+    pub vertical: VerticalPosition,
+    /// Sideways offset of the task centre from straight ahead, in metres (right positive).
+    pub sideways_m: f64,
+    /// Width of the task area, in metres.
+    pub width_m: f64,
+    /// Size of the smallest detail that must be seen, in millimetres.
+    pub detail_mm: f64,
+    /// Hours per working day spent on the task.
+    pub hours_per_day: f64,
+    /// Safety-relevant facts about the task.
+    pub flags: TaskFlags,
+}
+
+/// The vertical position of a task, as the user knows it.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case", tag = "kind")]
+pub enum VerticalPosition {
+    /// Gaze angle below (negative) or above (positive) the horizontal, in degrees.
+    GazeAngle {
+        /// Angle in degrees; negative is downward.
+        degrees: f64,
+    },
+    /// Height of the task centre relative to eye level, in metres (negative is below).
+    HeightFromEyes {
+        /// Height in metres; negative is below eye level.
+        metres: f64,
+    },
+}
+
+/// Safety-relevant facts about a task.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+pub struct TaskFlags {
+    /// The task is driving or operating moving machinery.
+    pub driving: bool,
+    /// The task sits overhead.
+    pub overhead: bool,
+    /// The task exposes the eyes to impact or splash, so safety-rated eyewear applies.
+    pub needs_safety_eyewear: bool,
+}
+
+/// A lens option the user wants compared.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct LensOption {
+    /// The user's label for the option.
+    pub label: String,
+    /// The lens family and the parameters fixed by the user (`None` lets the planner choose).
+    pub family: FamilyChoice,
+}
+
+/// A lens family with each parameter fixed or left to the planner (`None`).
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case", tag = "family")]
+pub enum FamilyChoice {
+    /// One power everywhere: the distance power plus `addition_d`.
+    SingleVision {
+        /// Addition over the distance power, in dioptres (0 for distance lenses).
+        addition_d: Option<f64>,
+    },
+    /// A near segment whose top sits at a height relative to the fitting point.
+    Bifocal {
+        /// Near addition, in dioptres.
+        addition_d: Option<f64>,
+        /// Segment top relative to the fitting point, in millimetres (negative is below).
+        segment_top_mm: Option<f64>,
+    },
+    /// An intermediate band above a near segment.
+    Trifocal {
+        /// Near addition, in dioptres.
+        addition_d: Option<f64>,
+        /// Intermediate power as a share of the near addition.
+        intermediate_ratio: Option<f64>,
+        /// Top of the intermediate band relative to the fitting point, in millimetres.
+        segment_top_mm: Option<f64>,
+    },
+    /// Progressive-power lens.
+    Progressive {
+        /// Near addition, in dioptres.
+        addition_d: Option<f64>,
+        /// Fitting point to near reference point, in millimetres.
+        progression_length_mm: Option<f64>,
+    },
+    /// Degressive-power (occupational) lens.
+    Degressive {
+        /// Near addition at the near reference point, in dioptres.
+        near_addition_d: Option<f64>,
+        /// Power lost from the near reference point to the top of the degression, in dioptres.
+        degression_d: Option<f64>,
+    },
+    /// A near segment below and a second add segment at the top for overhead work.
+    DoubleSegment {
+        /// Near addition of both segments, in dioptres.
+        addition_d: Option<f64>,
+        /// Lower segment top relative to the fitting point, in millimetres.
+        lower_top_mm: Option<f64>,
+        /// Upper segment bottom relative to the fitting point, in millimetres.
+        upper_bottom_mm: Option<f64>,
+    },
+}
