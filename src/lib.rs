@@ -2,5 +2,9 @@
 //! (optics, lens families, gaze geometry, planning, saved format) that builds
 //! and tests natively, and, behind the `web` feature, a thin leptos app over it.
 
+pub mod chart;
 pub mod core;
+pub mod display;
 pub mod scenario;
+#[cfg(feature = "web")]
+pub mod web;

@@ -1,1 +1,5 @@
-fn main(){}
+//! The browser entry point: mounts the clearspan app into the page body.
+
+fn main() {
+    clearspan::web::start();
+}

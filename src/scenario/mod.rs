@@ -5,4 +5,6 @@ mod model;
 mod validate;
 
 pub use model::*;
-pub use validate::{validate, FieldError, ValidScenario, MAX_NAME_CHARS, MAX_OPTIONS, MAX_TASKS};
+pub use validate::{
+    validate, FieldError, Problem, ValidScenario, MAX_NAME_CHARS, MAX_OPTIONS, MAX_TASKS,
+};

@@ -7,18 +7,70 @@ use super::model::*;
 use std::fmt;
 
 /// A problem with one field of a scenario, addressed by its path
-/// (for example `tasks[2].distance_m`) with a message a user can act on.
-#[derive(Debug, Clone, PartialEq, Eq)]
+/// (for example `tasks[2].distance_m`).
+#[derive(Debug, Clone, PartialEq)]
 pub struct FieldError {
     /// Dotted path of the field, as in the saved JSON.
     pub path: String,
-    /// What is wrong and what is allowed.
-    pub message: String,
+    /// What is wrong with the value.
+    pub problem: Problem,
+}
+
+/// What is wrong with one field, with what is allowed, so that a form can
+/// restate the allowed range in the unit the user types in.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Problem {
+    /// The value is NaN or infinite.
+    NotANumber,
+    /// The value lies outside `min..=max`, in the stored unit `unit`.
+    OutOfRange {
+        /// The value given, in the stored unit.
+        value: f64,
+        /// Smallest allowed value, in the stored unit.
+        min: f64,
+        /// Largest allowed value, in the stored unit.
+        max: f64,
+        /// The stored unit's symbol ("m", "mm", "D", "°"; empty for a ratio).
+        unit: &'static str,
+    },
+    /// A name that must be given is empty.
+    Empty,
+    /// A name is longer than the allowed number of characters.
+    TooLong(usize),
+    /// A rule linking two fields is broken; the text says which.
+    Inconsistent(&'static str),
+}
+
+impl fmt::Display for Problem {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            Problem::NotANumber => f.write_str("must be a number"),
+            Problem::OutOfRange {
+                value,
+                min,
+                max,
+                unit,
+            } => {
+                let unit = if unit.is_empty() {
+                    String::new()
+                } else {
+                    format!(" {unit}")
+                };
+                write!(
+                    f,
+                    "{value} is outside the allowed range {min} to {max}{unit}"
+                )
+            }
+            Problem::Empty => f.write_str("must not be empty"),
+            Problem::TooLong(max) => write!(f, "is longer than {max} characters"),
+            Problem::Inconsistent(rule) => f.write_str(rule),
+        }
+    }
 }
 
 impl fmt::Display for FieldError {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        write!(f, "{}: {}", self.path, self.message)
+        write!(f, "{}: {}", self.path, self.problem)
     }
 }
 
@@ -89,28 +141,25 @@ struct Checker {
 }
 
 impl Checker {
-    fn fail(&mut self, path: &str, message: String) {
+    fn fail(&mut self, path: &str, problem: Problem) {
         self.errors.push(FieldError {
             path: path.to_string(),
-            message,
+            problem,
         });
     }
 
     fn number(&mut self, path: &str, value: f64, bounds: &Bounds) {
         if !value.is_finite() {
-            self.fail(path, "must be a number".to_string());
+            self.fail(path, Problem::NotANumber);
         } else if value < bounds.min || value > bounds.max {
-            let unit = if bounds.unit.is_empty() {
-                String::new()
-            } else {
-                format!(" {}", bounds.unit)
-            };
             self.fail(
                 path,
-                format!(
-                    "{value} is outside the allowed range {} to {}{unit}",
-                    bounds.min, bounds.max
-                ),
+                Problem::OutOfRange {
+                    value,
+                    min: bounds.min,
+                    max: bounds.max,
+                    unit: bounds.unit,
+                },
             );
         }
     }
@@ -123,9 +172,9 @@ impl Checker {
 
     fn name(&mut self, path: &str, value: &str, required: bool) {
         if required && value.trim().is_empty() {
-            self.fail(path, "must not be empty".to_string());
+            self.fail(path, Problem::Empty);
         } else if value.chars().count() > MAX_NAME_CHARS {
-            self.fail(path, format!("is longer than {MAX_NAME_CHARS} characters"));
+            self.fail(path, Problem::TooLong(MAX_NAME_CHARS));
         }
     }
 
@@ -142,13 +191,21 @@ impl Checker {
         }
         self.prescription("wearer.right", &w.right);
         self.prescription("wearer.left", &w.left);
-        self.optional("wearer.prescribed_addition_d", w.prescribed_addition_d, &ADDITION);
+        self.optional(
+            "wearer.prescribed_addition_d",
+            w.prescribed_addition_d,
+            &ADDITION,
+        );
         if let Correction::Spectacles { vertex_mm } = w.correction {
             self.number("wearer.correction.vertex_mm", vertex_mm, &VERTEX);
         }
         self.number("wearer.pd_right_mm", w.pd_right_mm, &PD);
         self.number("wearer.pd_left_mm", w.pd_left_mm, &PD);
-        self.number("wearer.fitting_height_mm", w.fitting_height_mm, &FITTING_HEIGHT);
+        self.number(
+            "wearer.fitting_height_mm",
+            w.fitting_height_mm,
+            &FITTING_HEIGHT,
+        );
         self.number("wearer.lens_height_mm", w.lens_height_mm, &LENS_HEIGHT);
         if w.fitting_height_mm.is_finite()
             && w.lens_height_mm.is_finite()
@@ -156,7 +213,7 @@ impl Checker {
         {
             self.fail(
                 "wearer.fitting_height_mm",
-                "must be less than the lens height".to_string(),
+                Problem::Inconsistent("must be less than the lens height"),
             );
         }
         self.number("wearer.pantoscopic_tilt_deg", w.pantoscopic_tilt_deg, &TILT);
@@ -168,9 +225,17 @@ impl Checker {
                 self.number("wearer.pupil.luminance_cd_m2", luminance_cd_m2, &LUMINANCE)
             }
         }
-        self.number("wearer.usable_fraction", w.usable_fraction, &USABLE_FRACTION);
+        self.number(
+            "wearer.usable_fraction",
+            w.usable_fraction,
+            &USABLE_FRACTION,
+        );
         if let BlurTolerance::Clinical { half_depth_d } = w.blur_tolerance {
-            self.number("wearer.blur_tolerance.half_depth_d", half_depth_d, &HALF_DEPTH);
+            self.number(
+                "wearer.blur_tolerance.half_depth_d",
+                half_depth_d,
+                &HALF_DEPTH,
+            );
         }
     }
 
@@ -187,17 +252,19 @@ impl Checker {
                 if metres.is_finite() && t.distance_m.is_finite() && metres.abs() >= t.distance_m {
                     self.fail(
                         &p("vertical.metres"),
-                        "must be smaller than the viewing distance".to_string(),
+                        Problem::Inconsistent("must be smaller than the viewing distance"),
                     );
                 }
             }
         }
         self.number(&p("sideways_m"), t.sideways_m, &SIDEWAYS);
-        if t.sideways_m.is_finite() && t.distance_m.is_finite() && t.sideways_m.abs() >= t.distance_m
+        if t.sideways_m.is_finite()
+            && t.distance_m.is_finite()
+            && t.sideways_m.abs() >= t.distance_m
         {
             self.fail(
                 &p("sideways_m"),
-                "must be smaller than the viewing distance".to_string(),
+                Problem::Inconsistent("must be smaller than the viewing distance"),
             );
         }
         self.number(&p("width_m"), t.width_m, &WIDTH);
@@ -225,7 +292,11 @@ impl Checker {
                 segment_top_mm,
             } => {
                 self.optional(&p("addition_d"), addition_d, &ADDITION);
-                self.optional(&p("intermediate_ratio"), intermediate_ratio, &INTERMEDIATE_RATIO);
+                self.optional(
+                    &p("intermediate_ratio"),
+                    intermediate_ratio,
+                    &INTERMEDIATE_RATIO,
+                );
                 self.optional(&p("segment_top_mm"), segment_top_mm, &SEGMENT_TOP);
             }
             FamilyChoice::Progressive {
@@ -233,7 +304,11 @@ impl Checker {
                 progression_length_mm,
             } => {
                 self.optional(&p("addition_d"), addition_d, &ADDITION);
-                self.optional(&p("progression_length_mm"), progression_length_mm, &PROGRESSION);
+                self.optional(
+                    &p("progression_length_mm"),
+                    progression_length_mm,
+                    &PROGRESSION,
+                );
             }
             FamilyChoice::Degressive {
                 near_addition_d,
@@ -245,7 +320,7 @@ impl Checker {
                     if d > a {
                         self.fail(
                             &p("degression_d"),
-                            "must not exceed the near addition".to_string(),
+                            Problem::Inconsistent("must not exceed the near addition"),
                         );
                     }
                 }
@@ -270,17 +345,26 @@ pub fn validate(scenario: Scenario) -> Result<ValidScenario, Vec<FieldError>> {
     c.name("name", &scenario.name, false);
     c.wearer(&scenario.wearer);
     if scenario.tasks.len() > MAX_TASKS {
-        c.fail("tasks", format!("holds more than {MAX_TASKS} tasks"));
+        c.fail(
+            "tasks",
+            Problem::Inconsistent("holds more tasks than a scenario may (40)"),
+        );
     }
     for (i, t) in scenario.tasks.iter().enumerate() {
         c.task(i, t);
     }
     let total_hours: f64 = scenario.tasks.iter().map(|t| t.hours_per_day).sum();
     if total_hours.is_finite() && total_hours > HOURS.max {
-        c.fail("tasks", format!("hours per day add up to {total_hours}, more than 24"));
+        c.fail(
+            "tasks",
+            Problem::Inconsistent("hours per day add up to more than 24"),
+        );
     }
     if scenario.options.len() > MAX_OPTIONS {
-        c.fail("options", format!("holds more than {MAX_OPTIONS} options"));
+        c.fail(
+            "options",
+            Problem::Inconsistent("holds more lens options than a scenario may (12)"),
+        );
     }
     for (i, o) in scenario.options.iter().enumerate() {
         c.option(i, o);

@@ -1,0 +1,129 @@
+//! Conversion between stored quantities and what the user reads and types:
+//! distances in centimetres or inches, powers with explicit signs. The core
+//! stores metres; units change only here, at the interface.
+
+use crate::core::units::Metres;
+use serde::{Deserialize, Serialize};
+
+/// The unit the user reads and types task distances and sizes in.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case")]
+pub enum LengthUnit {
+    /// Centimetres (1 cm = 0.01 m).
+    #[default]
+    Centimetres,
+    /// Inches (1 in = 0.0254 m exactly, by the 1959 international yard and pound agreement).
+    Inches,
+}
+
+/// Metres in one inch, exact by definition (international yard and pound agreement, 1959).
+const METRES_PER_INCH: f64 = 0.0254;
+
+impl LengthUnit {
+    /// Metres in one of this unit.
+    pub fn metres_per_unit(self) -> f64 {
+        match self {
+            LengthUnit::Centimetres => 0.01,
+            LengthUnit::Inches => METRES_PER_INCH,
+        }
+    }
+
+    /// The unit's short symbol for labels ("cm", "in").
+    pub fn symbol(self) -> &'static str {
+        match self {
+            LengthUnit::Centimetres => "cm",
+            LengthUnit::Inches => "in",
+        }
+    }
+
+    /// A length in metres expressed in this unit.
+    pub fn from_metres(self, length: Metres) -> f64 {
+        length.0 / self.metres_per_unit()
+    }
+
+    /// A length given in this unit, in metres.
+    pub fn to_metres(self, value: f64) -> Metres {
+        Metres(value * self.metres_per_unit())
+    }
+
+    /// A length written for a form field in this unit, with at most one decimal
+    /// and no trailing zeros ("60", "23.6").
+    pub fn format(self, length: Metres) -> String {
+        trim_number(self.from_metres(length), 1)
+    }
+}
+
+/// `value` with at most `decimals` decimals and no trailing zeros or sign on zero.
+pub fn trim_number(value: f64, decimals: usize) -> String {
+    let text = format!("{value:.decimals$}");
+    let text = if text.contains('.') {
+        text.trim_end_matches('0').trim_end_matches('.').to_string()
+    } else {
+        text
+    };
+    if text == "-0" {
+        "0".to_string()
+    } else {
+        text
+    }
+}
+
+/// Why a typed number was not accepted.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct ParseNumberError(pub String);
+
+impl std::fmt::Display for ParseNumberError {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(&self.0)
+    }
+}
+
+impl std::error::Error for ParseNumberError {}
+
+/// Reads a number typed by a user: surrounding spaces, a leading '+', and a
+/// decimal comma are accepted; anything else that is not a finite number is
+/// refused with a message saying so.
+pub fn parse_number(text: &str) -> Result<f64, ParseNumberError> {
+    let cleaned = text.trim().replace(',', ".");
+    let cleaned = cleaned.strip_prefix('+').unwrap_or(&cleaned);
+    if cleaned.is_empty() {
+        return Err(ParseNumberError("enter a number".to_string()));
+    }
+    match cleaned.parse::<f64>() {
+        Ok(v) if v.is_finite() => Ok(v),
+        _ => Err(ParseNumberError(format!(
+            "\"{}\" is not a number",
+            text.trim()
+        ))),
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn inches_and_centimetres_convert_exactly() {
+        // 1 in = 2.54 cm exactly (international yard and pound agreement, 1959).
+        let d = LengthUnit::Inches.to_metres(10.0);
+        assert!((d.0 - 0.254).abs() < 1e-12);
+        assert!((LengthUnit::Centimetres.from_metres(d) - 25.4).abs() < 1e-9);
+        assert_eq!(LengthUnit::Inches.format(Metres(0.6)), "23.6");
+        assert_eq!(LengthUnit::Centimetres.format(Metres(0.6)), "60");
+    }
+
+    #[test]
+    fn typed_numbers() {
+        let check = |text: &str, expected: Option<f64>| {
+            assert_eq!(parse_number(text).ok(), expected, "input {text:?}");
+        };
+        check(" 60 ", Some(60.0));
+        check("+1.25", Some(1.25));
+        check("-0,5", Some(-0.5));
+        check("", None);
+        check("NaN", None);
+        check("inf", None);
+        check("12 cm", None);
+        assert_eq!(trim_number(-0.01, 1), "0");
+    }
+}

@@ -1,0 +1,12 @@
+//! The browser app: a thin leptos layer over the pure core. Components read
+//! the app state, call the core and draw; no optics lives here.
+
+mod app;
+
+use leptos::prelude::*;
+
+/// Installs the panic hook and mounts the app into the document body.
+pub fn start() {
+    console_error_panic_hook::set_once();
+    mount_to_body(app::App);
+}
