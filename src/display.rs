@@ -3,6 +3,7 @@
 //! stores metres; units change only here, at the interface.
 
 use crate::core::units::Metres;
+use crate::scenario::Problem;
 use serde::{Deserialize, Serialize};
 
 /// The unit the user reads and types task distances and sizes in.
@@ -98,6 +99,35 @@ pub fn parse_number(text: &str) -> Result<f64, ParseNumberError> {
     }
 }
 
+/// A field problem restated for a form: ranges of lengths stored in metres
+/// are given in the user's length unit, everything else as stored.
+pub fn describe_problem(problem: &Problem, unit: LengthUnit) -> String {
+    match problem {
+        Problem::OutOfRange {
+            min,
+            max,
+            unit: "m",
+            ..
+        } => format!(
+            "allowed: {} to {} {}",
+            trim_number(unit.from_metres(Metres(*min)), 1),
+            trim_number(unit.from_metres(Metres(*max)), 1),
+            unit.symbol()
+        ),
+        Problem::OutOfRange {
+            min, max, unit: u, ..
+        } => {
+            let space = if u.is_empty() || *u == "°" { "" } else { " " };
+            format!(
+                "allowed: {} to {}{space}{u}",
+                trim_number(*min, 2),
+                trim_number(*max, 2)
+            )
+        }
+        other => other.to_string(),
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -125,5 +155,37 @@ mod tests {
         check("inf", None);
         check("12 cm", None);
         assert_eq!(trim_number(-0.01, 1), "0");
+    }
+
+    #[test]
+    fn problems_are_restated_in_the_users_unit() {
+        let range = |min, max, unit| Problem::OutOfRange {
+            value: 0.0,
+            min,
+            max,
+            unit,
+        };
+        let check = |p: Problem, unit, text: &str| assert_eq!(describe_problem(&p, unit), text);
+        check(
+            range(0.1, 1000.0, "m"),
+            LengthUnit::Centimetres,
+            "allowed: 10 to 100000 cm",
+        );
+        check(
+            range(0.1, 2.54, "m"),
+            LengthUnit::Inches,
+            "allowed: 3.9 to 100 in",
+        );
+        check(
+            range(20.0, 45.0, "mm"),
+            LengthUnit::Inches,
+            "allowed: 20 to 45 mm",
+        );
+        check(
+            range(-80.0, 80.0, "°"),
+            LengthUnit::Inches,
+            "allowed: -80 to 80°",
+        );
+        check(Problem::Empty, LengthUnit::Centimetres, "must not be empty");
     }
 }

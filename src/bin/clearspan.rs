@@ -1,1 +1,3 @@
+//! The command-line planner (work in progress on the planner branch).
+
 fn main() {}

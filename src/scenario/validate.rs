@@ -249,7 +249,7 @@ impl Checker {
             }
             VerticalPosition::HeightFromEyes { metres } => {
                 self.number(&p("vertical.metres"), metres, &HEIGHT);
-                if metres.is_finite() && t.distance_m.is_finite() && metres.abs() >= t.distance_m {
+                if metres.is_finite() && t.distance_m > 0.0 && metres.abs() >= t.distance_m {
                     self.fail(
                         &p("vertical.metres"),
                         Problem::Inconsistent("must be smaller than the viewing distance"),
@@ -258,10 +258,7 @@ impl Checker {
             }
         }
         self.number(&p("sideways_m"), t.sideways_m, &SIDEWAYS);
-        if t.sideways_m.is_finite()
-            && t.distance_m.is_finite()
-            && t.sideways_m.abs() >= t.distance_m
-        {
+        if t.sideways_m.is_finite() && t.distance_m > 0.0 && t.sideways_m.abs() >= t.distance_m {
             self.fail(
                 &p("sideways_m"),
                 Problem::Inconsistent("must be smaller than the viewing distance"),
@@ -353,8 +350,13 @@ pub fn validate(scenario: Scenario) -> Result<ValidScenario, Vec<FieldError>> {
     for (i, t) in scenario.tasks.iter().enumerate() {
         c.task(i, t);
     }
+    // The day's total is only worth a message when every task's hours are sane.
+    let each_sane = scenario
+        .tasks
+        .iter()
+        .all(|t| (HOURS.min..=HOURS.max).contains(&t.hours_per_day));
     let total_hours: f64 = scenario.tasks.iter().map(|t| t.hours_per_day).sum();
-    if total_hours.is_finite() && total_hours > HOURS.max {
+    if each_sane && total_hours > HOURS.max {
         c.fail(
             "tasks",
             Problem::Inconsistent("hours per day add up to more than 24"),
@@ -373,5 +375,78 @@ pub fn validate(scenario: Scenario) -> Result<ValidScenario, Vec<FieldError>> {
         Ok(ValidScenario(scenario))
     } else {
         Err(c.errors)
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// Validates `untitled()` changed by `edit`, and returns the paths of the problems found.
+    fn problems_after(edit: impl Fn(&mut Scenario)) -> Vec<String> {
+        let mut s = Scenario::untitled();
+        edit(&mut s);
+        match validate(s) {
+            Ok(_) => Vec::new(),
+            Err(errors) => errors.into_iter().map(|e| e.path).collect(),
+        }
+    }
+
+    #[test]
+    fn impossible_values_are_refused_by_field() {
+        let check = |edit: &dyn Fn(&mut Scenario), path: &str| {
+            assert_eq!(problems_after(edit), vec![path.to_string()]);
+        };
+        check(&|s| s.wearer.age_years = 300.0, "wearer.age_years");
+        check(&|s| s.wearer.age_years = f64::NAN, "wearer.age_years");
+        check(&|s| s.tasks[0].distance_m = -0.4, "tasks[0].distance_m");
+        check(
+            &|s| s.tasks[0].distance_m = f64::INFINITY,
+            "tasks[0].distance_m",
+        );
+        check(&|s| s.tasks[0].name = "  ".into(), "tasks[0].name");
+        check(
+            &|s| s.tasks[0].vertical = VerticalPosition::HeightFromEyes { metres: -0.9 },
+            "tasks[0].vertical.metres",
+        );
+        check(
+            &|s| s.tasks[0].hours_per_day = 25.0,
+            "tasks[0].hours_per_day",
+        );
+        check(
+            &|s| s.wearer.fitting_height_mm = 40.0,
+            "wearer.fitting_height_mm",
+        );
+        check(
+            &|s| {
+                s.options[1].family = FamilyChoice::Degressive {
+                    near_addition_d: Some(1.0),
+                    degression_d: Some(1.5),
+                }
+            },
+            "options[1].degression_d",
+        );
+    }
+
+    #[test]
+    fn every_problem_is_reported_at_once() {
+        let paths = problems_after(|s| {
+            s.wearer.pd_left_mm = 5.0;
+            s.tasks.push(s.tasks[0].clone());
+            s.tasks[0].hours_per_day = 20.0;
+            s.tasks[1].hours_per_day = 20.0;
+        });
+        assert_eq!(paths, ["wearer.pd_left_mm", "tasks"]);
+    }
+
+    #[test]
+    fn messages_say_what_is_allowed() {
+        let mut s = Scenario::untitled();
+        s.tasks[0].distance_m = 0.05;
+        let errors = validate(s).expect_err("5 cm is closer than any task");
+        assert_eq!(
+            errors[0].to_string(),
+            "tasks[0].distance_m: 0.05 is outside the allowed range 0.1 to 1000 m"
+        );
     }
 }
