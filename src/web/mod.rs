@@ -2,6 +2,12 @@
 //! the app state, call the core and draw; no optics lives here.
 
 mod app;
+mod bind;
+mod fields;
+mod options_panel;
+mod state;
+mod tasks_panel;
+mod wearer_panel;
 
 use leptos::prelude::*;
 

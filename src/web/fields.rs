@@ -1,0 +1,231 @@
+//! Form fields that keep what the user typed: a number field shows the
+//! user's own text until the value changes from elsewhere (a unit switch, a
+//! loaded scenario), refuses text that is not a number with a message, and
+//! passes only parsed numbers on. Every field has a visible label.
+
+use crate::display::{parse_number, trim_number};
+use leptos::prelude::*;
+use std::sync::atomic::{AtomicUsize, Ordering};
+
+/// A fresh element id for pairing labels and messages with inputs.
+pub fn unique_id(prefix: &str) -> String {
+    static NEXT: AtomicUsize = AtomicUsize::new(0);
+    format!("{prefix}-{}", NEXT.fetch_add(1, Ordering::Relaxed))
+}
+
+/// Whether two field values are the same number, allowing for the rounding of
+/// a unit conversion there and back.
+fn same_value(a: Option<f64>, b: Option<f64>) -> bool {
+    match (a, b) {
+        (Some(a), Some(b)) => (a - b).abs() <= 1e-9 * a.abs().max(1.0),
+        (None, None) => true,
+        _ => false,
+    }
+}
+
+/// A labelled number input with its unit and a message line.
+#[component]
+pub fn NumberField(
+    /// The visible label.
+    #[prop(into)]
+    label: String,
+    /// The unit written after the input ("cm", "D", "mm").
+    #[prop(into)]
+    unit: Signal<String>,
+    /// The current value in the unit shown; `None` is an empty optional field.
+    #[prop(into)]
+    value: Signal<Option<f64>>,
+    /// Receives every accepted value, in the unit shown.
+    on_input: Callback<Option<f64>>,
+    /// The validation message for the current value, if any.
+    #[prop(into)]
+    problem: Signal<Option<String>>,
+    /// Whether an empty field is allowed (it then means "not given").
+    #[prop(optional)]
+    optional: bool,
+    /// Placeholder shown in an empty optional field.
+    #[prop(optional, into)]
+    placeholder: String,
+    /// Decimals shown when the value is written from elsewhere.
+    #[prop(default = 2)]
+    decimals: usize,
+    /// A test id for the browser journeys.
+    #[prop(optional, into)]
+    test_id: String,
+) -> impl IntoView {
+    let id = unique_id("field");
+    let message_id = format!("{id}-msg");
+    // What the user typed, and the value the field held when they typed it.
+    let typed: RwSignal<Option<(String, Option<f64>)>> = RwSignal::new(None);
+    let text = move || {
+        let current = value.get();
+        typed
+            .with(|t| match t {
+                Some((text, at)) if same_value(*at, current) => Some(text.clone()),
+                _ => None,
+            })
+            .unwrap_or_else(|| {
+                current
+                    .map(|v| trim_number(v, decimals))
+                    .unwrap_or_default()
+            })
+    };
+    let parse_message = move || {
+        let current = value.get();
+        typed.with(|t| match t {
+            Some((text, at)) if same_value(*at, current) => {
+                if optional && text.trim().is_empty() {
+                    None
+                } else {
+                    parse_number(text).err().map(|e| e.to_string())
+                }
+            }
+            _ => None,
+        })
+    };
+    let message = move || parse_message().or_else(|| problem.get());
+    let on_text = move |ev| {
+        let text = event_target_value(&ev);
+        let parsed = if optional && text.trim().is_empty() {
+            Ok(None)
+        } else {
+            parse_number(&text).map(Some)
+        };
+        match parsed {
+            Ok(v) => {
+                typed.set(Some((text, v)));
+                on_input.run(v);
+            }
+            Err(_) => typed.set(Some((text, value.get_untracked()))),
+        }
+    };
+    view! {
+        <div class="field" class:invalid=move || message().is_some()>
+            <label for=id.clone()>{label}</label>
+            <span class="entry">
+                <input
+                    id=id
+                    type="text"
+                    inputmode="decimal"
+                    autocomplete="off"
+                    placeholder=placeholder
+                    data-testid=test_id
+                    prop:value=text
+                    aria-invalid=move || if message().is_some() { "true" } else { "false" }
+                    aria-describedby=message_id.clone()
+                    on:input=on_text
+                />
+                <span class="unit">{unit}</span>
+            </span>
+            <span class="message" id=message_id aria-live="polite">
+                {message}
+            </span>
+        </div>
+    }
+}
+
+/// A labelled single-line text input.
+#[component]
+pub fn TextField(
+    /// The visible label.
+    #[prop(into)]
+    label: String,
+    /// The current text.
+    #[prop(into)]
+    value: Signal<String>,
+    /// Receives every edit.
+    on_input: Callback<String>,
+    /// The validation message, if any.
+    #[prop(into)]
+    problem: Signal<Option<String>>,
+    /// A test id for the browser journeys.
+    #[prop(optional, into)]
+    test_id: String,
+) -> impl IntoView {
+    let id = unique_id("text");
+    let message_id = format!("{id}-msg");
+    view! {
+        <div class="field" class:invalid=move || problem.get().is_some()>
+            <label for=id.clone()>{label}</label>
+            <input
+                id=id
+                type="text"
+                autocomplete="off"
+                data-testid=test_id
+                prop:value=move || value.get()
+                aria-describedby=message_id.clone()
+                on:input=move |ev| on_input.run(event_target_value(&ev))
+            />
+            <span class="message" id=message_id aria-live="polite">
+                {move || problem.get()}
+            </span>
+        </div>
+    }
+}
+
+/// A labelled choice among fixed options, each a (value, words) pair.
+#[component]
+pub fn ChoiceField(
+    /// The visible label.
+    #[prop(into)]
+    label: String,
+    /// The options: machine value and the words shown.
+    choices: Vec<(&'static str, &'static str)>,
+    /// The machine value currently chosen.
+    #[prop(into)]
+    value: Signal<&'static str>,
+    /// Receives the machine value of a new choice.
+    on_change: Callback<String>,
+    /// A test id for the browser journeys.
+    #[prop(optional, into)]
+    test_id: String,
+) -> impl IntoView {
+    let id = unique_id("choice");
+    view! {
+        <div class="field">
+            <label for=id.clone()>{label}</label>
+            <select
+                id=id
+                data-testid=test_id
+                on:change=move |ev| on_change.run(event_target_value(&ev))
+            >
+                {choices
+                    .into_iter()
+                    .map(|(v, words)| {
+                        view! {
+                            <option value=v selected=move || value.get() == v>
+                                {words}
+                            </option>
+                        }
+                    })
+                    .collect_view()}
+            </select>
+        </div>
+    }
+}
+
+/// A labelled check box.
+#[component]
+pub fn CheckField(
+    /// The visible label.
+    #[prop(into)]
+    label: String,
+    /// Whether the box is ticked.
+    #[prop(into)]
+    checked: Signal<bool>,
+    /// Receives the new state.
+    on_change: Callback<bool>,
+) -> impl IntoView {
+    let id = unique_id("check");
+    view! {
+        <div class="check">
+            <input
+                id=id.clone()
+                type="checkbox"
+                prop:checked=move || checked.get()
+                on:change=move |ev| on_change.run(event_target_checked(&ev))
+            />
+            <label for=id>{label}</label>
+        </div>
+    }
+}

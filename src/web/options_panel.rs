@@ -1,0 +1,306 @@
+//! The lens-options panel: which families to compare, with each parameter
+//! either fixed by the user or left empty for the planner to choose.
+
+use super::bind::{scenario_number, Shown};
+use super::fields::{ChoiceField, TextField};
+use super::state::use_app_state;
+use crate::scenario::{FamilyChoice, LensOption, Scenario, MAX_OPTIONS};
+use leptos::prelude::*;
+
+/// Machine value and words for each family, in the order offered.
+const FAMILIES: [(&str, &str); 6] = [
+    ("single_vision", "Single vision"),
+    ("bifocal", "Bifocal"),
+    ("trifocal", "Trifocal"),
+    ("progressive", "Progressive"),
+    ("degressive", "Occupational (degressive)"),
+    ("double_segment", "Double segment"),
+];
+
+/// The machine value of a family choice.
+fn family_key(f: &FamilyChoice) -> &'static str {
+    match f {
+        FamilyChoice::SingleVision { .. } => "single_vision",
+        FamilyChoice::Bifocal { .. } => "bifocal",
+        FamilyChoice::Trifocal { .. } => "trifocal",
+        FamilyChoice::Progressive { .. } => "progressive",
+        FamilyChoice::Degressive { .. } => "degressive",
+        FamilyChoice::DoubleSegment { .. } => "double_segment",
+    }
+}
+
+/// A family with every parameter left to the planner.
+fn open_family(key: &str) -> FamilyChoice {
+    match key {
+        "bifocal" => FamilyChoice::Bifocal {
+            addition_d: None,
+            segment_top_mm: None,
+        },
+        "trifocal" => FamilyChoice::Trifocal {
+            addition_d: None,
+            intermediate_ratio: None,
+            segment_top_mm: None,
+        },
+        "progressive" => FamilyChoice::Progressive {
+            addition_d: None,
+            progression_length_mm: None,
+        },
+        "degressive" => FamilyChoice::Degressive {
+            near_addition_d: None,
+            degression_d: None,
+        },
+        "double_segment" => FamilyChoice::DoubleSegment {
+            addition_d: None,
+            lower_top_mm: None,
+            upper_bottom_mm: None,
+        },
+        _ => FamilyChoice::SingleVision { addition_d: None },
+    }
+}
+
+/// One open parameter of a family: its label, field name, unit, and how to
+/// reach it inside the family choice.
+struct Parameter {
+    label: &'static str,
+    field: &'static str,
+    unit: &'static str,
+    slot: fn(&mut FamilyChoice) -> Option<&mut Option<f64>>,
+}
+
+/// The parameters of the family with machine value `key`.
+fn parameters(key: &str) -> Vec<Parameter> {
+    let p = |label, field, unit, slot| Parameter {
+        label,
+        field,
+        unit,
+        slot,
+    };
+    match key {
+        "single_vision" => vec![p("Addition", "addition_d", "D", |f| match f {
+            FamilyChoice::SingleVision { addition_d } => Some(addition_d),
+            _ => None,
+        })],
+        "bifocal" => vec![
+            p("Addition", "addition_d", "D", |f| match f {
+                FamilyChoice::Bifocal { addition_d, .. } => Some(addition_d),
+                _ => None,
+            }),
+            p(
+                "Segment top from fitting point",
+                "segment_top_mm",
+                "mm",
+                |f| match f {
+                    FamilyChoice::Bifocal { segment_top_mm, .. } => Some(segment_top_mm),
+                    _ => None,
+                },
+            ),
+        ],
+        "trifocal" => vec![
+            p("Addition", "addition_d", "D", |f| match f {
+                FamilyChoice::Trifocal { addition_d, .. } => Some(addition_d),
+                _ => None,
+            }),
+            p(
+                "Intermediate share of addition",
+                "intermediate_ratio",
+                "",
+                |f| match f {
+                    FamilyChoice::Trifocal {
+                        intermediate_ratio, ..
+                    } => Some(intermediate_ratio),
+                    _ => None,
+                },
+            ),
+            p(
+                "Segment top from fitting point",
+                "segment_top_mm",
+                "mm",
+                |f| match f {
+                    FamilyChoice::Trifocal { segment_top_mm, .. } => Some(segment_top_mm),
+                    _ => None,
+                },
+            ),
+        ],
+        "progressive" => vec![
+            p("Addition", "addition_d", "D", |f| match f {
+                FamilyChoice::Progressive { addition_d, .. } => Some(addition_d),
+                _ => None,
+            }),
+            p(
+                "Progression length",
+                "progression_length_mm",
+                "mm",
+                |f| match f {
+                    FamilyChoice::Progressive {
+                        progression_length_mm,
+                        ..
+                    } => Some(progression_length_mm),
+                    _ => None,
+                },
+            ),
+        ],
+        "degressive" => vec![
+            p("Near addition", "near_addition_d", "D", |f| match f {
+                FamilyChoice::Degressive {
+                    near_addition_d, ..
+                } => Some(near_addition_d),
+                _ => None,
+            }),
+            p("Degression", "degression_d", "D", |f| match f {
+                FamilyChoice::Degressive { degression_d, .. } => Some(degression_d),
+                _ => None,
+            }),
+        ],
+        _ => vec![
+            p("Addition", "addition_d", "D", |f| match f {
+                FamilyChoice::DoubleSegment { addition_d, .. } => Some(addition_d),
+                _ => None,
+            }),
+            p("Lower segment top", "lower_top_mm", "mm", |f| match f {
+                FamilyChoice::DoubleSegment { lower_top_mm, .. } => Some(lower_top_mm),
+                _ => None,
+            }),
+            p(
+                "Upper segment bottom",
+                "upper_bottom_mm",
+                "mm",
+                |f| match f {
+                    FamilyChoice::DoubleSegment {
+                        upper_bottom_mm, ..
+                    } => Some(upper_bottom_mm),
+                    _ => None,
+                },
+            ),
+        ],
+    }
+}
+
+/// The parameter field `param` of option `i`.
+fn parameter_field(i: usize, param: Parameter) -> impl IntoView {
+    let slot = param.slot;
+    let get = move |s: &Scenario| {
+        s.options
+            .get(i)
+            .and_then(|o| slot(&mut o.family.clone()).and_then(|v| *v))
+    };
+    let set = move |s: &mut Scenario, v: Option<f64>| {
+        if let Some(target) = s.options.get_mut(i).and_then(|o| slot(&mut o.family)) {
+            *target = v;
+        }
+    };
+    scenario_number(
+        param.label,
+        format!("options[{i}].{}", param.field),
+        Shown::As(param.unit),
+        get,
+        set,
+        true,
+    )
+}
+
+/// The card of lens option `i`.
+fn option_card(i: usize) -> impl IntoView {
+    let state = use_app_state();
+    let key = Memo::new(move |_| {
+        state.scenario.with(|s| {
+            s.options
+                .get(i)
+                .map(|o| family_key(&o.family))
+                .unwrap_or("single_vision")
+        })
+    });
+    let label = Signal::derive(move || {
+        state.scenario.with(|s| {
+            s.options
+                .get(i)
+                .map(|o| o.label.clone())
+                .unwrap_or_default()
+        })
+    });
+    let on_label = Callback::new(move |v: String| {
+        state.edit(|s| {
+            if let Some(o) = s.options.get_mut(i) {
+                o.label = v;
+            }
+        })
+    });
+    let label_problem = Signal::derive(move || {
+        state
+            .problem_at(&format!("options[{i}].label"))
+            .map(|p| p.to_string())
+    });
+    let on_family = Callback::new(move |v: String| {
+        state.edit(|s| {
+            if let Some(o) = s.options.get_mut(i) {
+                o.family = open_family(&v);
+            }
+        })
+    });
+    let remove = move |_| {
+        state.edit(|s| {
+            if i < s.options.len() {
+                s.options.remove(i);
+            }
+        })
+    };
+    view! {
+        <li class="option-card" data-testid="option-card">
+            <div class="task-head">
+                <TextField label="Option" value=label on_input=on_label problem=label_problem />
+                <button
+                    type="button"
+                    class="quiet"
+                    aria-label=move || format!("Remove option {}", label.get())
+                    on:click=remove
+                >
+                    "Remove"
+                </button>
+            </div>
+            <div class="grid">
+                <ChoiceField label="Lens family" choices=FAMILIES.to_vec() value=key on_change=on_family />
+                {move || {
+                    parameters(key.get())
+                        .into_iter()
+                        .map(|param| parameter_field(i, param))
+                        .collect_view()
+                }}
+            </div>
+        </li>
+    }
+}
+
+/// The lens-options panel.
+#[component]
+pub fn OptionsPanel() -> impl IntoView {
+    let state = use_app_state();
+    let count = move || state.scenario.with(|s| s.options.len());
+    let add = move |_: leptos::ev::MouseEvent| {
+        state.edit(|s| {
+            if s.options.len() < MAX_OPTIONS {
+                s.options.push(LensOption {
+                    label: format!("Option {}", s.options.len() + 1),
+                    family: open_family("progressive"),
+                });
+            }
+        })
+    };
+    view! {
+        <section class="panel options" aria-labelledby="options-heading">
+            <h2 id="options-heading">"Lens options"</h2>
+            <p class="hint">"Leave a parameter empty and the planner chooses it."</p>
+            <ol class="option-list">
+                <For each=move || 0..count() key=|i| *i let:i>
+                    {option_card(i)}
+                </For>
+            </ol>
+            <button
+                type="button"
+                data-testid="add-option"
+                disabled=move || { count() >= MAX_OPTIONS }
+                on:click=add
+            >
+                "Add lens option"
+            </button>
+        </section>
+    }
+}

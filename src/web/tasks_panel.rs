@@ -1,0 +1,252 @@
+//! The working-day panel: one card per task with its distance, position,
+//! size, detail, hours and safety flags; adding a task is one action.
+
+use super::bind::{scenario_number, Shown};
+use super::fields::{CheckField, ChoiceField, TextField};
+use super::state::use_app_state;
+use crate::scenario::{Task, TaskFlags, VerticalPosition, MAX_TASKS};
+use leptos::prelude::*;
+
+/// Reads a number of task `i`; `None` once the task is gone.
+fn task_value(
+    i: usize,
+    read: fn(&Task) -> f64,
+) -> impl Fn(&crate::scenario::Scenario) -> Option<f64> + Copy {
+    move |s| s.tasks.get(i).map(read)
+}
+
+/// Writes a number of task `i`, if it still exists.
+fn task_write(
+    i: usize,
+    write: fn(&mut Task, f64),
+) -> impl Fn(&mut crate::scenario::Scenario, Option<f64>) + Copy {
+    move |s, v| {
+        if let (Some(t), Some(v)) = (s.tasks.get_mut(i), v) {
+            write(t, v);
+        }
+    }
+}
+
+/// A check box bound to one flag of task `i`.
+fn flag_field(
+    i: usize,
+    label: &'static str,
+    flag: fn(&mut TaskFlags) -> &mut bool,
+) -> impl IntoView {
+    let state = use_app_state();
+    let checked = Signal::derive(move || {
+        state
+            .scenario
+            .with(|s| {
+                s.tasks.get(i).map(|t| {
+                    let mut flags = t.flags;
+                    *flag(&mut flags)
+                })
+            })
+            .unwrap_or(false)
+    });
+    let on_change = Callback::new(move |v: bool| {
+        state.edit(|s| {
+            if let Some(t) = s.tasks.get_mut(i) {
+                *flag(&mut t.flags) = v;
+            }
+        })
+    });
+    view! { <CheckField label=label checked=checked on_change=on_change /> }
+}
+
+/// The vertical position of task `i`: a gaze angle or a height from the eyes.
+fn position_fields(i: usize) -> impl IntoView {
+    let state = use_app_state();
+    let by_angle = move || {
+        state.scenario.with(|s| {
+            s.tasks
+                .get(i)
+                .is_none_or(|t| matches!(t.vertical, VerticalPosition::GazeAngle { .. }))
+        })
+    };
+    let on_kind = Callback::new(move |v: String| {
+        state.edit(|s| {
+            if let Some(t) = s.tasks.get_mut(i) {
+                t.vertical = if v == "height" {
+                    VerticalPosition::HeightFromEyes { metres: -0.2 }
+                } else {
+                    VerticalPosition::GazeAngle { degrees: -15.0 }
+                };
+            }
+        })
+    });
+    view! {
+        <ChoiceField
+            label="Position given as"
+            choices=vec![("angle", "Gaze angle"), ("height", "Height from eyes")]
+            value=Signal::derive(move || if by_angle() { "angle" } else { "height" })
+            on_change=on_kind
+        />
+        {move || {
+            if by_angle() {
+                scenario_number(
+                        "Gaze angle (up +, down −)",
+                        format!("tasks[{i}].vertical.degrees"),
+                        Shown::As("°"),
+                        move |s| match s.tasks.get(i).map(|t| t.vertical) {
+                            Some(VerticalPosition::GazeAngle { degrees }) => Some(degrees),
+                            _ => None,
+                        },
+                        move |s, v| {
+                            if let (Some(t), Some(degrees)) = (s.tasks.get_mut(i), v) {
+                                t.vertical = VerticalPosition::GazeAngle { degrees };
+                            }
+                        },
+                        false,
+                    )
+                    .into_any()
+            } else {
+                scenario_number(
+                        "Height from eyes (up +, down −)",
+                        format!("tasks[{i}].vertical.metres"),
+                        Shown::Length,
+                        move |s| match s.tasks.get(i).map(|t| t.vertical) {
+                            Some(VerticalPosition::HeightFromEyes { metres }) => Some(metres),
+                            _ => None,
+                        },
+                        move |s, v| {
+                            if let (Some(t), Some(metres)) = (s.tasks.get_mut(i), v) {
+                                t.vertical = VerticalPosition::HeightFromEyes { metres };
+                            }
+                        },
+                        false,
+                    )
+                    .into_any()
+            }
+        }}
+    }
+}
+
+/// The card of task `i`.
+fn task_card(i: usize) -> impl IntoView {
+    let state = use_app_state();
+    let name = Signal::derive(move || {
+        state
+            .scenario
+            .with(|s| s.tasks.get(i).map(|t| t.name.clone()).unwrap_or_default())
+    });
+    let on_name = Callback::new(move |v: String| {
+        state.edit(|s| {
+            if let Some(t) = s.tasks.get_mut(i) {
+                t.name = v;
+            }
+        })
+    });
+    let name_problem = Signal::derive(move || {
+        state
+            .problem_at(&format!("tasks[{i}].name"))
+            .map(|p| p.to_string())
+    });
+    let remove = move |_| {
+        state.edit(|s| {
+            if i < s.tasks.len() {
+                s.tasks.remove(i);
+            }
+        })
+    };
+    view! {
+        <li class="task-card" data-testid="task-card">
+            <div class="task-head">
+                <TextField label="Task" value=name on_input=on_name problem=name_problem test_id=format!("task-{i}-name") />
+                <button
+                    type="button"
+                    class="quiet"
+                    aria-label=move || format!("Remove task {}", name.get())
+                    on:click=remove
+                >
+                    "Remove"
+                </button>
+            </div>
+            <div class="grid">
+                {scenario_number(
+                    "Distance",
+                    format!("tasks[{i}].distance_m"),
+                    Shown::Length,
+                    task_value(i, |t| t.distance_m),
+                    task_write(i, |t, v| t.distance_m = v),
+                    false,
+                )}
+                {position_fields(i)}
+                {scenario_number(
+                    "Sideways (right +)",
+                    format!("tasks[{i}].sideways_m"),
+                    Shown::Length,
+                    task_value(i, |t| t.sideways_m),
+                    task_write(i, |t, v| t.sideways_m = v),
+                    false,
+                )}
+                {scenario_number(
+                    "Width of task area",
+                    format!("tasks[{i}].width_m"),
+                    Shown::Length,
+                    task_value(i, |t| t.width_m),
+                    task_write(i, |t, v| t.width_m = v),
+                    false,
+                )}
+                {scenario_number(
+                    "Smallest detail",
+                    format!("tasks[{i}].detail_mm"),
+                    Shown::As("mm"),
+                    task_value(i, |t| t.detail_mm),
+                    task_write(i, |t, v| t.detail_mm = v),
+                    false,
+                )}
+                {scenario_number(
+                    "Hours per day",
+                    format!("tasks[{i}].hours_per_day"),
+                    Shown::As("h"),
+                    task_value(i, |t| t.hours_per_day),
+                    task_write(i, |t, v| t.hours_per_day = v),
+                    false,
+                )}
+            </div>
+            <div class="flags">
+                {flag_field(i, "Driving or moving machinery", |f| &mut f.driving)}
+                {flag_field(i, "Overhead", |f| &mut f.overhead)}
+                {flag_field(i, "Needs safety eyewear", |f| &mut f.needs_safety_eyewear)}
+            </div>
+        </li>
+    }
+}
+
+/// The working-day panel.
+#[component]
+pub fn TasksPanel() -> impl IntoView {
+    let state = use_app_state();
+    let count = move || state.scenario.with(|s| s.tasks.len());
+    let add = move |_: leptos::ev::MouseEvent| {
+        state.edit(|s| {
+            if s.tasks.len() < MAX_TASKS {
+                let name = format!("Task {}", s.tasks.len() + 1);
+                s.tasks.push(Task::desk_screen(&name));
+            }
+        })
+    };
+    let tasks_problem = move || state.problem_at("tasks").map(|p| p.to_string());
+    view! {
+        <section class="panel tasks" aria-labelledby="tasks-heading">
+            <h2 id="tasks-heading">"Working day"</h2>
+            <p class="message" role="status">{tasks_problem}</p>
+            <ol class="task-list">
+                <For each=move || 0..count() key=|i| *i let:i>
+                    {task_card(i)}
+                </For>
+            </ol>
+            <button
+                type="button"
+                class="primary"
+                data-testid="add-task"
+                disabled=move || { count() >= MAX_TASKS }
+                on:click=add
+            >
+                "Add task"
+            </button>
+        </section>
+    }
+}
