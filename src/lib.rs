@@ -3,4 +3,5 @@
 //! and tests natively, and, behind the `web` feature, a thin leptos app over it.
 
 pub mod core;
+pub mod library;
 pub mod scenario;
