@@ -33,3 +33,6 @@ pub use sync::Reloaded;
 pub use transfer::{
     parse_import, parse_import_bytes, ImportBatch, ImportReport, Imported, RejectedItem,
 };
+
+#[cfg(test)]
+mod tests;

@@ -15,7 +15,7 @@ use crate::scenario::{FieldError, Scenario};
 /// What storage holds under an entry's key right now.
 pub(super) enum StoredState {
     Missing,
-    Readable(StoredEntry),
+    Readable(Box<StoredEntry>),
     Unreadable { raw: String, error: ReadError },
 }
 
@@ -118,22 +118,23 @@ impl<S: KeyValueStore> Library<S> {
         Ok(self.adopt(id, state, open))
     }
 
-    /// Resolves a conflict by saving this tab's version of `id` as a new
-    /// entry with the next free name, then taking storage's version of `id`.
-    /// If storage cannot be read for the second step, `id` stays as it is.
+    /// Resolves a conflict by giving `id` storage's version and saving this
+    /// tab's version as a new entry with the next free name. Returns the new
+    /// entry. If storage cannot be read, `id` keeps this tab's version too.
     pub fn keep_mine_as_copy(
         &mut self,
         id: &EntryId,
         now_ms: u64,
     ) -> Result<(EntryId, Result<Persisted, LibraryError>), LibraryError> {
         let mine = self.slot(id)?.entry.clone();
-        let mut scenario = mine.scenario;
-        scenario.name = self.free_name(&scenario.name);
-        let copy = self.create(scenario, &mine.note, now_ms);
+        // Storage's version takes the original entry first, so the copy's
+        // name is checked against the name it brings.
         if let Ok(state) = self.stored_state(id) {
             self.adopt(id, state, true);
         }
-        Ok(copy)
+        let mut scenario = mine.scenario;
+        scenario.name = self.free_name(&scenario.name);
+        Ok(self.create(scenario, &mine.note, now_ms))
     }
 
     /// Writes entry `id` as the next revision if storage still holds the
@@ -169,7 +170,7 @@ impl<S: KeyValueStore> Library<S> {
         Ok(match self.store.get(&key_for(id))? {
             None => StoredState::Missing,
             Some(raw) => match read_entry(&raw) {
-                Ok(body) => StoredState::Readable(body),
+                Ok(body) => StoredState::Readable(Box::new(body)),
                 Err(error) => StoredState::Unreadable { raw, error },
             },
         })
