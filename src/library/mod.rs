@@ -6,6 +6,7 @@
 //! adapter implements over local storage; nothing here knows the browser.
 
 mod collection;
+pub mod demos;
 pub mod format;
 pub mod migrate;
 mod naming;
@@ -18,6 +19,7 @@ pub use collection::{
     id_for_key, key_for, Conflict, EntryProblem, Library, LibraryError, LoadReport, Persisted,
     SetAside, Summary, Theirs, APP_PREFIX, SCENARIO_PREFIX,
 };
+pub use demos::{DemoFile, DEMO_FILES};
 pub use format::{
     encode_entry, encode_export, Entry, EntryId, ExportItem, StoredEntry, CURRENT_VERSION,
     ENTRY_FORMAT, EXPORT_FORMAT, SHIPPED_VERSIONS,
@@ -34,5 +36,7 @@ pub use transfer::{
     parse_import, parse_import_bytes, ImportBatch, ImportReport, Imported, RejectedItem,
 };
 
+#[cfg(test)]
+mod fuzz;
 #[cfg(test)]
 mod tests;

@@ -505,3 +505,56 @@ fn an_import_into_full_storage_reports_each_scenario_kept_in_memory() {
     );
     assert_eq!(names(&lib), ["X"]);
 }
+
+/// Every source file of the library, with its text.
+fn library_sources() -> Vec<(std::path::PathBuf, String)> {
+    fn walk(dir: &std::path::Path, out: &mut Vec<(std::path::PathBuf, String)>) {
+        let entries = std::fs::read_dir(dir).expect("source folder is listable");
+        for path in entries.filter_map(|e| e.ok()).map(|e| e.path()) {
+            if path.is_dir() {
+                walk(&path, out);
+            } else if path.extension().is_some_and(|x| x == "rs") {
+                let text = std::fs::read_to_string(&path).expect("source is readable");
+                out.push((path, text));
+            }
+        }
+    }
+    let mut out = Vec::new();
+    walk(
+        &std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("src/library"),
+        &mut out,
+    );
+    out
+}
+
+/// Invariant: the library is pure; only the browser adapter touches the
+/// browser. The crate names are assembled here so this file passes its own check.
+#[test]
+fn library_sources_name_no_browser_crate_and_open_with_a_doc_paragraph() {
+    let forbidden: Vec<String> = [
+        ["lep", "tos"],
+        ["web", "_sys"],
+        ["wasm", "_bindgen"],
+        ["js", "_sys"],
+        ["glo", "o"],
+    ]
+    .iter()
+    .map(|parts| parts.concat())
+    .collect();
+    let sources = library_sources();
+    assert!(sources.len() >= 10, "found the sources");
+    for (path, text) in sources {
+        for name in &forbidden {
+            assert!(
+                !text.contains(name.as_str()),
+                "{} mentions {name}",
+                path.display()
+            );
+        }
+        assert!(
+            text.starts_with("//!"),
+            "{} opens with a //! paragraph",
+            path.display()
+        );
+    }
+}
