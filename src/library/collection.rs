@@ -243,7 +243,9 @@ pub struct Library<S: KeyValueStore> {
     pub(super) store: S,
     pub(super) slots: BTreeMap<EntryId, Slot>,
     pub(super) set_aside: Vec<SetAside>,
-    pub(super) deleted: Vec<Entry>,
+    /// Deleted entries, each with the revision storage still holds of it
+    /// (`None` once its key is removed).
+    pub(super) deleted: Vec<(Entry, Option<u64>)>,
     pub(super) next_seq: u64,
     pub(super) storage_problem: Option<StoreError>,
 }
@@ -307,8 +309,12 @@ impl<S: KeyValueStore> Library<S> {
                 }),
             }
         }
-        self.slots
-            .retain(|id, slot| slot.unsaved || found.contains_key(id));
+        // After a partial read failure an entry missing from `found` may
+        // still be stored, so nothing is dropped from memory then.
+        if report.storage.is_none() {
+            self.slots
+                .retain(|id, slot| slot.unsaved || found.contains_key(id));
+        }
         for (id, entry) in found {
             if self.slots.get(&id).is_some_and(|s| s.unsaved) {
                 continue;
@@ -476,36 +482,36 @@ impl<S: KeyValueStore> Library<S> {
     /// revision written by another tab is never deleted unseen: that is a conflict.
     pub fn delete(&mut self, id: &EntryId) -> Result<Persisted, LibraryError> {
         let base = self.slot(id)?.base;
-        let persisted = match self.stored_state(id) {
-            Err(e) => self.refused(e),
+        let (persisted, left_in_storage) = match self.stored_state(id) {
+            Err(e) => (self.refused(e), base),
             Ok(state) if state.matches(base) => match self.store.remove(&key_for(id)) {
-                Ok(()) => Persisted::Stored,
-                Err(e) => self.refused(e),
+                Ok(()) => (Persisted::Stored, None),
+                Err(e) => (self.refused(e), base),
             },
             Ok(state) => return Err(LibraryError::Conflict(self.conflict(id, state))),
         };
         if let Some(slot) = self.slots.remove(id) {
-            self.deleted.push(slot.entry);
+            self.deleted.push((slot.entry, left_in_storage));
         }
         Ok(persisted)
     }
 
     /// The most recently deleted entry that can still be restored.
     pub fn last_deleted(&self) -> Option<&Entry> {
-        self.deleted.last()
+        self.deleted.last().map(|(entry, _)| entry)
     }
 
     /// Restores the most recently deleted entry and writes it back.
     pub fn undo_delete(
         &mut self,
     ) -> Result<(EntryId, Result<Persisted, LibraryError>), LibraryError> {
-        let entry = self.deleted.pop().ok_or(LibraryError::NothingToUndo)?;
+        let (entry, base) = self.deleted.pop().ok_or(LibraryError::NothingToUndo)?;
         let id = entry.id.clone();
         self.slots.insert(
             id.clone(),
             Slot {
                 entry,
-                base: None,
+                base,
                 unsaved: true,
             },
         );
@@ -554,7 +560,7 @@ impl<S: KeyValueStore> Library<S> {
             self.next_seq = self.next_seq.wrapping_add(1);
             let key = key_for(&id);
             let taken = self.slots.contains_key(&id)
-                || self.deleted.iter().any(|e| e.id == id)
+                || self.deleted.iter().any(|(e, _)| e.id == id)
                 || self.set_aside.iter().any(|s| s.key == key)
                 || matches!(self.store.get(&key), Ok(Some(_)));
             if !taken {

@@ -11,6 +11,11 @@ const UNNAMED: &str = "Unnamed scenario";
 /// space), else the first free `"root (n)"`, n = 2, 3, ..., where `root` is
 /// `wanted` without any " (n)" suffix of its own; the result never exceeds
 /// [`MAX_NAME_CHARS`] characters.
+///
+/// ```
+/// use clearspan::library::unique_name;
+/// assert_eq!(unique_name("Bench", ["bench", "Bench (2)"]), "Bench (3)");
+/// ```
 pub fn unique_name<'a>(wanted: &str, taken: impl IntoIterator<Item = &'a str>) -> String {
     let taken: Vec<String> = taken.into_iter().map(normal).collect();
     let is_free = |name: &str| !taken.contains(&normal(name));

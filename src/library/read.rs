@@ -80,6 +80,12 @@ impl From<FormatError> for ReadError {
 
 /// Checks that no bracket nests deeper than [`MAX_NESTING`], scanning the raw
 /// bytes (brackets inside JSON strings do not count).
+///
+/// ```
+/// use clearspan::library::{check_nesting, MAX_NESTING};
+/// assert!(check_nesting(br#"{"a": ["[[[["]}"#).is_ok());
+/// assert!(check_nesting("[".repeat(MAX_NESTING + 1).as_bytes()).is_err());
+/// ```
 pub fn check_nesting(bytes: &[u8]) -> Result<(), ReadError> {
     let mut depth = 0usize;
     let mut in_string = false;

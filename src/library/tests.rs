@@ -558,3 +558,17 @@ fn library_sources_name_no_browser_crate_and_open_with_a_doc_paragraph() {
         );
     }
 }
+
+#[test]
+fn undo_of_a_delete_that_storage_refused_does_not_conflict_with_itself() {
+    let (mut lib, store, a, _) = two_entries();
+    store.borrow_mut().set_unavailable(true);
+    assert_eq!(
+        lib.delete(&a),
+        Ok(Persisted::KeptInMemory(StoreError::Unavailable))
+    );
+    store.borrow_mut().set_unavailable(false);
+    let (restored, result) = lib.undo_delete().expect("undo");
+    assert_eq!((restored, result), (a.clone(), Ok(Persisted::Stored)));
+    assert_eq!(lib.save(&a, sample("A again"), 9), Ok(Persisted::Stored));
+}
