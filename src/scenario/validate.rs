@@ -39,6 +39,9 @@ pub enum Problem {
     TooLong(usize),
     /// A rule linking two fields is broken; the text says which.
     Inconsistent(&'static str),
+    /// The value could not be read at all (wrong type, missing, unknown
+    /// variant in a file); the text is the reader's own explanation.
+    Unreadable(String),
 }
 
 impl fmt::Display for Problem {
@@ -64,6 +67,7 @@ impl fmt::Display for Problem {
             Problem::Empty => f.write_str("must not be empty"),
             Problem::TooLong(max) => write!(f, "is longer than {max} characters"),
             Problem::Inconsistent(rule) => f.write_str(rule),
+            Problem::Unreadable(why) => f.write_str(why),
         }
     }
 }

@@ -1,0 +1,590 @@
+//! The [`Library`]: every scenario of the device in memory, loaded from and
+//! written to a [`KeyValueStore`] one key per scenario. Loading never fails
+//! as a whole: good entries load, unreadable ones are set aside with their
+//! raw text and reported. This file covers loading, listing and the user's
+//! edits (create, rename, duplicate, delete with undo, erase all); writing
+//! with conflict detection lives in `sync.rs`, files in `transfer.rs`.
+
+use super::format::{Entry, EntryId};
+use super::naming::unique_name;
+use super::read::{read_entry, ReadError};
+use super::store::{KeyValueStore, StoreError};
+use crate::scenario::{FieldError, Scenario, MAX_NAME_CHARS};
+use std::collections::BTreeMap;
+use std::fmt;
+
+/// Prefix of every storage key the app owns; erasing the app's data removes
+/// exactly the keys that start with it. Other app settings belong under it too.
+pub const APP_PREFIX: &str = "clearspan/";
+/// Prefix of the key of each stored scenario; the entry id follows it.
+pub const SCENARIO_PREFIX: &str = "clearspan/scenario/";
+
+/// The storage key of entry `id`.
+pub fn key_for(id: &EntryId) -> String {
+    format!("{SCENARIO_PREFIX}{id}")
+}
+
+/// The entry a storage key belongs to, if it is a scenario key with a valid id
+/// (for the browser's `storage` event, which names the changed key).
+pub fn id_for_key(key: &str) -> Option<EntryId> {
+    key.strip_prefix(SCENARIO_PREFIX).and_then(EntryId::parse)
+}
+
+/// Why a stored value was set aside instead of loaded.
+#[derive(Debug, Clone, PartialEq)]
+pub enum EntryProblem {
+    /// The key is under the scenario prefix but does not name a valid id.
+    BadKey,
+    /// The text cannot be read: damaged, foreign, or from a newer version.
+    Unreadable(ReadError),
+}
+
+impl fmt::Display for EntryProblem {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            EntryProblem::BadKey => f.write_str("its storage key is not one clearspan makes"),
+            EntryProblem::Unreadable(e) => e.fmt(f),
+        }
+    }
+}
+
+impl std::error::Error for EntryProblem {}
+
+/// A stored value that could not be loaded. Its text stays untouched in
+/// storage (a newer clearspan may have written it) and is kept here too, so
+/// the user can download it for recovery or discard it deliberately.
+#[derive(Debug, Clone, PartialEq)]
+pub struct SetAside {
+    /// The storage key it was found under.
+    pub key: String,
+    /// Its raw text, exactly as stored.
+    pub raw: String,
+    /// Why it could not be loaded.
+    pub problem: EntryProblem,
+}
+
+impl fmt::Display for SetAside {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        write!(
+            f,
+            "A saved scenario ({}) could not be opened: {}. Its text is kept unchanged; \
+             download it to keep a copy, or discard it.",
+            self.key, self.problem
+        )
+    }
+}
+
+/// What loading found, for the UI to show once after start.
+#[derive(Debug, Clone, PartialEq, Default)]
+pub struct LoadReport {
+    /// How many scenarios loaded.
+    pub loaded: usize,
+    /// Stored values that could not be loaded, kept for recovery.
+    pub set_aside: Vec<SetAside>,
+    /// Set if the store could not be read at all or in part.
+    pub storage: Option<StoreError>,
+}
+
+impl LoadReport {
+    /// One plain-language line per problem (empty when all went well).
+    pub fn messages(&self) -> Vec<String> {
+        let mut lines: Vec<String> = self.storage.iter().map(StoreError::to_string).collect();
+        lines.extend(self.set_aside.iter().map(SetAside::to_string));
+        lines
+    }
+}
+
+/// Whether a change reached storage.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Persisted {
+    /// Written to storage.
+    Stored,
+    /// Kept in memory only, because storage refused it; the UI should offer export.
+    KeptInMemory(StoreError),
+}
+
+/// What another tab or program did to an entry this tab was about to write.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Theirs {
+    /// Someone wrote a different revision.
+    Newer {
+        /// The revision found in storage.
+        revision: u64,
+        /// The scenario name in that revision.
+        name: String,
+    },
+    /// Someone deleted the entry.
+    Removed,
+    /// Someone wrote something this version cannot read.
+    Unreadable(ReadError),
+}
+
+/// A write refused because storage no longer holds the revision this tab
+/// started from. This tab's version stays in memory until the user chooses
+/// [`Library::keep_mine_as_copy`] or [`Library::take_theirs`].
+#[derive(Debug, Clone, PartialEq)]
+pub struct Conflict {
+    /// The entry concerned.
+    pub id: EntryId,
+    /// The scenario name in this tab.
+    pub name: String,
+    /// What is in storage now.
+    pub theirs: Theirs,
+}
+
+impl fmt::Display for Conflict {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        let name = &self.name;
+        match &self.theirs {
+            Theirs::Newer {
+                revision,
+                name: their_name,
+            } => write!(
+                f,
+                "\"{name}\" was changed in another tab or window (now revision {revision}, named \
+                 \"{their_name}\") while you edited it here. Keep yours as a copy, or take theirs."
+            ),
+            Theirs::Removed => write!(
+                f,
+                "\"{name}\" was deleted in another tab or window while you edited it here. Keep \
+                 yours as a copy, or let it go."
+            ),
+            Theirs::Unreadable(e) => write!(
+                f,
+                "\"{name}\" was overwritten elsewhere with something this version cannot read \
+                 ({e}). Keep yours as a copy; the other text is kept for recovery."
+            ),
+        }
+    }
+}
+
+/// Why a library operation was refused.
+#[derive(Debug, Clone, PartialEq)]
+pub enum LibraryError {
+    /// No entry has this id (it may have been deleted).
+    NotFound(EntryId),
+    /// A name longer than [`MAX_NAME_CHARS`] characters.
+    NameTooLong,
+    /// Another tab changed the entry; nothing was overwritten.
+    Conflict(Conflict),
+    /// There is no deleted entry to restore.
+    NothingToUndo,
+    /// The scenario holds a value that would not read back (such as a number
+    /// that is not finite); it is kept in memory, not written.
+    NotStorable(Vec<FieldError>),
+    /// Storage could not be read for an operation that needs it.
+    Storage(StoreError),
+}
+
+impl fmt::Display for LibraryError {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            LibraryError::NotFound(id) => {
+                write!(
+                    f,
+                    "no scenario with id {id} is open; it may have been deleted"
+                )
+            }
+            LibraryError::NameTooLong => {
+                write!(
+                    f,
+                    "the name is longer than {MAX_NAME_CHARS} characters; shorten it"
+                )
+            }
+            LibraryError::Conflict(c) => c.fmt(f),
+            LibraryError::NothingToUndo => f.write_str("there is no deleted scenario to restore"),
+            LibraryError::NotStorable(errors) => write!(
+                f,
+                "this scenario cannot be saved until a value is corrected ({}); it is kept in \
+                 this tab",
+                errors
+                    .iter()
+                    .map(FieldError::to_string)
+                    .collect::<Vec<_>>()
+                    .join("; ")
+            ),
+            LibraryError::Storage(e) => e.fmt(f),
+        }
+    }
+}
+
+impl std::error::Error for LibraryError {}
+
+/// One line of the library list.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Summary {
+    /// The entry.
+    pub id: EntryId,
+    /// The scenario name.
+    pub name: String,
+    /// The entry's note.
+    pub note: String,
+    /// Last change, in milliseconds since the Unix epoch.
+    pub changed_ms: u64,
+    /// Number of tasks in the scenario.
+    pub task_count: usize,
+    /// True while a change is held in memory only (storage refused it or a conflict waits).
+    pub unsaved: bool,
+}
+
+/// An entry in memory with what this tab knows of its stored copy.
+#[derive(Debug, Clone)]
+pub(super) struct Slot {
+    pub(super) entry: Entry,
+    /// The revision this tab last read from or wrote to storage (`None`: not stored).
+    pub(super) base: Option<u64>,
+    /// A change is in memory that storage does not hold yet.
+    pub(super) unsaved: bool,
+}
+
+/// Every scenario on the device, over a key-value store.
+#[derive(Debug)]
+pub struct Library<S: KeyValueStore> {
+    pub(super) store: S,
+    pub(super) slots: BTreeMap<EntryId, Slot>,
+    pub(super) set_aside: Vec<SetAside>,
+    /// Deleted entries, each with the revision storage still holds of it
+    /// (`None` once its key is removed).
+    pub(super) deleted: Vec<(Entry, Option<u64>)>,
+    pub(super) next_seq: u64,
+    pub(super) storage_problem: Option<StoreError>,
+}
+
+impl<S: KeyValueStore> Library<S> {
+    /// Opens the library over `store` and loads every entry.
+    pub fn open(store: S) -> (Self, LoadReport) {
+        let mut library = Library {
+            store,
+            slots: BTreeMap::new(),
+            set_aside: Vec::new(),
+            deleted: Vec::new(),
+            next_seq: 0,
+            storage_problem: None,
+        };
+        let report = library.load_all();
+        (library, report)
+    }
+
+    /// Reads every scenario key again (after start, or when another tab
+    /// cleared storage). Entries with unsaved changes in memory are kept as
+    /// they are; entries gone from storage are dropped unless unsaved.
+    pub fn load_all(&mut self) -> LoadReport {
+        let mut report = LoadReport::default();
+        let keys = match self.store.keys() {
+            Ok(keys) => keys,
+            Err(e) => {
+                self.storage_problem = Some(e);
+                report.storage = Some(e);
+                report.loaded = self.slots.len();
+                return report;
+            }
+        };
+        let mut found = BTreeMap::new();
+        let mut set_aside = Vec::new();
+        for key in keys.iter().filter(|k| k.starts_with(SCENARIO_PREFIX)) {
+            let raw = match self.store.get(key) {
+                Ok(Some(raw)) => raw,
+                Ok(None) => continue,
+                Err(e) => {
+                    report.storage = Some(e);
+                    continue;
+                }
+            };
+            let Some(id) = id_for_key(key) else {
+                set_aside.push(SetAside {
+                    key: key.clone(),
+                    raw,
+                    problem: EntryProblem::BadKey,
+                });
+                continue;
+            };
+            match read_entry(&raw) {
+                Ok(body) => {
+                    found.insert(id.clone(), body.into_entry(id));
+                }
+                Err(e) => set_aside.push(SetAside {
+                    key: key.clone(),
+                    raw,
+                    problem: EntryProblem::Unreadable(e),
+                }),
+            }
+        }
+        // After a partial read failure an entry missing from `found` may
+        // still be stored, so nothing is dropped from memory then.
+        if report.storage.is_none() {
+            self.slots
+                .retain(|id, slot| slot.unsaved || found.contains_key(id));
+        }
+        for (id, entry) in found {
+            if self.slots.get(&id).is_some_and(|s| s.unsaved) {
+                continue;
+            }
+            let base = Some(entry.revision);
+            self.slots.insert(
+                id,
+                Slot {
+                    entry,
+                    base,
+                    unsaved: false,
+                },
+            );
+        }
+        self.set_aside = set_aside;
+        self.storage_problem = report.storage;
+        report.loaded = self.slots.len();
+        report.set_aside = self.set_aside.clone();
+        report
+    }
+
+    /// The entry `id`, if open.
+    pub fn get(&self, id: &EntryId) -> Option<&Entry> {
+        self.slots.get(id).map(|s| &s.entry)
+    }
+
+    /// The entries whose name, note or task names contain every word of
+    /// `filter` (ignoring case), most recently changed first.
+    pub fn list(&self, filter: &str) -> Vec<Summary> {
+        let words: Vec<String> = filter.split_whitespace().map(str::to_lowercase).collect();
+        let mut rows: Vec<Summary> = self
+            .slots
+            .values()
+            .filter(|slot| {
+                let e = &slot.entry;
+                let mut text = format!("{}\n{}", e.scenario.name, e.note);
+                for t in &e.scenario.tasks {
+                    text.push('\n');
+                    text.push_str(&t.name);
+                }
+                let text = text.to_lowercase();
+                words.iter().all(|w| text.contains(w.as_str()))
+            })
+            .map(|slot| Summary {
+                id: slot.entry.id.clone(),
+                name: slot.entry.scenario.name.clone(),
+                note: slot.entry.note.clone(),
+                changed_ms: slot.entry.changed_ms,
+                task_count: slot.entry.scenario.tasks.len(),
+                unsaved: slot.unsaved,
+            })
+            .collect();
+        rows.sort_by(|a, b| {
+            b.changed_ms
+                .cmp(&a.changed_ms)
+                .then_with(|| a.name.cmp(&b.name))
+                .then_with(|| a.id.cmp(&b.id))
+        });
+        rows
+    }
+
+    /// Stored values that could not be loaded, with their raw text.
+    pub fn set_aside(&self) -> &[SetAside] {
+        &self.set_aside
+    }
+
+    /// Removes a set-aside value from storage for good, at the user's request.
+    pub fn discard_set_aside(&mut self, key: &str) -> Result<(), StoreError> {
+        self.store.remove(key)?;
+        self.set_aside.retain(|s| s.key != key);
+        Ok(())
+    }
+
+    /// The last storage refusal, cleared by the next successful write; while
+    /// set, the UI should say that work is kept in this tab only and offer export.
+    pub fn storage_problem(&self) -> Option<StoreError> {
+        self.storage_problem
+    }
+
+    /// The entries with changes held in memory only.
+    pub fn unsaved_ids(&self) -> Vec<EntryId> {
+        self.slots
+            .iter()
+            .filter(|(_, s)| s.unsaved)
+            .map(|(id, _)| id.clone())
+            .collect()
+    }
+
+    /// The store, for the adapter.
+    pub fn store(&self) -> &S {
+        &self.store
+    }
+
+    /// Adds a new scenario created at `now_ms` (milliseconds since the Unix epoch).
+    /// The entry exists in memory whatever storage says; the result says whether it was written.
+    pub fn create(
+        &mut self,
+        scenario: Scenario,
+        note: &str,
+        now_ms: u64,
+    ) -> (EntryId, Result<Persisted, LibraryError>) {
+        self.insert_new(scenario, note, now_ms, now_ms)
+    }
+
+    /// Adds a new entry with the given times and writes it.
+    pub(super) fn insert_new(
+        &mut self,
+        scenario: Scenario,
+        note: &str,
+        created_ms: u64,
+        now_ms: u64,
+    ) -> (EntryId, Result<Persisted, LibraryError>) {
+        let id = self.fresh_id(now_ms);
+        let entry = Entry {
+            id: id.clone(),
+            revision: 0,
+            created_ms,
+            changed_ms: now_ms,
+            note: note.to_string(),
+            scenario,
+        };
+        self.slots.insert(
+            id.clone(),
+            Slot {
+                entry,
+                base: None,
+                unsaved: true,
+            },
+        );
+        let result = self.persist(&id);
+        (id, result)
+    }
+
+    /// Renames entry `id` at `now_ms`.
+    pub fn rename(
+        &mut self,
+        id: &EntryId,
+        name: &str,
+        now_ms: u64,
+    ) -> Result<Persisted, LibraryError> {
+        if name.chars().count() > MAX_NAME_CHARS {
+            return Err(LibraryError::NameTooLong);
+        }
+        let slot = self.slot_mut(id)?;
+        slot.entry.scenario.name = name.to_string();
+        slot.entry.changed_ms = now_ms;
+        slot.unsaved = true;
+        self.persist(id)
+    }
+
+    /// Copies entry `id` into a new entry with the next free name ("… (2)").
+    pub fn duplicate(
+        &mut self,
+        id: &EntryId,
+        now_ms: u64,
+    ) -> Result<(EntryId, Result<Persisted, LibraryError>), LibraryError> {
+        let source = self.slot(id)?.entry.clone();
+        let mut scenario = source.scenario;
+        scenario.name = self.free_name(&scenario.name);
+        Ok(self.create(scenario, &source.note, now_ms))
+    }
+
+    /// Deletes entry `id` from storage and keeps it in memory for
+    /// [`Library::undo_delete`] until [`Library::discard_deleted`]. A newer
+    /// revision written by another tab is never deleted unseen: that is a conflict.
+    pub fn delete(&mut self, id: &EntryId) -> Result<Persisted, LibraryError> {
+        let base = self.slot(id)?.base;
+        let (persisted, left_in_storage) = match self.stored_state(id) {
+            Err(e) => (self.refused(e), base),
+            Ok(state) if state.matches(base) => match self.store.remove(&key_for(id)) {
+                Ok(()) => (Persisted::Stored, None),
+                Err(e) => (self.refused(e), base),
+            },
+            Ok(state) => return Err(LibraryError::Conflict(self.conflict(id, state))),
+        };
+        if let Some(slot) = self.slots.remove(id) {
+            self.deleted.push((slot.entry, left_in_storage));
+        }
+        Ok(persisted)
+    }
+
+    /// The most recently deleted entry that can still be restored.
+    pub fn last_deleted(&self) -> Option<&Entry> {
+        self.deleted.last().map(|(entry, _)| entry)
+    }
+
+    /// Restores the most recently deleted entry and writes it back.
+    pub fn undo_delete(
+        &mut self,
+    ) -> Result<(EntryId, Result<Persisted, LibraryError>), LibraryError> {
+        let (entry, base) = self.deleted.pop().ok_or(LibraryError::NothingToUndo)?;
+        let id = entry.id.clone();
+        self.slots.insert(
+            id.clone(),
+            Slot {
+                entry,
+                base,
+                unsaved: true,
+            },
+        );
+        let result = self.persist(&id);
+        Ok((id, result))
+    }
+
+    /// Forgets the deleted entries for good.
+    pub fn discard_deleted(&mut self) {
+        self.deleted.clear();
+    }
+
+    /// Erases every key of the app from storage (and only those: keys under
+    /// [`APP_PREFIX`]) and then everything in memory. Returns how many keys
+    /// were removed. If storage refuses, memory is left as it was so nothing
+    /// is lost by half.
+    pub fn erase_all_local_data(&mut self) -> Result<usize, StoreError> {
+        let keys = self.store.keys()?;
+        let mut removed = 0;
+        for key in keys.iter().filter(|k| k.starts_with(APP_PREFIX)) {
+            self.store.remove(key)?;
+            removed += 1;
+        }
+        self.slots.clear();
+        self.set_aside.clear();
+        self.deleted.clear();
+        self.storage_problem = None;
+        Ok(removed)
+    }
+
+    /// A scenario name not used by any open entry, based on `wanted`.
+    pub(super) fn free_name(&self, wanted: &str) -> String {
+        unique_name(
+            wanted,
+            self.slots.values().map(|s| s.entry.scenario.name.as_str()),
+        )
+    }
+
+    /// A new id from `now_ms` and the counter that names no open, deleted,
+    /// set-aside or stored entry.
+    fn fresh_id(&mut self, now_ms: u64) -> EntryId {
+        // The bound only guards against a store that claims every key; the
+        // write of a taken id would then be refused as a conflict, not overwrite.
+        for _ in 0..1000 {
+            let id = EntryId::from_time_and_counter(now_ms, self.next_seq);
+            self.next_seq = self.next_seq.wrapping_add(1);
+            let key = key_for(&id);
+            let taken = self.slots.contains_key(&id)
+                || self.deleted.iter().any(|(e, _)| e.id == id)
+                || self.set_aside.iter().any(|s| s.key == key)
+                || matches!(self.store.get(&key), Ok(Some(_)));
+            if !taken {
+                return id;
+            }
+        }
+        EntryId::from_time_and_counter(now_ms, self.next_seq)
+    }
+
+    pub(super) fn slot(&self, id: &EntryId) -> Result<&Slot, LibraryError> {
+        self.slots
+            .get(id)
+            .ok_or_else(|| LibraryError::NotFound(id.clone()))
+    }
+
+    pub(super) fn slot_mut(&mut self, id: &EntryId) -> Result<&mut Slot, LibraryError> {
+        self.slots
+            .get_mut(id)
+            .ok_or_else(|| LibraryError::NotFound(id.clone()))
+    }
+
+    /// Records a storage refusal and reports the change as kept in memory.
+    pub(super) fn refused(&mut self, e: StoreError) -> Persisted {
+        self.storage_problem = Some(e);
+        Persisted::KeptInMemory(e)
+    }
+}

@@ -1,0 +1,42 @@
+//! The scenario library: many wearers' and workstations' scenarios kept on
+//! one device, each under its own storage key so one damaged entry never
+//! takes the others down. It owns the versioned saved format, its migration,
+//! import and export of files, and the demo scenarios. It is pure: storage is
+//! reached only through the [`KeyValueStore`] trait, which the browser
+//! adapter implements over local storage; nothing here knows the browser.
+
+mod collection;
+pub mod demos;
+pub mod format;
+pub mod migrate;
+mod naming;
+pub mod read;
+pub mod store;
+mod sync;
+mod transfer;
+
+pub use collection::{
+    id_for_key, key_for, Conflict, EntryProblem, Library, LibraryError, LoadReport, Persisted,
+    SetAside, Summary, Theirs, APP_PREFIX, SCENARIO_PREFIX,
+};
+pub use demos::{DemoFile, DEMO_FILES};
+pub use format::{
+    encode_entry, encode_export, Entry, EntryId, ExportItem, StoredEntry, CURRENT_VERSION,
+    ENTRY_FORMAT, EXPORT_FORMAT, SHIPPED_VERSIONS,
+};
+pub use migrate::{migrate_entry, migrate_export, DocumentItem, ExportDocument, FormatError};
+pub use naming::unique_name;
+pub use read::{
+    check_nesting, parse_limited, read_document, read_document_bytes, read_entry, ReadError,
+    MAX_DOCUMENT_BYTES, MAX_NESTING,
+};
+pub use store::{KeyValueStore, MemoryStore, SharedMemoryStore, StoreError};
+pub use sync::Reloaded;
+pub use transfer::{
+    parse_import, parse_import_bytes, ImportBatch, ImportReport, Imported, RejectedItem,
+};
+
+#[cfg(test)]
+mod fuzz;
+#[cfg(test)]
+mod tests;
