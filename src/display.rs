@@ -128,6 +128,28 @@ pub fn describe_problem(problem: &Problem, unit: LengthUnit) -> String {
     }
 }
 
+/// A download file name made from a scenario name: lower-case letters,
+/// digits and dashes only, at most 60 of them, never empty.
+pub fn file_name_for(name: &str) -> String {
+    let stem: String = name
+        .chars()
+        .map(|c| {
+            if c.is_alphanumeric() {
+                c.to_ascii_lowercase()
+            } else {
+                '-'
+            }
+        })
+        .collect();
+    let stem: String = stem.trim_matches('-').chars().take(60).collect();
+    let stem = if stem.is_empty() {
+        "scenario".to_string()
+    } else {
+        stem
+    };
+    format!("clearspan-{stem}.json")
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -155,6 +177,15 @@ mod tests {
         check("inf", None);
         check("12 cm", None);
         assert_eq!(trim_number(-0.01, 1), "0");
+    }
+
+    #[test]
+    fn download_names_are_safe() {
+        assert_eq!(
+            file_name_for("Demo: office / two screens"),
+            "clearspan-demo--office---two-screens.json"
+        );
+        assert_eq!(file_name_for("///"), "clearspan-scenario.json");
     }
 
     #[test]

@@ -408,6 +408,12 @@ impl<S: KeyValueStore> Library<S> {
         &self.store
     }
 
+    /// The store, for app settings kept beside the scenarios under
+    /// [`APP_PREFIX`] (never under [`SCENARIO_PREFIX`]).
+    pub fn store_mut(&mut self) -> &mut S {
+        &mut self.store
+    }
+
     /// Adds a new scenario created at `now_ms` (milliseconds since the Unix epoch).
     /// The entry exists in memory whatever storage says; the result says whether it was written.
     pub fn create(

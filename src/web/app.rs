@@ -1,27 +1,36 @@
 //! The top-level layout of the app: masthead, the input panels and the outcome.
 
 use super::options_panel::OptionsPanel;
+use super::shelf::is_own_key;
+use super::shelf_panel::{NoticeBar, ShelfPanel};
 use super::state::provide_app_state;
 use super::tasks_panel::TasksPanel;
 use super::wearer_panel::WearerPanel;
 use crate::display::LengthUnit;
-use crate::scenario::Scenario;
 use leptos::prelude::*;
 
 /// The whole app.
 #[component]
 pub fn App() -> impl IntoView {
-    let state = provide_app_state(Scenario::untitled());
+    let state = provide_app_state();
+    // Another tab of the app changed local storage: follow it.
+    let _listener = window_event_listener(leptos::ev::storage, move |ev| {
+        let key = ev.key();
+        if key.as_deref().is_some_and(|k| !is_own_key(k)) {
+            return;
+        }
+        if let Some(scenario) = state.shelf.follow_other_tab(key) {
+            state.scenario.set(scenario);
+        }
+    });
     let unit_label = move || match state.unit.get() {
         LengthUnit::Centimetres => "Show inches",
         LengthUnit::Inches => "Show centimetres",
     };
     let toggle_unit = move |_| {
-        state.unit.update(|u| {
-            *u = match u {
-                LengthUnit::Centimetres => LengthUnit::Inches,
-                LengthUnit::Inches => LengthUnit::Centimetres,
-            }
+        state.set_unit(match state.unit.get_untracked() {
+            LengthUnit::Centimetres => LengthUnit::Inches,
+            LengthUnit::Inches => LengthUnit::Centimetres,
         })
     };
     view! {
@@ -35,7 +44,9 @@ pub fn App() -> impl IntoView {
                 {unit_label}
             </button>
         </header>
+        <NoticeBar />
         <main id="workspace" data-testid="workspace">
+            <ShelfPanel />
             <div class="inputs">
                 <WearerPanel />
                 <TasksPanel />

@@ -4,8 +4,12 @@
 mod app;
 mod bind;
 mod fields;
+mod files;
 mod options_panel;
+mod shelf;
+mod shelf_panel;
 mod state;
+mod storage;
 mod tasks_panel;
 mod wearer_panel;
 

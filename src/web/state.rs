@@ -2,6 +2,7 @@
 //! the user's length unit, and what is derived from them. Later views (a
 //! wearer walkthrough, a task-demand sheet) read the same state.
 
+use super::shelf::{Opening, Shelf};
 use crate::display::LengthUnit;
 use crate::scenario::{validate, FieldError, Problem, Scenario, ValidScenario};
 use leptos::prelude::*;
@@ -15,16 +16,19 @@ pub struct AppState {
     pub unit: RwSignal<LengthUnit>,
     /// The scenario after the validation gate: checked, or every field problem.
     pub checked: Memo<Result<ValidScenario, Vec<FieldError>>>,
+    /// The scenarios kept on this device and the save state of the open one.
+    pub shelf: Shelf,
 }
 
 impl AppState {
-    fn new(scenario: Scenario) -> AppState {
-        let scenario = RwSignal::new(scenario);
+    fn new(opening: Opening) -> AppState {
+        let scenario = RwSignal::new(opening.scenario);
         let checked = Memo::new(move |_| scenario.with(|s| validate(s.clone())));
         AppState {
             scenario,
-            unit: RwSignal::new(LengthUnit::default()),
+            unit: RwSignal::new(opening.unit),
             checked,
+            shelf: opening.shelf,
         }
     }
 
@@ -39,15 +43,23 @@ impl AppState {
         })
     }
 
-    /// Applies `edit` to the scenario being edited.
+    /// Applies `edit` to the scenario being edited and stores the result.
     pub fn edit(&self, edit: impl FnOnce(&mut Scenario)) {
         self.scenario.update(edit);
+        self.scenario.with_untracked(|s| self.shelf.autosave(s));
+    }
+
+    /// Switches the length unit and remembers it for the next visit.
+    pub fn set_unit(&self, unit: LengthUnit) {
+        self.unit.set(unit);
+        self.shelf.remember(Some(unit));
     }
 }
 
-/// Creates the app state around `scenario` and provides it to every component below.
-pub fn provide_app_state(scenario: Scenario) -> AppState {
-    let state = AppState::new(scenario);
+/// Opens the shelf, creates the app state around the scenario it opens, and
+/// provides the state to every component below.
+pub fn provide_app_state() -> AppState {
+    let state = AppState::new(Shelf::open());
     provide_context(state);
     state
 }
