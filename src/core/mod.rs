@@ -2,4 +2,7 @@
 //! quantities, accommodation, vergence, depth of field, lens families and
 //! gaze geometry. Every formula of the product lives in one file here.
 
+pub mod error;
+pub mod prescription;
 pub mod units;
+pub mod vergence;
