@@ -3,6 +3,7 @@
 //! gaze geometry. Every formula of the product lives in one file here.
 
 pub mod accommodation;
+pub mod clear_range;
 pub mod depth_of_field;
 pub mod error;
 pub mod prescription;
