@@ -8,5 +8,6 @@ pub mod depth_of_field;
 pub mod error;
 pub mod prescription;
 pub mod pupil;
+pub mod schematic_eye;
 pub mod units;
 pub mod vergence;
