@@ -115,7 +115,15 @@ pub fn ocular_refraction(spectacle: Dioptres, vertex: Metres) -> Result<Dioptres
 /// assert!((f.0 + 8.849_558).abs() < 1e-5);
 /// ```
 pub fn spectacle_refraction(ocular: Dioptres, vertex: Metres) -> Result<Dioptres, OpticsError> {
-    let k = check_power("ocular refraction", ocular)?.0;
+    // An accepted spectacle power can give an ocular refraction up to twice
+    // its size (vF ≤ 0.5), so the inverse accepts that range.
+    let k = OpticsError::in_range(
+        "ocular refraction",
+        ocular.0,
+        -2.0 * MAX_POWER_D,
+        2.0 * MAX_POWER_D,
+        "D",
+    )?;
     let v = check_vertex(vertex)?.0;
     let f = transfer(k, -v).ok_or_else(too_strong_for_vertex)?;
     if v * f > MAX_VERTEX_TIMES_POWER {
