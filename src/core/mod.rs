@@ -2,4 +2,5 @@
 //! quantities, accommodation, vergence, depth of field, lens families and
 //! gaze geometry. Every formula of the product lives in one file here.
 
+pub mod lens;
 pub mod units;

@@ -142,13 +142,21 @@ impl Checker {
         }
         self.prescription("wearer.right", &w.right);
         self.prescription("wearer.left", &w.left);
-        self.optional("wearer.prescribed_addition_d", w.prescribed_addition_d, &ADDITION);
+        self.optional(
+            "wearer.prescribed_addition_d",
+            w.prescribed_addition_d,
+            &ADDITION,
+        );
         if let Correction::Spectacles { vertex_mm } = w.correction {
             self.number("wearer.correction.vertex_mm", vertex_mm, &VERTEX);
         }
         self.number("wearer.pd_right_mm", w.pd_right_mm, &PD);
         self.number("wearer.pd_left_mm", w.pd_left_mm, &PD);
-        self.number("wearer.fitting_height_mm", w.fitting_height_mm, &FITTING_HEIGHT);
+        self.number(
+            "wearer.fitting_height_mm",
+            w.fitting_height_mm,
+            &FITTING_HEIGHT,
+        );
         self.number("wearer.lens_height_mm", w.lens_height_mm, &LENS_HEIGHT);
         if w.fitting_height_mm.is_finite()
             && w.lens_height_mm.is_finite()
@@ -168,9 +176,17 @@ impl Checker {
                 self.number("wearer.pupil.luminance_cd_m2", luminance_cd_m2, &LUMINANCE)
             }
         }
-        self.number("wearer.usable_fraction", w.usable_fraction, &USABLE_FRACTION);
+        self.number(
+            "wearer.usable_fraction",
+            w.usable_fraction,
+            &USABLE_FRACTION,
+        );
         if let BlurTolerance::Clinical { half_depth_d } = w.blur_tolerance {
-            self.number("wearer.blur_tolerance.half_depth_d", half_depth_d, &HALF_DEPTH);
+            self.number(
+                "wearer.blur_tolerance.half_depth_d",
+                half_depth_d,
+                &HALF_DEPTH,
+            );
         }
     }
 
@@ -193,7 +209,9 @@ impl Checker {
             }
         }
         self.number(&p("sideways_m"), t.sideways_m, &SIDEWAYS);
-        if t.sideways_m.is_finite() && t.distance_m.is_finite() && t.sideways_m.abs() >= t.distance_m
+        if t.sideways_m.is_finite()
+            && t.distance_m.is_finite()
+            && t.sideways_m.abs() >= t.distance_m
         {
             self.fail(
                 &p("sideways_m"),
@@ -225,7 +243,11 @@ impl Checker {
                 segment_top_mm,
             } => {
                 self.optional(&p("addition_d"), addition_d, &ADDITION);
-                self.optional(&p("intermediate_ratio"), intermediate_ratio, &INTERMEDIATE_RATIO);
+                self.optional(
+                    &p("intermediate_ratio"),
+                    intermediate_ratio,
+                    &INTERMEDIATE_RATIO,
+                );
                 self.optional(&p("segment_top_mm"), segment_top_mm, &SEGMENT_TOP);
             }
             FamilyChoice::Progressive {
@@ -233,7 +255,11 @@ impl Checker {
                 progression_length_mm,
             } => {
                 self.optional(&p("addition_d"), addition_d, &ADDITION);
-                self.optional(&p("progression_length_mm"), progression_length_mm, &PROGRESSION);
+                self.optional(
+                    &p("progression_length_mm"),
+                    progression_length_mm,
+                    &PROGRESSION,
+                );
             }
             FamilyChoice::Degressive {
                 near_addition_d,
@@ -277,7 +303,10 @@ pub fn validate(scenario: Scenario) -> Result<ValidScenario, Vec<FieldError>> {
     }
     let total_hours: f64 = scenario.tasks.iter().map(|t| t.hours_per_day).sum();
     if total_hours.is_finite() && total_hours > HOURS.max {
-        c.fail("tasks", format!("hours per day add up to {total_hours}, more than 24"));
+        c.fail(
+            "tasks",
+            format!("hours per day add up to {total_hours}, more than 24"),
+        );
     }
     if scenario.options.len() > MAX_OPTIONS {
         c.fail("options", format!("holds more than {MAX_OPTIONS} options"));
