@@ -2,5 +2,7 @@
 //! quantities, accommodation, vergence, depth of field, lens families and
 //! gaze geometry. Every formula of the product lives in one file here.
 
+pub mod astigmatism;
+pub mod gaze;
 pub mod lens;
 pub mod units;
