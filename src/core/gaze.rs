@@ -26,7 +26,7 @@ pub use posture::{ComfortRange, Posture, PostureOutcome, HEAD_PITCH_LIMIT_DEG};
 
 use crate::core::lens::{Bounds, LensError, LensPoint, VerticalExtent};
 use crate::core::units::{Degrees, Metres, Millimetres, PrismDioptres};
-use crate::scenario::{Task, VerticalPosition};
+use crate::scenario::{Correction, Task, VerticalPosition, Wearer};
 use nalgebra::{Point3, Rotation3, Vector3};
 
 /// The eye's centre of rotation behind the cornea, in millimetres: about
@@ -200,6 +200,30 @@ impl Fitting {
             params,
             right: frame(Eye::Right),
             left: frame(Eye::Left),
+        })
+    }
+
+    /// The fitting of a scenario's wearer: monocular PDs, vertex distance
+    /// (0 for contact lenses, for which the lens-plane model is only a rough
+    /// stand-in, since a contact lens moves with the eye), pantoscopic tilt and
+    /// the lens's extent, with the CoR [`COR_BEHIND_CORNEA_MM`] behind the
+    /// cornea and no face-form wrap (the scenario does not record one).
+    pub fn from_wearer(wearer: &Wearer) -> Result<Fitting, LensError> {
+        let vertex = match wearer.correction {
+            Correction::Spectacles { vertex_mm } => vertex_mm,
+            Correction::ContactLenses => 0.0,
+        };
+        Fitting::new(FittingParams {
+            pd_right: Millimetres(wearer.pd_right_mm),
+            pd_left: Millimetres(wearer.pd_left_mm),
+            vertex: Millimetres(vertex),
+            cor_behind_cornea: Millimetres(COR_BEHIND_CORNEA_MM),
+            pantoscopic_tilt: Degrees(wearer.pantoscopic_tilt_deg),
+            face_form: Degrees(0.0),
+            extent: VerticalExtent::from_frame(
+                Millimetres(wearer.fitting_height_mm),
+                Millimetres(wearer.lens_height_mm),
+            )?,
         })
     }
 

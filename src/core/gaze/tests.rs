@@ -301,3 +301,135 @@ fn a_task_far_to_the_side_misses_the_segment() {
         PostureOutcome::Found(_)
     ));
 }
+
+#[test]
+fn scenario_tasks_convert_to_positions() {
+    use crate::scenario::{Task, TaskFlags, VerticalPosition};
+    let t = Task {
+        name: "bench vice".to_string(),
+        distance_m: 0.5,
+        vertical: VerticalPosition::HeightFromEyes { metres: -0.3 },
+        sideways_m: 0.1,
+        width_m: 0.2,
+        detail_mm: 1.0,
+        hours_per_day: 2.0,
+        flags: TaskFlags::default(),
+    };
+    assert_eq!(
+        TaskPosition::of_task(&t),
+        task(0.5, TaskVertical::Height(Metres(-0.3)), 0.1)
+    );
+}
+
+#[test]
+fn a_scenario_wearer_gives_a_fitting() {
+    use crate::scenario::*;
+    let rx = Prescription {
+        sphere_d: 1.0,
+        cylinder_d: 0.0,
+        axis_deg: 0.0,
+    };
+    // Demo wearer (fictional values within the usual ranges).
+    let wearer = Wearer {
+        age_years: 55.0,
+        measured_amplitude: None,
+        right: rx,
+        left: rx,
+        prescribed_addition_d: Some(2.0),
+        correction: Correction::Spectacles { vertex_mm: 12.0 },
+        pd_right_mm: 31.5,
+        pd_left_mm: 32.5,
+        fitting_height_mm: 20.0,
+        lens_height_mm: 34.0,
+        pantoscopic_tilt_deg: 9.0,
+        pupil: PupilSource::Measured { diameter_mm: 4.0 },
+        usable_fraction: 0.5,
+        blur_tolerance: BlurTolerance::FromDetail,
+    };
+    let f = Fitting::from_wearer(&wearer).unwrap();
+    close(f.lens_to_cor().0, 25.5, 1e-12, "12 + 13.5 mm");
+    close(f.params().extent.top().0, 14.0, 1e-12, "34 - 20 mm");
+    let mut bad = wearer;
+    bad.fitting_height_mm = 40.0;
+    assert!(Fitting::from_wearer(&bad).is_err());
+}
+
+use proptest::prelude::*;
+
+fn any_fitting() -> impl Strategy<Value = Fitting> {
+    (
+        20.0..45.0f64,
+        20.0..45.0f64,
+        0.0..25.0f64,
+        -5.0..25.0f64,
+        0.0..30.0f64,
+    )
+        .prop_map(|(r, l, v, tilt, wrap)| {
+            Fitting::new(FittingParams {
+                pd_right: Millimetres(r),
+                pd_left: Millimetres(l),
+                vertex: Millimetres(v),
+                cor_behind_cornea: Millimetres(COR_BEHIND_CORNEA_MM),
+                pantoscopic_tilt: Degrees(tilt),
+                face_form: Degrees(wrap),
+                extent: VerticalExtent::from_frame(Millimetres(20.0), Millimetres(36.0)).unwrap(),
+            })
+            .unwrap()
+        })
+}
+
+fn any_task() -> impl Strategy<Value = TaskPosition> {
+    (-1.0..3.0f64, -80.0..80.0f64, -0.99..0.99f64).prop_map(|(log_d, angle, share)| {
+        let d = 10f64.powf(log_d);
+        task(d, TaskVertical::GazeAngle(Degrees(angle)), share * d)
+    })
+}
+
+fn finite_crossing(k: &LensCrossing) -> bool {
+    [
+        k.point.x.0,
+        k.point.y.0,
+        k.cor_to_lens.0,
+        k.elevation.0,
+        k.azimuth_nasal.0,
+    ]
+    .iter()
+    .all(|v| v.is_finite())
+}
+
+proptest! {
+    #[test]
+    fn crossings_are_finite_or_absent(
+        f in any_fitting(), t in any_task(), pitch in -45.0..45.0f64
+    ) {
+        if let Ok(point) = f.locate(&t) {
+            for eye in [Eye::Right, Eye::Left] {
+                if let Some(k) = f.crossing(eye, &point, Degrees(pitch)) {
+                    prop_assert!(finite_crossing(&k), "{k:?}");
+                    prop_assert!(k.cor_to_lens.0 > 0.0);
+                }
+            }
+        }
+    }
+
+    #[test]
+    fn postures_are_finite_and_within_limits(
+        f in any_fitting(), t in any_task(), wanted in 0.0..2.5f64
+    ) {
+        if let Ok(point) = f.locate(&t) {
+            let outcome = f
+                .posture_for(&progressive(), &point, Dioptres(wanted), Dioptres(0.25), ComfortRange::default())
+                .unwrap();
+            if let PostureOutcome::Found(p) | PostureOutcome::OutsideZoneSideways(p) = outcome {
+                prop_assert!(p.head_pitch.0.abs() <= HEAD_PITCH_LIMIT_DEG);
+                prop_assert!(finite_crossing(&p.right) && finite_crossing(&p.left));
+                prop_assert!(p.right_addition.0.is_finite() && p.left_addition.0.is_finite());
+                let comfort = ComfortRange::default();
+                for k in [p.right, p.left] {
+                    prop_assert!(k.elevation.0 >= comfort.lowest().0 - 1e-6);
+                    prop_assert!(k.elevation.0 <= comfort.highest().0 + 1e-6);
+                }
+            }
+        }
+    }
+}
