@@ -143,8 +143,9 @@ impl Fitting {
             highest_elevation: f64::MIN,
             lowest_elevation: f64::MAX,
         };
+        let target = task.pitched(Degrees(pitch));
         for eye in [Eye::Right, Eye::Left] {
-            let (y, elevation) = match self.crossing(eye, task, Degrees(pitch)) {
+            let (y, elevation) = match self.crossing_towards(eye, &target) {
                 Some(c) => (c.point.y.0, c.elevation.0),
                 None => {
                     // The sight line misses the plane only at extreme up or
