@@ -2,4 +2,13 @@
 //! quantities, accommodation, vergence, depth of field, lens families and
 //! gaze geometry. Every formula of the product lives in one file here.
 
+pub mod accommodation;
+pub mod clear_range;
+pub mod depth_of_field;
+pub mod error;
+pub mod lens;
+pub mod prescription;
+pub mod pupil;
+pub mod schematic_eye;
 pub mod units;
+pub mod vergence;

@@ -1,0 +1,346 @@
+//! What is usually made: the grids of additions, degressions, progression
+//! lengths and segment placements a planner iterates over when the user
+//! leaves a parameter open, and the translation of a saved lens option
+//! ([`FamilyChoice`]) into designs.
+
+use super::error::{Bounds, LensError};
+use super::limits::{
+    ADDITION, DEGRESSION, INTERMEDIATE_RATIO, NEAR_ADDITION, PROGRESSION_LENGTH, SEGMENT_TOP,
+    UPPER_BOTTOM,
+};
+use super::progressive::DEFAULT_NEAR_INSET_MM;
+use super::trifocal::DEFAULT_BAND_HEIGHT_MM;
+use super::{
+    Bifocal, Degressive, DoubleSegment, Family, LensDesign, Progressive, SegmentShape,
+    SingleVision, Trifocal,
+};
+use crate::core::units::{Dioptres, Millimetres};
+use crate::scenario::FamilyChoice;
+
+/// Evenly spaced values from `first` to `last` inclusive, `step` apart, in
+/// the unit of the parameter it belongs to (stated on each grid).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Grid {
+    /// The smallest value.
+    pub first: f64,
+    /// The largest value.
+    pub last: f64,
+    /// The spacing between values.
+    pub step: f64,
+}
+
+impl Grid {
+    /// Number of values on the grid.
+    pub fn len(&self) -> usize {
+        ((self.last - self.first) / self.step).round() as usize + 1
+    }
+
+    /// Whether the grid holds no value (never for the grids defined here).
+    pub fn is_empty(&self) -> bool {
+        self.len() == 0
+    }
+
+    /// The `i`-th value, or `None` past the end.
+    pub fn get(&self, i: usize) -> Option<f64> {
+        (i < self.len()).then_some(self.first + i as f64 * self.step)
+    }
+
+    /// All values, smallest first, without allocating.
+    pub fn iter(&self) -> impl Iterator<Item = f64> + '_ {
+        (0..self.len()).map(move |i| self.first + i as f64 * self.step)
+    }
+}
+
+/// Additions of multifocal lenses as made, in dioptres: +0.75 to +3.50 D in
+/// 0.25 D steps (common practice).
+pub const ADDITION_GRID: Grid = Grid {
+    first: 0.75,
+    last: 3.5,
+    step: 0.25,
+};
+
+/// Additions of single-vision task lenses, in dioptres: 0 (distance) to +3.50 D
+/// in 0.25 D steps (common practice).
+pub const SINGLE_VISION_ADDITION_GRID: Grid = Grid {
+    first: 0.0,
+    last: 3.5,
+    step: 0.25,
+};
+
+/// Degressions of occupational lenses as made, in dioptres: 0.50 to 2.00 D
+/// in 0.25 D steps (common practice).
+pub const DEGRESSION_GRID: Grid = Grid {
+    first: 0.5,
+    last: 2.0,
+    step: 0.25,
+};
+
+/// Progression lengths of progressive lenses, in millimetres: short designs
+/// from about 11 mm to long ones of about 20 mm, in 1 mm steps (common practice).
+pub const PROGRESSION_LENGTH_GRID: Grid = Grid {
+    first: 11.0,
+    last: 20.0,
+    step: 1.0,
+};
+
+/// Segment top heights tried for bifocals, trifocals and the lower segment of
+/// double-segment lenses, in millimetres from the fitting point: from 8 mm
+/// below to level with it, in 1 mm steps. Segment tops are usually fitted at
+/// the lower lid margin, a few millimetres below the pupil centre (common practice).
+pub const SEGMENT_TOP_GRID: Grid = Grid {
+    first: -8.0,
+    last: 0.0,
+    step: 1.0,
+};
+
+/// Heights of the upper segment's bottom edge tried for double-segment
+/// lenses, in millimetres above the fitting point (a fitting choice; common practice).
+pub const UPPER_BOTTOM_GRID: Grid = Grid {
+    first: 6.0,
+    last: 16.0,
+    step: 2.0,
+};
+
+/// Trifocal intermediate ratios tried: 0.5 is conventional, higher shares
+/// are also made (from memory).
+pub const INTERMEDIATE_RATIO_GRID: Grid = Grid {
+    first: 0.5,
+    last: 0.7,
+    step: 0.1,
+};
+
+/// One parameter of a family: fixed by the user or left to a grid.
+#[derive(Debug, Clone, Copy)]
+struct Axis {
+    fixed: Option<f64>,
+    grid: Grid,
+    /// The allowed range; `None` for an axis the family does not use.
+    bounds: Option<Bounds>,
+}
+
+impl Axis {
+    fn len(&self) -> usize {
+        if self.fixed.is_some() {
+            1
+        } else {
+            self.grid.len()
+        }
+    }
+
+    fn get(&self, i: usize) -> f64 {
+        match self.fixed {
+            Some(v) => v,
+            None => self.grid.first + i as f64 * self.grid.step,
+        }
+    }
+}
+
+/// A grid of one value, used to fill the unused axes of two-parameter families.
+const UNUSED: Axis = Axis {
+    fixed: Some(0.0),
+    grid: Grid {
+        first: 0.0,
+        last: 0.0,
+        step: 1.0,
+    },
+    bounds: None,
+};
+
+fn axis(fixed: Option<f64>, grid: Grid, bounds: Bounds) -> Axis {
+    Axis {
+        fixed,
+        grid,
+        bounds: Some(bounds),
+    }
+}
+
+/// The family and the three parameter axes a lens option describes.
+fn axes_of(choice: &FamilyChoice) -> (Family, [Axis; 3]) {
+    match *choice {
+        FamilyChoice::SingleVision { addition_d } => (
+            Family::SingleVision,
+            [
+                axis(addition_d, SINGLE_VISION_ADDITION_GRID, ADDITION),
+                UNUSED,
+                UNUSED,
+            ],
+        ),
+        FamilyChoice::Bifocal {
+            addition_d,
+            segment_top_mm,
+        } => (
+            Family::Bifocal,
+            [
+                axis(addition_d, ADDITION_GRID, ADDITION),
+                axis(segment_top_mm, SEGMENT_TOP_GRID, SEGMENT_TOP),
+                UNUSED,
+            ],
+        ),
+        FamilyChoice::Trifocal {
+            addition_d,
+            intermediate_ratio,
+            segment_top_mm,
+        } => (
+            Family::Trifocal,
+            [
+                axis(addition_d, ADDITION_GRID, ADDITION),
+                axis(
+                    intermediate_ratio,
+                    INTERMEDIATE_RATIO_GRID,
+                    INTERMEDIATE_RATIO,
+                ),
+                axis(segment_top_mm, SEGMENT_TOP_GRID, SEGMENT_TOP),
+            ],
+        ),
+        FamilyChoice::Progressive {
+            addition_d,
+            progression_length_mm,
+        } => (
+            Family::Progressive,
+            [
+                axis(addition_d, ADDITION_GRID, ADDITION),
+                axis(
+                    progression_length_mm,
+                    PROGRESSION_LENGTH_GRID,
+                    PROGRESSION_LENGTH,
+                ),
+                UNUSED,
+            ],
+        ),
+        FamilyChoice::Degressive {
+            near_addition_d,
+            degression_d,
+        } => (
+            Family::Degressive,
+            [
+                axis(near_addition_d, ADDITION_GRID, NEAR_ADDITION),
+                axis(degression_d, DEGRESSION_GRID, DEGRESSION),
+                UNUSED,
+            ],
+        ),
+        FamilyChoice::DoubleSegment {
+            addition_d,
+            lower_top_mm,
+            upper_bottom_mm,
+        } => (
+            Family::DoubleSegment,
+            [
+                axis(addition_d, ADDITION_GRID, ADDITION),
+                axis(lower_top_mm, SEGMENT_TOP_GRID, SEGMENT_TOP),
+                axis(upper_bottom_mm, UPPER_BOTTOM_GRID, UPPER_BOTTOM),
+            ],
+        ),
+    }
+}
+
+/// Builds a design of `family` from its parameter values, with the defaults
+/// this product uses for what a lens option does not say (a 28 mm
+/// straight-top segment, a 7 mm trifocal band, a 2.5 mm near inset).
+fn build(family: Family, v: [f64; 3]) -> Result<LensDesign, LensError> {
+    let shape = SegmentShape::STRAIGHT_TOP_28;
+    Ok(match family {
+        Family::SingleVision => LensDesign::SingleVision(SingleVision::new(Dioptres(v[0]))?),
+        Family::Bifocal => {
+            LensDesign::Bifocal(Bifocal::new(Dioptres(v[0]), Millimetres(v[1]), shape)?)
+        }
+        Family::Trifocal => LensDesign::Trifocal(Trifocal::new(
+            Dioptres(v[0]),
+            v[1],
+            Millimetres(v[2]),
+            Millimetres(DEFAULT_BAND_HEIGHT_MM),
+            shape,
+        )?),
+        Family::Progressive => LensDesign::Progressive(Progressive::new(
+            Dioptres(v[0]),
+            Millimetres(v[1]),
+            Millimetres(DEFAULT_NEAR_INSET_MM),
+        )?),
+        Family::Degressive => {
+            LensDesign::Degressive(Degressive::new(Dioptres(v[0]), Dioptres(v[1]))?)
+        }
+        Family::DoubleSegment => LensDesign::DoubleSegment(DoubleSegment::new(
+            Dioptres(v[0]),
+            Millimetres(v[1]),
+            Millimetres(v[2]),
+            shape,
+        )?),
+    })
+}
+
+pub(super) fn design_from_choice(choice: &FamilyChoice) -> Result<LensDesign, LensError> {
+    let (family, axes) = axes_of(choice);
+    let mut values = [0.0; 3];
+    for (value, a) in values.iter_mut().zip(axes.iter()) {
+        *value = match (a.fixed, a.bounds) {
+            (Some(v), _) => v,
+            (None, Some(b)) => {
+                return Err(LensError::MissingParameter {
+                    parameter: b.parameter,
+                })
+            }
+            (None, None) => 0.0,
+        };
+    }
+    build(family, values)
+}
+
+/// Every manufactured design a lens option allows: the user's fixed
+/// parameters combined with the grid of each open one. Combinations the
+/// family forbids (a degression larger than the near addition) are skipped.
+/// Iterating allocates nothing.
+#[derive(Debug, Clone)]
+pub struct Candidates {
+    family: Family,
+    axes: [Axis; 3],
+    next: usize,
+    total: usize,
+}
+
+impl Candidates {
+    /// The candidates of `choice`; an error when a fixed parameter is out of
+    /// range, or when every parameter is fixed and the design is invalid.
+    pub fn new(choice: &FamilyChoice) -> Result<Candidates, LensError> {
+        let (family, axes) = axes_of(choice);
+        for a in &axes {
+            if let (Some(v), Some(b)) = (a.fixed, a.bounds) {
+                b.check(v)?;
+            }
+        }
+        if axes.iter().all(|a| a.fixed.is_some()) {
+            design_from_choice(choice)?;
+        }
+        let total = axes.iter().map(Axis::len).product();
+        Ok(Candidates {
+            family,
+            axes,
+            next: 0,
+            total,
+        })
+    }
+
+    /// The number of parameter combinations (an upper bound on the designs yielded).
+    pub fn combinations(&self) -> usize {
+        self.total
+    }
+}
+
+impl Iterator for Candidates {
+    type Item = LensDesign;
+
+    fn next(&mut self) -> Option<LensDesign> {
+        while self.next < self.total {
+            let mut rest = self.next;
+            self.next += 1;
+            let mut values = [0.0; 3];
+            for (value, a) in values.iter_mut().zip(self.axes.iter()) {
+                let n = a.len();
+                *value = a.get(rest % n);
+                rest /= n;
+            }
+            if let Ok(design) = build(self.family, values) {
+                return Some(design);
+            }
+        }
+        None
+    }
+}

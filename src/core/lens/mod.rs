@@ -1,0 +1,391 @@
+//! Lens families as maps from a point on the lens to a local addition and a
+//! named zone, with the inverse question "where on the lens is this
+//! addition?". Every design is a small `Copy` value built from checked
+//! parameters, so a planner can evaluate it in a hot loop without allocating.
+//!
+//! Lens coordinates: millimetres from the fitting point, `x` positive
+//! **nasal** (towards the nose, for either eye, so one design serves both
+//! lenses) and `y` positive **up**. The fitting point lies on the line of
+//! sight in the primary position.
+//!
+//! The additions are those of the models documented in each family's file;
+//! the mean addition is modelled as constant along each horizontal line of a
+//! zone, and the lateral limit that unwanted astigmatism sets on progressive
+//! and degressive corridors is computed by [`crate::core::astigmatism`].
+
+mod bifocal;
+mod catalogue;
+mod degressive;
+mod double_segment;
+mod error;
+mod limits;
+mod progressive;
+mod ramp;
+mod segment;
+mod single_vision;
+mod trifocal;
+
+#[cfg(test)]
+mod tests;
+
+pub use bifocal::Bifocal;
+pub use catalogue::{
+    Candidates, Grid, ADDITION_GRID, DEGRESSION_GRID, INTERMEDIATE_RATIO_GRID,
+    PROGRESSION_LENGTH_GRID, SEGMENT_TOP_GRID, SINGLE_VISION_ADDITION_GRID, UPPER_BOTTOM_GRID,
+};
+pub use degressive::{Degressive, DEGRESSION_HEIGHT_MM, NEAR_REFERENCE_MM};
+pub use double_segment::DoubleSegment;
+pub use error::LensError;
+pub use progressive::{Progressive, DEFAULT_NEAR_INSET_MM, PROGRESSION_START_MM};
+pub use ramp::{PowerGradient, Ramp};
+pub use segment::SegmentShape;
+pub use single_vision::SingleVision;
+pub use trifocal::{Trifocal, DEFAULT_BAND_HEIGHT_MM, DEFAULT_INTERMEDIATE_RATIO};
+
+use crate::core::units::{Dioptres, Millimetres};
+use crate::scenario::FamilyChoice;
+
+/// A point on the lens, in millimetres from the fitting point: `x` nasal
+/// positive, `y` up positive.
+#[derive(Debug, Clone, Copy, PartialEq, Default)]
+pub struct LensPoint {
+    /// Horizontal position, millimetres, positive towards the nose.
+    pub x: Millimetres,
+    /// Vertical position, millimetres, positive upwards.
+    pub y: Millimetres,
+}
+
+impl LensPoint {
+    /// The point `x` mm nasal and `y` mm above the fitting point.
+    pub fn new(x: f64, y: f64) -> LensPoint {
+        LensPoint {
+            x: Millimetres(x),
+            y: Millimetres(y),
+        }
+    }
+}
+
+/// The named region of a lens a point belongs to.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+pub enum Zone {
+    /// One power over the whole lens (single vision).
+    SingleVision,
+    /// The distance portion: no addition.
+    Distance,
+    /// A trifocal's intermediate band, or the upper zone of a degressive lens.
+    Intermediate,
+    /// The near segment or near portion: the full addition.
+    Near,
+    /// The corridor of a progressive lens, or the degression zone of a
+    /// degressive lens, where the addition changes with height.
+    Progression,
+    /// The upper segment of a double-segment lens, for work overhead.
+    UpperSegment,
+}
+
+/// What a design gives at one lens point.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct LensSample {
+    /// The local addition over the distance power, in dioptres.
+    pub addition: Dioptres,
+    /// The zone the point belongs to.
+    pub zone: Zone,
+}
+
+/// The lens families the product models.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+pub enum Family {
+    /// One power everywhere.
+    SingleVision,
+    /// A near segment below a distance portion.
+    Bifocal,
+    /// An intermediate band above a near segment.
+    Trifocal,
+    /// A progressive-power lens.
+    Progressive,
+    /// A degressive-power (occupational) lens.
+    Degressive,
+    /// A near segment below and an add segment at the top.
+    DoubleSegment,
+}
+
+/// The vertical extent of the lens in the frame, in millimetres from the
+/// fitting point: the bottom is below it (negative), the top above it.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct VerticalExtent {
+    bottom: f64,
+    top: f64,
+}
+
+impl VerticalExtent {
+    /// The extent of a lens of height `lens_height` whose fitting point is
+    /// `fitting_height` above its lowest point (both in millimetres).
+    pub fn from_frame(
+        fitting_height: Millimetres,
+        lens_height: Millimetres,
+    ) -> Result<VerticalExtent, LensError> {
+        let lens_height = error::Bounds {
+            parameter: "lens height",
+            min: 15.0,
+            max: 70.0,
+            unit: "mm",
+        }
+        .check(lens_height.0)?;
+        let fitting_height = error::Bounds {
+            parameter: "fitting height",
+            min: 1.0,
+            max: lens_height - 1.0,
+            unit: "mm",
+        }
+        .check(fitting_height.0)?;
+        Ok(VerticalExtent {
+            bottom: -fitting_height,
+            top: lens_height - fitting_height,
+        })
+    }
+
+    /// Lowest lens height, in millimetres from the fitting point (negative).
+    pub fn bottom(&self) -> Millimetres {
+        Millimetres(self.bottom)
+    }
+
+    /// Highest lens height, in millimetres from the fitting point (positive).
+    pub fn top(&self) -> Millimetres {
+        Millimetres(self.top)
+    }
+
+    /// Whether the height `y` (millimetres from the fitting point) lies on the lens.
+    pub fn contains(&self, y: Millimetres) -> bool {
+        y.0 >= self.bottom && y.0 <= self.top
+    }
+}
+
+/// A range of lens heights over which a design gives an addition, in
+/// millimetres from the fitting point.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct HeightBand {
+    /// Lowest height of the band.
+    pub bottom: Millimetres,
+    /// Highest height of the band.
+    pub top: Millimetres,
+    /// The zone the band lies in.
+    pub zone: Zone,
+}
+
+impl HeightBand {
+    pub(crate) fn new(bottom: Millimetres, top: Millimetres, zone: Zone) -> HeightBand {
+        HeightBand { bottom, top, zone }
+    }
+}
+
+/// Up to five height bands, held inline so no allocation is needed. Five is
+/// the most any family yields: a double-segment lens has its distance
+/// portion below, between and above its two segments, and with a zero
+/// addition its segments match as well.
+#[derive(Debug, Clone, Copy, PartialEq, Default)]
+pub struct HeightBands {
+    items: [Option<HeightBand>; 5],
+}
+
+impl HeightBands {
+    /// Adds `band` cut to the lens extent; drops it when nothing is left.
+    pub(crate) fn push_clipped(&mut self, band: HeightBand, extent: VerticalExtent) {
+        let bottom = band.bottom.0.max(extent.bottom);
+        let top = band.top.0.min(extent.top);
+        if bottom > top {
+            return;
+        }
+        if let Some(slot) = self.items.iter_mut().find(|s| s.is_none()) {
+            *slot = Some(HeightBand::new(
+                Millimetres(bottom),
+                Millimetres(top),
+                band.zone,
+            ));
+        }
+    }
+
+    /// The bands, from the first found.
+    pub fn iter(&self) -> impl Iterator<Item = &HeightBand> {
+        self.items.iter().flatten()
+    }
+
+    /// Whether no part of the lens gives the addition.
+    pub fn is_empty(&self) -> bool {
+        self.items.iter().all(Option::is_none)
+    }
+}
+
+/// One lens design with checked parameters: any of the families.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum LensDesign {
+    /// One power everywhere.
+    SingleVision(SingleVision),
+    /// A near segment below a distance portion.
+    Bifocal(Bifocal),
+    /// An intermediate band above a near segment.
+    Trifocal(Trifocal),
+    /// A progressive-power lens.
+    Progressive(Progressive),
+    /// A degressive-power (occupational) lens.
+    Degressive(Degressive),
+    /// A near segment below and an add segment at the top.
+    DoubleSegment(DoubleSegment),
+}
+
+impl LensDesign {
+    /// The family of this design.
+    pub fn family(&self) -> Family {
+        match self {
+            LensDesign::SingleVision(_) => Family::SingleVision,
+            LensDesign::Bifocal(_) => Family::Bifocal,
+            LensDesign::Trifocal(_) => Family::Trifocal,
+            LensDesign::Progressive(_) => Family::Progressive,
+            LensDesign::Degressive(_) => Family::Degressive,
+            LensDesign::DoubleSegment(_) => Family::DoubleSegment,
+        }
+    }
+
+    /// The local addition (dioptres) and the zone at a lens point.
+    pub fn evaluate(&self, point: LensPoint) -> LensSample {
+        match self {
+            LensDesign::SingleVision(d) => d.evaluate(point),
+            LensDesign::Bifocal(d) => d.evaluate(point),
+            LensDesign::Trifocal(d) => d.evaluate(point),
+            LensDesign::Progressive(d) => d.evaluate(point),
+            LensDesign::Degressive(d) => d.evaluate(point),
+            LensDesign::DoubleSegment(d) => d.evaluate(point),
+        }
+    }
+
+    /// The local addition at a lens point, in dioptres.
+    pub fn addition_at(&self, point: LensPoint) -> Dioptres {
+        self.evaluate(point).addition
+    }
+
+    /// The largest addition anywhere on the lens, in dioptres.
+    pub fn max_addition(&self) -> Dioptres {
+        match self {
+            LensDesign::SingleVision(d) => d.max_addition(),
+            LensDesign::Bifocal(d) => d.addition(),
+            LensDesign::Trifocal(d) => d.addition(),
+            LensDesign::Progressive(d) => d.addition(),
+            LensDesign::Degressive(d) => d.near_addition(),
+            LensDesign::DoubleSegment(d) => d.addition(),
+        }
+    }
+
+    /// The power ramp of a progressive or degressive corridor; `None` for the
+    /// families whose zones have constant power.
+    pub fn ramp(&self) -> Option<&Ramp> {
+        match self {
+            LensDesign::Progressive(d) => Some(d.ramp()),
+            LensDesign::Degressive(d) => Some(d.ramp()),
+            _ => None,
+        }
+    }
+
+    /// The horizontal position of the corridor centre line at height `y`,
+    /// in millimetres (nasal positive): it moves nasally with the progress of
+    /// the ramp, reaching the near inset at the near reference point. `None`
+    /// for families without a corridor.
+    pub fn corridor_x(&self, y: Millimetres) -> Option<Millimetres> {
+        match self {
+            LensDesign::Progressive(d) => Some(d.corridor_x(y)),
+            LensDesign::Degressive(d) => Some(d.corridor_x(y)),
+            _ => None,
+        }
+    }
+
+    /// The point on the corridor centre line where a progressive or
+    /// degressive design delivers exactly `wanted` (the inverse of its
+    /// profile); `None` when the addition lies outside the corridor's range
+    /// or the design has no corridor.
+    pub fn corridor_point_for(&self, wanted: Dioptres) -> Option<LensPoint> {
+        let ramp = self.ramp()?;
+        let y = ramp.height_for(wanted)?;
+        let x = self.corridor_x(y)?;
+        Some(LensPoint { x, y })
+    }
+
+    /// The bands of lens height where the design delivers an addition within
+    /// `tolerance` dioptres of `wanted`, cut to the lens `extent`. For the
+    /// corridor families the band follows the inverse of the profile; for
+    /// segment families it is the segment's (or the distance portion's)
+    /// height range. Empty when the lens has no such addition.
+    pub fn bands_for_addition(
+        &self,
+        wanted: Dioptres,
+        tolerance: Dioptres,
+        extent: VerticalExtent,
+    ) -> HeightBands {
+        if !wanted.0.is_finite() || !tolerance.0.is_finite() || tolerance.0 < 0.0 {
+            return HeightBands::default();
+        }
+        let (w, t) = (wanted.0, tolerance.0);
+        match self {
+            LensDesign::SingleVision(d) => d.bands_for(w, t, extent),
+            LensDesign::Bifocal(d) => d.bands_for(w, t, extent),
+            LensDesign::Trifocal(d) => d.bands_for(w, t, extent),
+            LensDesign::Progressive(d) => ramp_bands(d.ramp(), w, t, extent, Zone::Distance),
+            LensDesign::Degressive(d) => ramp_bands(d.ramp(), w, t, extent, Zone::Intermediate),
+            LensDesign::DoubleSegment(d) => d.bands_for(w, t, extent),
+        }
+    }
+
+    /// The design a lens option describes when every parameter is fixed;
+    /// [`LensError::MissingParameter`] when one is left to the planner (use
+    /// [`Candidates`] to iterate over the manufactured choices instead).
+    pub fn from_choice(choice: &FamilyChoice) -> Result<LensDesign, LensError> {
+        catalogue::design_from_choice(choice)
+    }
+}
+
+/// The height band over which a ramp's addition lies within `tolerance` of
+/// `wanted`. Both corridor families carry more addition lower down, so the
+/// band's bottom is where the ramp reaches `wanted + tolerance` (or the lens
+/// bottom when the near zone itself is within tolerance) and its top where it
+/// reaches `wanted - tolerance` (or the lens top). `above` names the zone
+/// over the ramp.
+fn ramp_bands(
+    ramp: &Ramp,
+    wanted: f64,
+    tolerance: f64,
+    extent: VerticalExtent,
+    above: Zone,
+) -> HeightBands {
+    let mut bands = HeightBands::default();
+    let (least, most) = ramp.value_range();
+    let low = (wanted - tolerance).max(least);
+    let high = (wanted + tolerance).min(most);
+    if low > high {
+        return bands;
+    }
+    let bottom = if high >= most {
+        extent.bottom()
+    } else {
+        ramp.height_for(Dioptres(high)).unwrap_or(extent.bottom())
+    };
+    let top = if low <= least {
+        extent.top()
+    } else {
+        ramp.height_for(Dioptres(low)).unwrap_or(extent.top())
+    };
+    let centre = ramp
+        .height_for(Dioptres(wanted.clamp(least, most)))
+        .unwrap_or(bottom);
+    let zone = corridor_zone(ramp, centre, above);
+    bands.push_clipped(HeightBand::new(bottom, top, zone), extent);
+    bands
+}
+
+/// The zone of a height on a corridor lens: `above` over the ramp, near below
+/// it, progression inside it.
+pub(crate) fn corridor_zone(ramp: &Ramp, y: Millimetres, above: Zone) -> Zone {
+    if y.0 >= ramp.top().0 {
+        above
+    } else if y.0 <= ramp.bottom().0 {
+        Zone::Near
+    } else {
+        Zone::Progression
+    }
+}
