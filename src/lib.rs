@@ -5,6 +5,7 @@
 pub mod chart;
 pub mod core;
 pub mod display;
+pub mod plan;
 pub mod scenario;
 #[cfg(feature = "web")]
 pub mod web;
