@@ -27,6 +27,9 @@ pub struct Plan {
     pub refraction: RefractionUsed,
     /// The pupil diameter the depth of field used and where it came from.
     pub pupil: PupilUsed,
+    /// Half depth of field used for the zone ranges, in dioptres: the
+    /// clinical tolerance, or with the detail rule the strictest task's.
+    pub zone_half_depth: Dioptres,
     /// What the plan knows about each task independently of any lens, in input order.
     pub tasks: Vec<TaskContext>,
     /// The lens options, best first.
@@ -282,7 +285,8 @@ pub struct Score {
     pub blurred_hours: f64,
     /// Deduction for head posture (chin lift or drop, head turn), in weighted hours.
     pub posture_penalty: f64,
-    /// Deduction for addition beyond what the tasks need, in weighted hours.
+    /// Deduction for the design's addition (so that, of designs serving the
+    /// tasks equally, the one with least addition wins), in weighted hours.
     pub addition_penalty: f64,
 }
 
@@ -509,6 +513,11 @@ pub struct ResidualBlur {
     pub direction: DefocusDirection,
     /// Defocus beyond the task's depth-of-field allowance, in dioptres (0 when in focus).
     pub beyond_tolerance: Dioptres,
+    /// Power missing for comfort (using only the usable share of the
+    /// amplitude), in dioptres: positive when this much more plus would make
+    /// the task comfortable, negative when this much less plus would, 0 when
+    /// it is comfortable.
+    pub short_of_comfort: Dioptres,
     /// Geometric blur-disc diameter, in minutes of arc.
     pub blur_disc_arcmin: f64,
     /// Approximate loss of visual acuity, in logMAR (0.1 is one chart line),
@@ -787,12 +796,13 @@ impl fmt::Display for SpectaclePower {
         if self.cylinder.0.abs() < 0.005 {
             write!(f, "{sphere} DS")
         } else {
-            write!(
-                f,
-                "{sphere} / {} x {:.0}",
-                signed(self.cylinder),
+            // Prescriptions write a horizontal axis as 180, not 0 (common practice).
+            let axis = if self.axis.0.round() == 0.0 {
+                180.0
+            } else {
                 self.axis.0
-            )
+            };
+            write!(f, "{sphere} / {} x {axis:.0}", signed(self.cylinder))
         }
     }
 }
