@@ -3,9 +3,11 @@
 //! gaze geometry. Every formula of the product lives in one file here.
 
 pub mod accommodation;
+pub mod astigmatism;
 pub mod clear_range;
 pub mod depth_of_field;
 pub mod error;
+pub mod gaze;
 pub mod lens;
 pub mod prescription;
 pub mod pupil;

@@ -11,7 +11,6 @@
 //! differ by 1 D or more a caution says so.
 
 use super::error::PlanError;
-use super::gaze_bridge::{self, Fitting, TaskPlace, COR_BEHIND_CORNEA_MM, NOMINAL_VERTEX_MM};
 use super::outcome::{
     AgeModelName, AmplitudeSource, AmplitudeUsed, HalfDepthBasis, PupilOrigin, PupilUsed,
     RefractionBasis, RefractionUsed, TaskContext, TaskRef, Verdict,
@@ -19,6 +18,9 @@ use super::outcome::{
 use crate::core::accommodation::{ocular_from_spectacle, AgeModel, UsableShare};
 use crate::core::clear_range::Viewer;
 use crate::core::depth_of_field::{self, task_half_depth, DEFAULT_BLUR_TO_DETAIL};
+use crate::core::gaze::{
+    subtended_angle, Eye, Fitting, FittingParams, TaskPosition, COR_BEHIND_CORNEA_MM,
+};
 use crate::core::lens::VerticalExtent;
 use crate::core::prescription::SpheroCylinder;
 use crate::core::pupil::{watson_yellott, AdaptedEyes, Luminance, WATSON_YELLOTT_AGES};
@@ -29,6 +31,14 @@ use crate::scenario::{
     ValidScenario,
 };
 
+/// Vertex distance assumed for the lens geometry of contact-lens wearers,
+/// whose options are then spectacles worn over the contact lenses, in
+/// millimetres (common practice: 12 to 14 mm for spectacles).
+pub const NOMINAL_VERTEX_MM: f64 = 12.0;
+/// Astigmatism tolerated at the edge of a usable corridor, in dioptres
+/// (the 0.50 D contour is the usual boundary of usable zones of progressive
+/// lenses; common practice).
+pub const TOLERATED_ASTIGMATISM_D: f64 = 0.5;
 /// Largest chin lift the planner offers, in degrees (a product choice: a
 /// sustained lift beyond about 25 degrees strains the neck; common practice).
 pub const MAX_CHIN_UP_DEG: i32 = 25;
@@ -207,13 +217,16 @@ impl Context {
             Millimetres(w.lens_height_mm),
         )
         .map_err(PlanError::lens("wearer.fitting_height_mm"))?;
-        let fitting = Fitting {
-            c_mm: geometry_vertex_mm + COR_BEHIND_CORNEA_MM,
-            tilt_rad: w.pantoscopic_tilt_deg.to_radians(),
-            pd_right_mm: w.pd_right_mm,
-            pd_left_mm: w.pd_left_mm,
+        let fitting = Fitting::new(FittingParams {
+            pd_right: Millimetres(w.pd_right_mm),
+            pd_left: Millimetres(w.pd_left_mm),
+            vertex: Millimetres(geometry_vertex_mm),
+            cor_behind_cornea: Millimetres(COR_BEHIND_CORNEA_MM),
+            pantoscopic_tilt: Degrees(w.pantoscopic_tilt_deg),
+            face_form: Degrees(0.0),
             extent,
-        };
+        })
+        .map_err(PlanError::lens("wearer"))?;
 
         let tolerance = match w.blur_tolerance {
             BlurTolerance::Clinical { half_depth_d } => {
@@ -238,9 +251,7 @@ impl Context {
                 Metres(t.distance_m),
             )
             .map_err(PlanError::optics(field.clone()))?;
-            let prep = prepare_task(t, &viewer, mean, half_depth, &fitting)
-                .map_err(PlanError::optics(field))?;
-            let place = fitting.place(t);
+            let (prep, elevation) = prepare_task(t, &viewer, mean, half_depth, &fitting, &field)?;
             contexts.push(TaskContext {
                 task: TaskRef {
                     index: i,
@@ -248,7 +259,7 @@ impl Context {
                 },
                 distance: Metres(t.distance_m),
                 hours_per_day: t.hours_per_day,
-                gaze_elevation: fitting.elevation(&place),
+                gaze_elevation: elevation,
                 half_depth,
                 half_depth_basis: basis,
                 width_angle: Degrees(prep.width_deg),
@@ -404,44 +415,53 @@ fn addition_band(viewer: &Viewer, l: f64, distance_power: f64, lo_acc: f64, hi_a
     }
 }
 
+/// A task's solver data and its upright gaze elevation (degrees).
 fn prepare_task(
     t: &Task,
     viewer: &Viewer,
     distance_power: Dioptres,
     half_depth: Dioptres,
     fitting: &Fitting,
-) -> Result<TaskPrep, crate::core::error::OpticsError> {
-    let l = object_vergence(Metres(t.distance_m))?.0;
+    field: &str,
+) -> Result<(TaskPrep, Degrees), PlanError> {
+    let l = object_vergence(Metres(t.distance_m))
+        .map_err(PlanError::optics(field))?
+        .0;
     let dof = half_depth.0;
     let amp = viewer.amplitude().0;
     let usable = viewer.usable().of(viewer.amplitude()).0;
     let f = distance_power.0;
-    let place: TaskPlace = fitting.place(t);
+    let point = fitting
+        .locate(&TaskPosition::of_task(t))
+        .map_err(PlanError::lens(field))?;
     let mut heights = [0.0; PITCH_SAMPLES];
     for (i, h) in heights.iter_mut().enumerate() {
         let pitch = Degrees(i as f64 - MAX_CHIN_DOWN_DEG as f64);
-        *h = match fitting.crossing(&place, pitch) {
-            Some(c) => c.y,
+        *h = match fitting.crossing(Eye::Right, &point, pitch) {
+            Some(c) => c.point.y.0,
             // A line of sight beside the lens plane only happens at extreme
             // gaze; keep the heights ordered with a far-off value.
             None if i < MAX_CHIN_DOWN_DEG as usize => OFF_LENS_MM,
             None => -OFF_LENS_MM,
         };
     }
-    let upright = fitting.crossing(&place, Degrees(0.0));
-    let cor_to_lens = upright.map_or(fitting.c_mm, |c| c.cor_to_lens);
-    Ok(TaskPrep {
+    let c = fitting.lens_to_cor().0;
+    let upright = fitting.crossing(Eye::Right, &point, Degrees(0.0));
+    let width = subtended_angle(
+        Millimetres(t.width_m * 1000.0),
+        Millimetres(t.distance_m * 1000.0 + c),
+    )
+    .map_err(PlanError::lens(field))?;
+    let prep = TaskPrep {
         hours: t.hours_per_day,
         distance: Metres(t.distance_m),
         half_depth,
         comfort: addition_band(viewer, l, f, -dof, usable + dof),
         focus: addition_band(viewer, l, f, -dof, amp + dof),
-        x: upright.map_or(0.0, |c| c.x),
+        x: upright.map_or(0.0, |c| c.point.x.0),
         heights,
-        cor_to_lens,
-        width_deg: gaze_bridge::subtended_deg(
-            t.width_m * 1000.0,
-            t.distance_m * 1000.0 + fitting.c_mm,
-        ),
-    })
+        cor_to_lens: upright.map_or(c, |c| c.cor_to_lens.0),
+        width_deg: width.0,
+    };
+    Ok((prep, upright.map_or(Degrees(0.0), |c| c.elevation)))
 }

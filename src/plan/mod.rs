@@ -15,7 +15,6 @@ pub mod acuity;
 pub mod cautions;
 pub mod context;
 pub mod error;
-mod gaze_bridge;
 pub mod objective;
 pub mod outcome;
 pub mod report;
@@ -170,7 +169,7 @@ fn order_summary(s: &crate::scenario::Scenario, ctx: &Context, best: &OptionPlan
         fitting_height: Millimetres(w.fitting_height_mm),
         pd_right: Millimetres(w.pd_right_mm),
         pd_left: Millimetres(w.pd_left_mm),
-        near_pd: nearest.map(|d| ctx.fitting.near_pd(d.to_mm().0)),
+        near_pd: nearest.and_then(|d| ctx.fitting.near_pd(d).ok()),
         vertex: match w.correction {
             Correction::Spectacles { vertex_mm } => Some(Millimetres(vertex_mm)),
             Correction::ContactLenses => None,

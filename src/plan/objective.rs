@@ -16,11 +16,12 @@
 //! Nothing here allocates: the solver calls [`assess`] for every task of
 //! every candidate design.
 
-use super::context::TaskPrep;
-use super::gaze_bridge::{subtended_deg, usable_width};
+use super::context::{TaskPrep, TOLERATED_ASTIGMATISM_D};
 use super::outcome::{Score, Verdict};
+use crate::core::astigmatism::{usable_width, ZoneWidth};
 use crate::core::lens::{LensDesign, LensPoint, VerticalExtent};
 use crate::core::units::Dioptres;
+use crate::core::units::Millimetres;
 
 /// Weight of an hour in focus but tiring, relative to a comfortable hour.
 pub const TIRING_WEIGHT: f64 = 0.5;
@@ -66,13 +67,27 @@ fn verdict_weight(v: Verdict) -> f64 {
     }
 }
 
+/// The angle in degrees the usable zone spans at lens height `y` (mm) seen
+/// from `cor_to_lens` mm behind the lens; `None` when the design does not
+/// limit the width there.
+pub fn zone_angle(design: &LensDesign, y: f64, cor_to_lens: f64) -> Option<f64> {
+    match usable_width(
+        design,
+        Millimetres(y),
+        Dioptres(TOLERATED_ASTIGMATISM_D),
+        Millimetres(cor_to_lens),
+    ) {
+        Ok(ZoneWidth::Limited { field_angle, .. }) => Some(field_angle.0),
+        Ok(ZoneWidth::Unlimited) | Err(_) => None,
+    }
+}
+
 /// The task seen at lens height `y` with head pitch `pitch`.
 fn at(design: &LensDesign, prep: &TaskPrep, y: f64, pitch: f64) -> TaskChoice {
     let addition = design.addition_at(LensPoint::new(prep.x, y)).0;
     let verdict = prep.verdict(addition);
-    let turn = usable_width(design, y).map_or(0.0, |w| {
-        (prep.width_deg - subtended_deg(w, prep.cor_to_lens)).max(0.0)
-    });
+    let turn = zone_angle(design, y, prep.cor_to_lens)
+        .map_or(0.0, |zone| (prep.width_deg - zone).max(0.0));
     let value = prep.hours
         * (verdict_weight(verdict)
             - POSTURE_WEIGHT_PER_DEG * pitch.abs()

@@ -7,16 +7,16 @@
 use super::acuity::{acuity_loss_logmar, blur_disc_arcmin};
 use super::context::Context;
 use super::error::PlanError;
-use super::gaze_bridge::{subtended_deg, usable_width, vertical_imbalance};
-use super::objective::TaskChoice;
+use super::objective::{zone_angle, TaskChoice};
 use super::outcome::{
     Centration, ClearRange, DefocusDirection, FarEnd, FieldFit, HeadPosture, LensPointMm,
     LocalPower, ResidualBlur, SpectaclePower, TaskPlan, ZoneKind, ZoneRangePlan,
 };
 use crate::core::clear_range::{evaluate_task, range_of_clear_vision, FarLimit, ZoneRange};
+use crate::core::gaze::{vertical_imbalance, Eye};
 use crate::core::lens::{LensDesign, LensPoint, Zone};
 use crate::core::prescription::SpheroCylinder;
-use crate::core::units::{Degrees, Dioptres, Millimetres};
+use crate::core::units::{Degrees, Dioptres, Millimetres, PrismDioptres};
 
 /// Residuals smaller than this, in dioptres, are rounding, not defocus.
 const NEGLIGIBLE_D: f64 = 1e-9;
@@ -133,9 +133,33 @@ pub fn task_plan(
     let comfort_residual = focus.residual_for_comfort.0;
     let blur_disc =
         blur_disc_arcmin(Dioptres(defocus), ctx.pupil).map_err(PlanError::optics(field.clone()))?;
-    let distance_mm = prep.distance.to_mm().0;
-    let near_pd = ctx.fitting.near_pd(distance_mm);
-    let pd = Millimetres(ctx.fitting.pd_right_mm + ctx.fitting.pd_left_mm);
+    let gaze = |e| PlanError::lens(field.clone())(e);
+    let near_pd = ctx.fitting.near_pd(prep.distance).map_err(gaze)?;
+    let convergence = ctx
+        .fitting
+        .convergence_demand(Eye::Right, prep.distance)
+        .map_err(gaze)?
+        + ctx
+            .fitting
+            .convergence_demand(Eye::Left, prep.distance)
+            .map_err(gaze)?;
+    let inset = ctx
+        .fitting
+        .near_inset(Eye::Right, prep.distance)
+        .map_err(gaze)?
+        + ctx
+            .fitting
+            .near_inset(Eye::Left, prep.distance)
+            .map_err(gaze)?;
+    // Both lines of sight are taken at the right eye's height; the optical
+    // centres at the fitting points.
+    let imbalance = vertical_imbalance(
+        Millimetres(choice.y),
+        ctx.right.vertical_power(),
+        Millimetres(choice.y),
+        ctx.left.vertical_power(),
+    )
+    .map_err(gaze)?;
     Ok(TaskPlan {
         task: tc.task.clone(),
         lens_point: LensPointMm {
@@ -169,20 +193,15 @@ pub fn task_plan(
             reachable: !choice.out_of_reach,
         },
         field: FieldFit {
-            zone_angle: usable_width(design, choice.y)
-                .map(|w| Degrees(subtended_deg(w, prep.cor_to_lens))),
+            zone_angle: zone_angle(design, choice.y, prep.cor_to_lens).map(Degrees),
             task_angle: Degrees(prep.width_deg),
             head_turn: Degrees(choice.turn),
         },
         near_vision: Centration {
             near_pd,
-            inset_per_eye: (pd - near_pd) * 0.5,
-            convergence: ctx.fitting.convergence(distance_mm),
-            vertical_imbalance: vertical_imbalance(
-                choice.y,
-                ctx.right.vertical_power().0,
-                ctx.left.vertical_power().0,
-            ),
+            inset_per_eye: inset * 0.5,
+            convergence,
+            vertical_imbalance: PrismDioptres(imbalance.difference.0.abs()),
         },
     })
 }

@@ -35,6 +35,7 @@ pub use catalogue::{
 };
 pub use degressive::{Degressive, DEGRESSION_HEIGHT_MM, NEAR_REFERENCE_MM};
 pub use double_segment::DoubleSegment;
+pub(crate) use error::Bounds;
 pub use error::LensError;
 pub use progressive::{Progressive, DEFAULT_NEAR_INSET_MM, PROGRESSION_START_MM};
 pub use ramp::{PowerGradient, Ramp};

@@ -1,0 +1,123 @@
+//! Prism at a lens point by Prentice's rule, the vertical imbalance between
+//! the eyes at the reading level, and the angles a zone and a task span from
+//! the eye, with the head turn needed when the task is wider than the zone.
+
+use crate::core::lens::{Bounds, LensError};
+use crate::core::units::{Degrees, Dioptres, Millimetres, PrismDioptres};
+
+const DECENTRATION: Bounds = Bounds {
+    parameter: "decentration",
+    min: -80.0,
+    max: 80.0,
+    unit: "mm",
+};
+
+const POWER: Bounds = Bounds {
+    parameter: "lens power in the meridian",
+    min: -40.0,
+    max: 40.0,
+    unit: "D",
+};
+
+/// Prentice's rule: the prism (prism dioptres) at `decentration` millimetres
+/// from the optical centre of a lens of `power` dioptres in that meridian,
+/// `P = c (cm) x F`. The sign is the product of the two signs; the base
+/// direction is given by [`vertical_prism`] and [`horizontal_prism`].
+///
+/// ```
+/// use clearspan::core::gaze::prentice;
+/// use clearspan::core::units::{Dioptres, Millimetres};
+/// // 4 mm = 0.4 cm from the centre of a +5.00 D lens: 0.4 x 5 = 2 prism dioptres.
+/// let p = prentice(Millimetres(4.0), Dioptres(5.0)).unwrap();
+/// assert!((p.0 - 2.0).abs() < 1e-12);
+/// ```
+pub fn prentice(decentration: Millimetres, power: Dioptres) -> Result<PrismDioptres, LensError> {
+    let c_cm = DECENTRATION.check(decentration.0)? / 10.0;
+    Ok(PrismDioptres(c_cm * POWER.check(power.0)?))
+}
+
+/// The vertical prism at a point `below_or_above` millimetres above (positive)
+/// or below the optical centre, for `vertical_power` dioptres in the vertical
+/// meridian; base up positive. Below the centre of a plus lens the base is up
+/// (a plus lens acts as prisms base to base).
+pub fn vertical_prism(
+    below_or_above: Millimetres,
+    vertical_power: Dioptres,
+) -> Result<PrismDioptres, LensError> {
+    Ok(-prentice(below_or_above, vertical_power)?)
+}
+
+/// The horizontal prism at a point `nasal` millimetres towards the nose
+/// (positive) or the temple from the optical centre, for `horizontal_power`
+/// dioptres in the horizontal meridian; base in (towards the nose) positive.
+pub fn horizontal_prism(
+    nasal: Millimetres,
+    horizontal_power: Dioptres,
+) -> Result<PrismDioptres, LensError> {
+    Ok(-prentice(nasal, horizontal_power)?)
+}
+
+/// The vertical prism before each eye and their difference at the reading level.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct VerticalImbalance {
+    /// Vertical prism before the right eye, base up positive.
+    pub right: PrismDioptres,
+    /// Vertical prism before the left eye, base up positive.
+    pub left: PrismDioptres,
+    /// Right minus left: positive when the right eye has the more base-up prism.
+    pub difference: PrismDioptres,
+}
+
+/// The vertical imbalance when the right and left lines of sight cross their
+/// lenses `right_y` and `left_y` millimetres from the optical centres
+/// (negative below), with `right_power` and `left_power` dioptres in the
+/// vertical meridians (Prentice's rule for each eye).
+pub fn vertical_imbalance(
+    right_y: Millimetres,
+    right_power: Dioptres,
+    left_y: Millimetres,
+    left_power: Dioptres,
+) -> Result<VerticalImbalance, LensError> {
+    let right = vertical_prism(right_y, right_power)?;
+    let left = vertical_prism(left_y, left_power)?;
+    Ok(VerticalImbalance {
+        right,
+        left,
+        difference: right - left,
+    })
+}
+
+/// The angle (degrees) a width spans seen from `distance` away, `2 atan(W / 2d)`:
+/// a zone `width` on the lens seen from the CoR, or a task seen from the eye.
+///
+/// ```
+/// use clearspan::core::gaze::subtended_angle;
+/// use clearspan::core::units::Millimetres;
+/// // A 600 mm wide monitor at 600 mm: 2 atan(0.5) = 53.130 degrees.
+/// let a = subtended_angle(Millimetres(600.0), Millimetres(600.0)).unwrap();
+/// assert!((a.0 - 53.130).abs() < 1e-3);
+/// ```
+pub fn subtended_angle(width: Millimetres, distance: Millimetres) -> Result<Degrees, LensError> {
+    let w = Bounds {
+        parameter: "width",
+        min: 0.0,
+        max: 1.0e6,
+        unit: "mm",
+    }
+    .check(width.0)?;
+    let d = Bounds {
+        parameter: "viewing distance",
+        min: 1.0,
+        max: 1.0e7,
+        unit: "mm",
+    }
+    .check(distance.0)?;
+    Ok(Degrees::from_radians(2.0 * (w / (2.0 * d)).atan()))
+}
+
+/// How far (degrees) the head must turn to each side to bring the edges of a
+/// task spanning `task_angle` into a zone spanning `zone_angle` (both seen
+/// from the eye): half the excess, zero when the zone is wide enough.
+pub fn head_turn_per_side(task_angle: Degrees, zone_angle: Degrees) -> Degrees {
+    Degrees((0.5 * (task_angle.0 - zone_angle.0)).max(0.0))
+}
