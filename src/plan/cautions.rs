@@ -42,7 +42,7 @@ fn names(tasks: &[TaskRef]) -> String {
 }
 
 /// Whether an option's design is occupational or biased to near, so not for driving.
-fn near_biased(design: &FamilyChoice) -> bool {
+pub fn near_biased(design: &FamilyChoice) -> bool {
     match design {
         FamilyChoice::Degressive { .. } => true,
         FamilyChoice::SingleVision { addition_d } => addition_d.is_some_and(|a| a > 0.0),

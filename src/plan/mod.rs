@@ -8,7 +8,8 @@
 //! Steps: [`context`] works out everything independent of the lenses once;
 //! [`solver`] chooses each option's open parameters on the manufactured
 //! grids by the objective in [`objective`]; [`report`] writes out each
-//! option; the options are ranked by their objective; [`cautions`] adds the
+//! option; the options are ranked by their objective (designs not fit for
+//! driving last when the day includes driving); [`cautions`] adds the
 //! warnings; [`text`] renders the plan for the command line.
 
 pub mod acuity;
@@ -73,10 +74,15 @@ pub fn plan(scenario: &ValidScenario) -> Result<Plan, PlanError> {
             tasks,
         });
     }
+    // Ranking: by the objective, except that when the day includes driving
+    // an occupational or near-biased design never ranks above one that is
+    // fit for driving, however well it scores on the other tasks.
+    let drives = s.tasks.iter().any(|t| t.flags.driving);
+    let unfit = |o: &OptionPlan| drives && cautions::near_biased(&o.design);
     options.sort_by(|a, b| {
-        b.score
-            .total
-            .total_cmp(&a.score.total)
+        unfit(a)
+            .cmp(&unfit(b))
+            .then(b.score.total.total_cmp(&a.score.total))
             .then(a.option.index.cmp(&b.option.index))
     });
     for (r, o) in options.iter_mut().enumerate() {

@@ -151,15 +151,12 @@ pub fn task_plan(
             .fitting
             .near_inset(Eye::Left, prep.distance)
             .map_err(gaze)?;
-    // Both lines of sight are taken at the right eye's height; the optical
-    // centres at the fitting points.
-    let imbalance = vertical_imbalance(
-        Millimetres(choice.y),
-        ctx.right.vertical_power(),
-        Millimetres(choice.y),
-        ctx.left.vertical_power(),
-    )
-    .map_err(gaze)?;
+    // Both lines of sight are taken at the right eye's height, the optical
+    // centres at the fitting points; a line of sight beyond the lens's edge
+    // meets no prism, so the height is limited to the lens.
+    let y = Millimetres(choice.y.clamp(ctx.extent.bottom().0, ctx.extent.top().0));
+    let imbalance = vertical_imbalance(y, ctx.right.vertical_power(), y, ctx.left.vertical_power())
+        .map_err(gaze)?;
     Ok(TaskPlan {
         task: tc.task.clone(),
         lens_point: LensPointMm {

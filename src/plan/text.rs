@@ -180,7 +180,12 @@ pub fn render(plan: &Plan) -> String {
         );
         let _ = writeln!(out, "   R {}   L {}", o.right, o.left);
         if let Some(a) = o.addition {
-            let _ = writeln!(out, "   addition {a}");
+            let name = if o.degression.is_some() {
+                "near addition"
+            } else {
+                "addition"
+            };
+            let _ = writeln!(out, "   {name} {a}");
         }
         if let Some(d) = o.degression {
             let _ = writeln!(out, "   degression {d}");
