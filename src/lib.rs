@@ -6,6 +6,7 @@ pub mod chart;
 pub mod core;
 pub mod display;
 pub mod library;
+pub mod plan;
 pub mod scenario;
 #[cfg(feature = "web")]
 pub mod web;

@@ -1,0 +1,467 @@
+//! Everything the planner works out once per scenario, before any lens is
+//! tried: the corrected eye and its amplitude, the pupil, the fitting
+//! geometry, and per task its half depth of field, the band of local
+//! additions that makes it comfortable or in focus, and the lens height the
+//! right eye's line of sight crosses at each head pitch. The solver's inner
+//! loop then only compares numbers.
+//!
+//! **Refraction basis.** Vergence uses the mean of both eyes' spherical
+//! equivalents: accommodation is yoked (both eyes accommodate by the same
+//! amount), so one accommodative demand must serve both eyes; where the eyes
+//! differ by 1 D or more a caution says so.
+
+use super::error::PlanError;
+use super::outcome::{
+    AgeModelName, AmplitudeSource, AmplitudeUsed, HalfDepthBasis, PupilOrigin, PupilUsed,
+    RefractionBasis, RefractionUsed, TaskContext, TaskRef, Verdict,
+};
+use crate::core::accommodation::{ocular_from_spectacle, AgeModel, UsableShare};
+use crate::core::clear_range::Viewer;
+use crate::core::depth_of_field::{self, task_half_depth, DEFAULT_BLUR_TO_DETAIL};
+use crate::core::gaze::{
+    subtended_angle, Eye, Fitting, FittingParams, TaskPosition, COR_BEHIND_CORNEA_MM,
+};
+use crate::core::lens::VerticalExtent;
+use crate::core::prescription::SpheroCylinder;
+use crate::core::pupil::{watson_yellott, AdaptedEyes, Luminance, WATSON_YELLOTT_AGES};
+use crate::core::units::{Degrees, Dioptres, Metres, Millimetres};
+use crate::core::vergence::{object_vergence, CorrectedEye};
+use crate::scenario::{
+    BlurTolerance, Correction, Prescription, PupilSource, ReferencePlane, Scenario, Task,
+    ValidScenario,
+};
+
+/// Vertex distance assumed for the lens geometry of contact-lens wearers,
+/// whose options are then spectacles worn over the contact lenses, in
+/// millimetres (common practice: 12 to 14 mm for spectacles).
+pub const NOMINAL_VERTEX_MM: f64 = 12.0;
+/// Astigmatism tolerated at the edge of a usable corridor, in dioptres
+/// (the 0.50 D contour is the usual boundary of usable zones of progressive
+/// lenses; common practice).
+pub const TOLERATED_ASTIGMATISM_D: f64 = 0.5;
+/// Largest chin lift the planner offers, in degrees (a product choice: a
+/// sustained lift beyond about 25 degrees strains the neck; common practice).
+pub const MAX_CHIN_UP_DEG: i32 = 25;
+/// Largest chin drop the planner offers, in degrees (a product choice).
+pub const MAX_CHIN_DOWN_DEG: i32 = 20;
+/// Number of head pitches sampled, one per degree from chin down to chin up.
+pub const PITCH_SAMPLES: usize = (MAX_CHIN_UP_DEG + MAX_CHIN_DOWN_DEG + 1) as usize;
+/// Adapting field assumed for the pupil formula, in degrees: a lit room
+/// seen through spectacles fills most of the visual field (a product choice).
+pub const ADAPTING_FIELD_DEG: f64 = 60.0;
+/// Half depth of field used for the zone ranges when no task says
+/// otherwise, in dioptres (±0.25 D, the strict clinical tolerance; common practice).
+pub const DEFAULT_ZONE_HALF_DEPTH_D: f64 = 0.25;
+/// Addition bands are kept within ±20 D so they stay finite when a criterion
+/// has no limit on one side.
+const BAND_LIMIT_D: f64 = 20.0;
+/// Slack when comparing an addition with a band edge, in dioptres, so that a
+/// grid value that lands on an edge counts as inside.
+const EDGE_SLACK_D: f64 = 1e-9;
+/// A lens height standing for "the line of sight misses the lens plane".
+const OFF_LENS_MM: f64 = 1.0e6;
+
+/// A range of local additions, in dioptres, `lo ≤ add ≤ hi`.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Band {
+    /// Smallest addition in the band.
+    pub lo: f64,
+    /// Largest addition in the band.
+    pub hi: f64,
+}
+
+impl Band {
+    /// Whether `add` lies in the band (with a tiny slack at the edges).
+    pub fn contains(&self, add: f64) -> bool {
+        add >= self.lo - EDGE_SLACK_D && add <= self.hi + EDGE_SLACK_D
+    }
+
+    /// Whether the band holds any addition.
+    pub fn is_empty(&self) -> bool {
+        self.lo > self.hi
+    }
+}
+
+/// One task prepared for the solver.
+#[derive(Debug, Clone, PartialEq)]
+pub struct TaskPrep {
+    /// Hours per day.
+    pub hours: f64,
+    /// Viewing distance from the spectacle plane.
+    pub distance: Metres,
+    /// Half depth of field allowed, in dioptres.
+    pub half_depth: Dioptres,
+    /// Local additions that make the task comfortable.
+    pub comfort: Band,
+    /// Local additions that bring the task into focus with the full amplitude.
+    pub focus: Band,
+    /// Lens x (nasal positive, mm) of the right eye's line of sight, head upright.
+    pub x: f64,
+    /// Lens height (mm) of the right eye's line of sight at each head pitch,
+    /// from `-MAX_CHIN_DOWN_DEG` to `MAX_CHIN_UP_DEG` in 1 degree steps;
+    /// falls as the chin rises.
+    pub heights: [f64; PITCH_SAMPLES],
+    /// Centre of rotation to the lens along the line of sight, head upright, in mm.
+    pub cor_to_lens: f64,
+    /// Angle the task's width spans at the eye, in degrees.
+    pub width_deg: f64,
+}
+
+impl TaskPrep {
+    /// Lens height with the head upright, in mm.
+    pub fn natural_y(&self) -> f64 {
+        self.heights[MAX_CHIN_DOWN_DEG as usize]
+    }
+
+    /// The verdict for a local addition `add` (dioptres).
+    pub fn verdict(&self, add: f64) -> Verdict {
+        if self.comfort.contains(add) {
+            Verdict::Comfortable
+        } else if self.focus.contains(add) {
+            Verdict::InFocusButTiring
+        } else {
+            Verdict::Blurred
+        }
+    }
+
+    /// The head pitch (degrees, chin up positive) at which the line of
+    /// sight crosses the lens at height `y`, interpolated between the
+    /// sampled degrees; `None` beyond the allowed pitches.
+    pub fn pitch_for(&self, y: f64) -> Option<f64> {
+        let h = &self.heights;
+        let first = -(MAX_CHIN_DOWN_DEG as f64);
+        h.windows(2).enumerate().find_map(|(i, w)| {
+            let (a, b) = (w[0], w[1]);
+            (y <= a && y >= b).then(|| {
+                let t = if a > b { (a - y) / (a - b) } else { 0.0 };
+                first + i as f64 + t
+            })
+        })
+    }
+}
+
+/// The wearer-level results and per-task preparation of one scenario.
+#[derive(Debug, Clone)]
+pub struct Context {
+    /// The corrected eye (mean spherical equivalent) with its amplitude.
+    pub viewer: Viewer,
+    /// The distance power used for vergence, in dioptres (mean spherical equivalent).
+    pub distance_power: Dioptres,
+    /// Right-eye prescription.
+    pub right: SpheroCylinder,
+    /// Left-eye prescription.
+    pub left: SpheroCylinder,
+    /// Pupil diameter.
+    pub pupil: Millimetres,
+    /// Fitting geometry.
+    pub fitting: Fitting,
+    /// The lens's extent in the frame.
+    pub extent: VerticalExtent,
+    /// What the plan reports about the amplitude.
+    pub amplitude: AmplitudeUsed,
+    /// What the plan reports about the refraction.
+    pub refraction: RefractionUsed,
+    /// What the plan reports about the pupil.
+    pub pupil_used: PupilUsed,
+    /// Half depth of field for the zone ranges, in dioptres.
+    pub zone_half_depth: Dioptres,
+    /// Per task, for the solver.
+    pub tasks: Vec<TaskPrep>,
+    /// Per task, for the report.
+    pub contexts: Vec<TaskContext>,
+    /// Inputs the models had to clamp: (model name, quantity, value, used).
+    pub clamped: Vec<(&'static str, &'static str, f64, f64)>,
+}
+
+fn rx(p: &Prescription, field: &str) -> Result<SpheroCylinder, PlanError> {
+    SpheroCylinder::new(
+        Dioptres(p.sphere_d),
+        Dioptres(p.cylinder_d),
+        Degrees(p.axis_deg),
+    )
+    .map_err(PlanError::optics(field))
+}
+
+impl Context {
+    /// Works out everything that does not depend on a lens option.
+    pub fn new(valid: &ValidScenario) -> Result<Context, PlanError> {
+        let s: &Scenario = valid.get();
+        let w = &s.wearer;
+        let right = rx(&w.right, "wearer.right")?;
+        let left = rx(&w.left, "wearer.left")?;
+        let mean = Dioptres(0.5 * (right.spherical_equivalent().0 + left.spherical_equivalent().0));
+        let (vertex_mm, geometry_vertex_mm) = match w.correction {
+            Correction::Spectacles { vertex_mm } => (vertex_mm, vertex_mm),
+            Correction::ContactLenses => (0.0, NOMINAL_VERTEX_MM),
+        };
+        let eye = CorrectedEye::new(mean, Millimetres(vertex_mm).to_m())
+            .map_err(PlanError::optics("wearer.correction"))?;
+        let mut clamped = Vec::new();
+
+        let (amplitude, ocular) = amplitude_of(w, &eye, &mut clamped)?;
+        let usable = UsableShare::new(w.usable_fraction)
+            .map_err(PlanError::optics("wearer.usable_fraction"))?;
+        let viewer = Viewer::new(eye, ocular, usable).map_err(PlanError::optics("wearer"))?;
+        let amplitude = AmplitudeUsed {
+            ocular,
+            usable_fraction: w.usable_fraction,
+            usable_ocular: usable.of(ocular),
+            ..amplitude
+        };
+
+        let pupil_used = pupil_of(w.pupil, w.age_years, &mut clamped)?;
+        let pupil = pupil_used.diameter;
+
+        let extent = VerticalExtent::from_frame(
+            Millimetres(w.fitting_height_mm),
+            Millimetres(w.lens_height_mm),
+        )
+        .map_err(PlanError::lens("wearer.fitting_height_mm"))?;
+        let fitting = Fitting::new(FittingParams {
+            pd_right: Millimetres(w.pd_right_mm),
+            pd_left: Millimetres(w.pd_left_mm),
+            vertex: Millimetres(geometry_vertex_mm),
+            cor_behind_cornea: Millimetres(COR_BEHIND_CORNEA_MM),
+            pantoscopic_tilt: Degrees(w.pantoscopic_tilt_deg),
+            face_form: Degrees(0.0),
+            extent,
+        })
+        .map_err(PlanError::lens("wearer"))?;
+
+        let tolerance = match w.blur_tolerance {
+            BlurTolerance::Clinical { half_depth_d } => {
+                depth_of_field::BlurTolerance::Clinical(Dioptres(half_depth_d))
+            }
+            BlurTolerance::FromDetail => depth_of_field::BlurTolerance::FromDetail {
+                ratio: DEFAULT_BLUR_TO_DETAIL,
+            },
+        };
+        let basis = match w.blur_tolerance {
+            BlurTolerance::Clinical { .. } => HalfDepthBasis::Clinical,
+            BlurTolerance::FromDetail => HalfDepthBasis::FromDetail,
+        };
+        let mut tasks = Vec::with_capacity(s.tasks.len());
+        let mut contexts = Vec::with_capacity(s.tasks.len());
+        for (i, t) in s.tasks.iter().enumerate() {
+            let field = format!("tasks[{i}]");
+            let half_depth = task_half_depth(
+                tolerance,
+                pupil,
+                Millimetres(t.detail_mm),
+                Metres(t.distance_m),
+            )
+            .map_err(PlanError::optics(field.clone()))?;
+            let (prep, elevation) = prepare_task(t, &viewer, mean, half_depth, &fitting, &field)?;
+            contexts.push(TaskContext {
+                task: TaskRef {
+                    index: i,
+                    name: t.name.clone(),
+                },
+                distance: Metres(t.distance_m),
+                hours_per_day: t.hours_per_day,
+                gaze_elevation: elevation,
+                half_depth,
+                half_depth_basis: basis,
+                width_angle: Degrees(prep.width_deg),
+            });
+            tasks.push(prep);
+        }
+        let zone_half_depth = match w.blur_tolerance {
+            BlurTolerance::Clinical { half_depth_d } => Dioptres(half_depth_d),
+            BlurTolerance::FromDetail => Dioptres(
+                tasks
+                    .iter()
+                    .map(|t| t.half_depth.0)
+                    .reduce(f64::min)
+                    .unwrap_or(DEFAULT_ZONE_HALF_DEPTH_D),
+            ),
+        };
+        let refraction = RefractionUsed {
+            right_equivalent: right.spherical_equivalent(),
+            left_equivalent: left.spherical_equivalent(),
+            used: mean,
+            basis: RefractionBasis::MeanOfBothEyes,
+            vertex: Millimetres(vertex_mm),
+        };
+        Ok(Context {
+            viewer,
+            distance_power: mean,
+            right,
+            left,
+            pupil,
+            fitting,
+            extent,
+            amplitude,
+            refraction,
+            pupil_used,
+            zone_half_depth,
+            tasks,
+            contexts,
+            clamped,
+        })
+    }
+}
+
+/// The amplitude as stated (measured, or Hofstetter's minimum for the age)
+/// and referred to the eye.
+fn amplitude_of(
+    w: &crate::scenario::Wearer,
+    eye: &CorrectedEye,
+    clamped: &mut Vec<(&'static str, &'static str, f64, f64)>,
+) -> Result<(AmplitudeUsed, Dioptres), PlanError> {
+    let (source, stated, plane) = match w.measured_amplitude {
+        Some(m) => (
+            AmplitudeSource::Measured { method: m.method },
+            Dioptres(m.dioptres),
+            m.plane,
+        ),
+        None => {
+            let model = AgeModel::HofstetterMinimum;
+            let (lo, hi) = model.supported_ages();
+            let age = w.age_years.clamp(lo, hi);
+            if age != w.age_years {
+                clamped.push((model.name(), "age", w.age_years, age));
+            }
+            let a = model
+                .amplitude(age)
+                .map_err(PlanError::optics("wearer.age_years"))?;
+            let plane = match model.plane() {
+                crate::core::accommodation::AmplitudePlane::Spectacle => ReferencePlane::Spectacle,
+                crate::core::accommodation::AmplitudePlane::Ocular => ReferencePlane::Ocular,
+            };
+            (
+                AmplitudeSource::AgeModel {
+                    model: AgeModelName::HofstetterMinimum,
+                    age_years: age,
+                },
+                a,
+                plane,
+            )
+        }
+    };
+    let ocular = match plane {
+        ReferencePlane::Spectacle => ocular_from_spectacle(eye, stated)
+            .map_err(PlanError::optics("wearer.measured_amplitude"))?,
+        ReferencePlane::Ocular => stated,
+    };
+    Ok((
+        AmplitudeUsed {
+            source,
+            stated,
+            stated_plane: plane,
+            ocular,
+            usable_fraction: w.usable_fraction,
+            usable_ocular: ocular,
+        },
+        ocular,
+    ))
+}
+
+/// The pupil: measured, or Watson & Yellott (2012) for the lighting and age.
+fn pupil_of(
+    source: PupilSource,
+    age_years: f64,
+    clamped: &mut Vec<(&'static str, &'static str, f64, f64)>,
+) -> Result<PupilUsed, PlanError> {
+    match source {
+        PupilSource::Measured { diameter_mm } => Ok(PupilUsed {
+            diameter: Millimetres(diameter_mm),
+            source: PupilOrigin::Measured,
+        }),
+        PupilSource::FromLighting { luminance_cd_m2 } => {
+            let (lo, hi) = WATSON_YELLOTT_AGES;
+            let age = age_years.clamp(lo, hi);
+            if age != age_years {
+                clamped.push(("Watson & Yellott 2012", "age", age_years, age));
+            }
+            let luminance = Luminance::cd_per_m2(luminance_cd_m2)
+                .map_err(PlanError::optics("wearer.pupil.luminance_cd_m2"))?;
+            let d = watson_yellott(
+                luminance,
+                Degrees(ADAPTING_FIELD_DEG),
+                age,
+                AdaptedEyes::Both,
+            )
+            .map_err(PlanError::optics("wearer.pupil"))?;
+            Ok(PupilUsed {
+                diameter: d,
+                source: PupilOrigin::WatsonYellott {
+                    luminance_cd_m2,
+                    field: Degrees(ADAPTING_FIELD_DEG),
+                    age_years: age,
+                },
+            })
+        }
+    }
+}
+
+/// The band of local additions (over `distance_power`) for which the
+/// accommodation a task at object vergence `l` needs lies within
+/// `[lo_acc, hi_acc]`. Accommodation falls as plus power rises, so the
+/// upper accommodation limit sets the smallest addition. Inverts
+/// [`CorrectedEye::accommodation_for_vergence`] through
+/// [`CorrectedEye::vergence_for_accommodation`].
+fn addition_band(viewer: &Viewer, l: f64, distance_power: f64, lo_acc: f64, hi_acc: f64) -> Band {
+    let power_for = |acc: f64, missing: f64| {
+        viewer
+            .eye()
+            .vergence_for_accommodation(Dioptres(acc), Dioptres(0.0))
+            .map_or(missing, |at_lens| at_lens.0 - l - distance_power)
+            .clamp(-BAND_LIMIT_D, BAND_LIMIT_D)
+    };
+    Band {
+        lo: power_for(hi_acc, -BAND_LIMIT_D),
+        hi: power_for(lo_acc, BAND_LIMIT_D),
+    }
+}
+
+/// A task's solver data and its upright gaze elevation (degrees).
+fn prepare_task(
+    t: &Task,
+    viewer: &Viewer,
+    distance_power: Dioptres,
+    half_depth: Dioptres,
+    fitting: &Fitting,
+    field: &str,
+) -> Result<(TaskPrep, Degrees), PlanError> {
+    let l = object_vergence(Metres(t.distance_m))
+        .map_err(PlanError::optics(field))?
+        .0;
+    let dof = half_depth.0;
+    let amp = viewer.amplitude().0;
+    let usable = viewer.usable().of(viewer.amplitude()).0;
+    let f = distance_power.0;
+    let point = fitting
+        .locate(&TaskPosition::of_task(t))
+        .map_err(PlanError::lens(field))?;
+    let mut heights = [0.0; PITCH_SAMPLES];
+    for (i, h) in heights.iter_mut().enumerate() {
+        let pitch = Degrees(i as f64 - MAX_CHIN_DOWN_DEG as f64);
+        *h = match fitting.crossing(Eye::Right, &point, pitch) {
+            Some(c) => c.point.y.0,
+            // A line of sight beside the lens plane only happens at extreme
+            // gaze; keep the heights ordered with a far-off value.
+            None if i < MAX_CHIN_DOWN_DEG as usize => OFF_LENS_MM,
+            None => -OFF_LENS_MM,
+        };
+    }
+    let c = fitting.lens_to_cor().0;
+    let upright = fitting.crossing(Eye::Right, &point, Degrees(0.0));
+    let width = subtended_angle(
+        Millimetres(t.width_m * 1000.0),
+        Millimetres(t.distance_m * 1000.0 + c),
+    )
+    .map_err(PlanError::lens(field))?;
+    let prep = TaskPrep {
+        hours: t.hours_per_day,
+        distance: Metres(t.distance_m),
+        half_depth,
+        comfort: addition_band(viewer, l, f, -dof, usable + dof),
+        focus: addition_band(viewer, l, f, -dof, amp + dof),
+        x: upright.map_or(0.0, |c| c.point.x.0),
+        heights,
+        cor_to_lens: upright.map_or(c, |c| c.cor_to_lens.0),
+        width_deg: width.0,
+    };
+    Ok((prep, upright.map_or(Degrees(0.0), |c| c.elevation)))
+}

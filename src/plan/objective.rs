@@ -1,0 +1,200 @@
+//! The solver's objective: how well one design serves the working day, in
+//! weighted hours. Each task is seen at the head posture that serves it best
+//! (upright when the upright lens point already suits it, else the smallest
+//! chin lift or drop that reaches a zone of the right power), and counts
+//!
+//! `hours x (1 if comfortable, TIRING_WEIGHT if in focus but tiring, 0 if blurred)
+//!  - hours x (POSTURE_WEIGHT_PER_DEG x |head pitch| + TURN_WEIGHT_PER_DEG x head turn)`.
+//!
+//! The design then loses `ADDITION_WEIGHT_PER_D` per dioptre of its largest
+//! addition, so that of two designs serving the tasks equally the one with
+//! less addition wins (more addition narrows every zone's range of clear
+//! vision and, on corridor lenses, brings more unwanted astigmatism).
+//! The weights are this product's choices; the penalties are small enough
+//! never to outweigh a change of verdict of a task of more than a few minutes.
+//!
+//! Nothing here allocates: the solver calls [`assess`] for every task of
+//! every candidate design.
+
+use super::context::{TaskPrep, TOLERATED_ASTIGMATISM_D};
+use super::outcome::{Score, Verdict};
+use crate::core::astigmatism::{usable_width, ZoneWidth};
+use crate::core::lens::{LensDesign, LensPoint, VerticalExtent};
+use crate::core::units::Dioptres;
+use crate::core::units::Millimetres;
+
+/// Weight of an hour in focus but tiring, relative to a comfortable hour.
+pub const TIRING_WEIGHT: f64 = 0.5;
+/// Deduction per degree of head pitch, in hours per hour of the task.
+pub const POSTURE_WEIGHT_PER_DEG: f64 = 0.01;
+/// Deduction per degree of head turn, in hours per hour of the task: less
+/// than for pitch, since the head turns only to reach the task's edges,
+/// while a pitch is held all the time the task is worked on.
+pub const TURN_WEIGHT_PER_DEG: f64 = 0.002;
+/// Deduction per dioptre of the design's largest addition, in hours.
+pub const ADDITION_WEIGHT_PER_D: f64 = 0.05;
+/// How far inside a zone's edge the line of sight is placed when the head
+/// moves to reach it, in millimetres (half a small pupil; a product choice).
+pub const ZONE_MARGIN_MM: f64 = 1.0;
+
+/// How one task is best seen through one design.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct TaskChoice {
+    /// Lens x, mm, nasal positive.
+    pub x: f64,
+    /// Lens y, mm, up positive.
+    pub y: f64,
+    /// Head pitch, degrees, chin up positive.
+    pub pitch: f64,
+    /// Local addition at the point, dioptres.
+    pub addition: f64,
+    /// The verdict there.
+    pub verdict: Verdict,
+    /// Total head turn needed to sweep the task, degrees.
+    pub turn: f64,
+    /// The task's contribution to the objective, weighted hours.
+    pub value: f64,
+    /// The lens carries a power that would make the task comfortable, but no
+    /// allowed head pitch brings the line of sight to it.
+    pub out_of_reach: bool,
+}
+
+fn verdict_weight(v: Verdict) -> f64 {
+    match v {
+        Verdict::Comfortable => 1.0,
+        Verdict::InFocusButTiring => TIRING_WEIGHT,
+        Verdict::Blurred => 0.0,
+    }
+}
+
+/// The angle in degrees the usable zone spans at lens height `y` (mm) seen
+/// from `cor_to_lens` mm behind the lens; `None` when the design does not
+/// limit the width there.
+pub fn zone_angle(design: &LensDesign, y: f64, cor_to_lens: f64) -> Option<f64> {
+    match usable_width(
+        design,
+        Millimetres(y),
+        Dioptres(TOLERATED_ASTIGMATISM_D),
+        Millimetres(cor_to_lens),
+    ) {
+        Ok(ZoneWidth::Limited { field_angle, .. }) => Some(field_angle.0),
+        Ok(ZoneWidth::Unlimited) | Err(_) => None,
+    }
+}
+
+/// The task seen at lens height `y` with head pitch `pitch`.
+fn at(design: &LensDesign, prep: &TaskPrep, y: f64, pitch: f64) -> TaskChoice {
+    let addition = design.addition_at(LensPoint::new(prep.x, y)).0;
+    let verdict = prep.verdict(addition);
+    let turn = zone_angle(design, y, prep.cor_to_lens)
+        .map_or(0.0, |zone| (prep.width_deg - zone).max(0.0));
+    let value = prep.hours
+        * (verdict_weight(verdict)
+            - POSTURE_WEIGHT_PER_DEG * pitch.abs()
+            - TURN_WEIGHT_PER_DEG * turn);
+    TaskChoice {
+        x: prep.x,
+        y,
+        pitch,
+        addition,
+        verdict,
+        turn,
+        value,
+        out_of_reach: false,
+    }
+}
+
+/// The best way to see one task through `design` within the frame `extent`.
+pub fn assess(design: &LensDesign, prep: &TaskPrep, extent: VerticalExtent) -> TaskChoice {
+    let y0 = prep.natural_y();
+    let mut best = at(design, prep, y0, 0.0);
+    if best.verdict == Verdict::Comfortable {
+        return best;
+    }
+    let mut comfort_on_lens = false;
+    let mut comfort_reached = false;
+    for (band, target) in [
+        (prep.comfort, Verdict::Comfortable),
+        (prep.focus, Verdict::InFocusButTiring),
+    ] {
+        if target <= best.verdict || band.is_empty() {
+            continue;
+        }
+        let wanted = Dioptres(0.5 * (band.lo + band.hi));
+        let tolerance = Dioptres(0.5 * (band.hi - band.lo));
+        let heights = design.bands_for_addition(wanted, tolerance, extent);
+        for h in heights.iter() {
+            if target == Verdict::Comfortable {
+                comfort_on_lens = true;
+            }
+            let (bottom, top) = (h.bottom.0 + ZONE_MARGIN_MM, h.top.0 - ZONE_MARGIN_MM);
+            let y = if bottom > top {
+                0.5 * (h.bottom.0 + h.top.0)
+            } else {
+                y0.clamp(bottom, top)
+            };
+            let Some(pitch) = prep.pitch_for(y) else {
+                continue;
+            };
+            let candidate = at(design, prep, y, pitch);
+            if candidate.verdict == Verdict::Comfortable {
+                comfort_reached = true;
+            }
+            if candidate.value > best.value {
+                best = candidate;
+            }
+        }
+    }
+    best.out_of_reach = comfort_on_lens && !comfort_reached;
+    best
+}
+
+/// The objective of `design` for `tasks`; when `choices` is given (as long
+/// as `tasks`), each task's choice is written into it.
+pub fn score(
+    design: &LensDesign,
+    tasks: &[TaskPrep],
+    extent: VerticalExtent,
+    mut choices: Option<&mut [TaskChoice]>,
+) -> Score {
+    let mut s = Score {
+        total: 0.0,
+        comfortable_hours: 0.0,
+        tiring_hours: 0.0,
+        blurred_hours: 0.0,
+        posture_penalty: 0.0,
+        addition_penalty: ADDITION_WEIGHT_PER_D * design.max_addition().0,
+    };
+    for (i, prep) in tasks.iter().enumerate() {
+        let c = assess(design, prep, extent);
+        match c.verdict {
+            Verdict::Comfortable => s.comfortable_hours += prep.hours,
+            Verdict::InFocusButTiring => s.tiring_hours += prep.hours,
+            Verdict::Blurred => s.blurred_hours += prep.hours,
+        }
+        s.posture_penalty +=
+            prep.hours * (POSTURE_WEIGHT_PER_DEG * c.pitch.abs() + TURN_WEIGHT_PER_DEG * c.turn);
+        s.total += c.value;
+        if let Some(slot) = choices.as_deref_mut().and_then(|cs| cs.get_mut(i)) {
+            *slot = c;
+        }
+    }
+    s.total -= s.addition_penalty;
+    s
+}
+
+impl Default for TaskChoice {
+    /// A placeholder before a task is assessed: upright, blurred, worth nothing.
+    fn default() -> TaskChoice {
+        TaskChoice {
+            x: 0.0,
+            y: 0.0,
+            pitch: 0.0,
+            addition: 0.0,
+            verdict: Verdict::Blurred,
+            turn: 0.0,
+            value: 0.0,
+            out_of_reach: false,
+        }
+    }
+}

@@ -1,0 +1,204 @@
+//! Turns a solved design into the plan's per-option report: every task's
+//! lens point, zone, local power as a prescription, accommodation and share
+//! of the amplitude (from the optics core's task evaluation), verdict,
+//! residual blur and acuity loss, range of clear vision at that point, head
+//! posture, field and centration; and the ranges of the design's zones.
+
+use super::acuity::{acuity_loss_logmar, blur_disc_arcmin};
+use super::context::Context;
+use super::error::PlanError;
+use super::objective::{zone_angle, TaskChoice};
+use super::outcome::{
+    Centration, ClearRange, DefocusDirection, FarEnd, FieldFit, HeadPosture, LensPointMm,
+    LocalPower, ResidualBlur, SpectaclePower, TaskPlan, ZoneKind, ZoneRangePlan,
+};
+use crate::core::clear_range::{evaluate_task, range_of_clear_vision, FarLimit, ZoneRange};
+use crate::core::gaze::{vertical_imbalance, Eye};
+use crate::core::lens::{LensDesign, LensPoint, Zone};
+use crate::core::prescription::SpheroCylinder;
+use crate::core::units::{Degrees, Dioptres, Millimetres, PrismDioptres};
+
+/// Residuals smaller than this, in dioptres, are rounding, not defocus.
+const NEGLIGIBLE_D: f64 = 1e-9;
+
+/// The report's name for a lens zone.
+pub fn zone_kind(zone: Zone) -> ZoneKind {
+    match zone {
+        Zone::SingleVision => ZoneKind::SingleVision,
+        Zone::Distance => ZoneKind::Distance,
+        Zone::Intermediate => ZoneKind::Intermediate,
+        Zone::Near => ZoneKind::Near,
+        Zone::Progression => ZoneKind::Progression,
+        Zone::UpperSegment => ZoneKind::UpperSegment,
+    }
+}
+
+/// The zones of constant power of a design, with their additions.
+pub fn fixed_zones(design: &LensDesign) -> Vec<(ZoneKind, Dioptres)> {
+    let near = design.max_addition();
+    match design {
+        LensDesign::SingleVision(d) => vec![(ZoneKind::SingleVision, d.addition())],
+        LensDesign::Bifocal(_) | LensDesign::Progressive(_) => {
+            vec![(ZoneKind::Distance, Dioptres(0.0)), (ZoneKind::Near, near)]
+        }
+        LensDesign::Trifocal(t) => vec![
+            (ZoneKind::Distance, Dioptres(0.0)),
+            (ZoneKind::Intermediate, t.intermediate_addition()),
+            (ZoneKind::Near, near),
+        ],
+        LensDesign::Degressive(d) => vec![
+            (ZoneKind::Intermediate, d.upper_addition()),
+            (ZoneKind::Near, near),
+        ],
+        LensDesign::DoubleSegment(_) => vec![
+            (ZoneKind::Distance, Dioptres(0.0)),
+            (ZoneKind::Near, near),
+            (ZoneKind::UpperSegment, near),
+        ],
+    }
+}
+
+fn clear(range: ZoneRange) -> ClearRange {
+    match range {
+        ZoneRange::Clear { near, far } => ClearRange::Clear {
+            near,
+            far: match far {
+                FarLimit::Finite(m) => FarEnd::Finite(m),
+                FarLimit::Infinite => FarEnd::Infinite,
+            },
+        },
+        ZoneRange::NeedsMorePlus => ClearRange::NeedsMorePlus,
+        ZoneRange::NeedsLessPlus => ClearRange::NeedsLessPlus,
+    }
+}
+
+/// The ranges of clear vision of a zone of addition `addition` with half depth `dof`.
+pub fn zone_range(
+    ctx: &Context,
+    zone: ZoneKind,
+    addition: Dioptres,
+    dof: Dioptres,
+) -> Result<ZoneRangePlan, PlanError> {
+    let r = range_of_clear_vision(&ctx.viewer, ctx.distance_power + addition, dof)
+        .map_err(PlanError::optics("zone range"))?;
+    Ok(ZoneRangePlan {
+        zone,
+        addition,
+        in_focus: clear(r.in_focus),
+        comfortable: clear(r.comfortable),
+    })
+}
+
+/// A prescription with `addition` added to its sphere.
+pub fn with_addition(rx: &SpheroCylinder, addition: Dioptres) -> SpectaclePower {
+    SpectaclePower {
+        sphere: rx.sphere() + addition,
+        cylinder: rx.cylinder(),
+        axis: rx.axis(),
+    }
+}
+
+/// The report of task `i` seen as `choice` through `design`.
+pub fn task_plan(
+    ctx: &Context,
+    design: &LensDesign,
+    i: usize,
+    choice: &TaskChoice,
+) -> Result<TaskPlan, PlanError> {
+    let (Some(prep), Some(tc)) = (ctx.tasks.get(i), ctx.contexts.get(i)) else {
+        return Err(PlanError::Optics {
+            context: format!("tasks[{i}]"),
+            error: crate::core::error::OpticsError::Incompatible {
+                problem: "the task list changed while planning",
+                remedy: "plan again",
+            },
+        });
+    };
+    let field = format!("tasks[{i}]");
+    let sample = design.evaluate(LensPoint::new(choice.x, choice.y));
+    let add = sample.addition;
+    let power = ctx.distance_power + add;
+    let focus = evaluate_task(&ctx.viewer, prep.distance, power, prep.half_depth)
+        .map_err(PlanError::optics(field.clone()))?;
+    let a = focus.accommodation.0;
+    let amp = ctx.viewer.amplitude().0;
+    let (defocus, direction) = if a > amp + NEGLIGIBLE_D {
+        (a - amp, DefocusDirection::NeedsMorePlus)
+    } else if a < -NEGLIGIBLE_D {
+        (-a, DefocusDirection::NeedsLessPlus)
+    } else {
+        (0.0, DefocusDirection::None)
+    };
+    let beyond = focus.residual_defocus.0.abs();
+    let comfort_residual = focus.residual_for_comfort.0;
+    let blur_disc =
+        blur_disc_arcmin(Dioptres(defocus), ctx.pupil).map_err(PlanError::optics(field.clone()))?;
+    let gaze = |e| PlanError::lens(field.clone())(e);
+    let near_pd = ctx.fitting.near_pd(prep.distance).map_err(gaze)?;
+    let convergence = ctx
+        .fitting
+        .convergence_demand(Eye::Right, prep.distance)
+        .map_err(gaze)?
+        + ctx
+            .fitting
+            .convergence_demand(Eye::Left, prep.distance)
+            .map_err(gaze)?;
+    let inset = ctx
+        .fitting
+        .near_inset(Eye::Right, prep.distance)
+        .map_err(gaze)?
+        + ctx
+            .fitting
+            .near_inset(Eye::Left, prep.distance)
+            .map_err(gaze)?;
+    // Both lines of sight are taken at the right eye's height, the optical
+    // centres at the fitting points; a line of sight beyond the lens's edge
+    // meets no prism, so the height is limited to the lens.
+    let y = Millimetres(choice.y.clamp(ctx.extent.bottom().0, ctx.extent.top().0));
+    let imbalance = vertical_imbalance(y, ctx.right.vertical_power(), y, ctx.left.vertical_power())
+        .map_err(gaze)?;
+    Ok(TaskPlan {
+        task: tc.task.clone(),
+        lens_point: LensPointMm {
+            x: Millimetres(choice.x),
+            y: Millimetres(choice.y),
+        },
+        zone: zone_kind(sample.zone),
+        local_power: LocalPower {
+            addition: add,
+            right: with_addition(&ctx.right, add),
+            left: with_addition(&ctx.left, add),
+        },
+        accommodation: focus.accommodation,
+        share_of_amplitude: focus.share_of_amplitude,
+        verdict: choice.verdict,
+        blur: ResidualBlur {
+            defocus: Dioptres(defocus),
+            direction,
+            beyond_tolerance: Dioptres(if beyond < NEGLIGIBLE_D { 0.0 } else { beyond }),
+            short_of_comfort: Dioptres(if comfort_residual.abs() < NEGLIGIBLE_D {
+                0.0
+            } else {
+                comfort_residual
+            }),
+            blur_disc_arcmin: blur_disc,
+            acuity_loss_logmar: acuity_loss_logmar(Dioptres(defocus), ctx.pupil),
+        },
+        range_here: zone_range(ctx, zone_kind(sample.zone), add, prep.half_depth)?,
+        posture: HeadPosture {
+            chin_up: Degrees(choice.pitch),
+            reachable: !choice.out_of_reach,
+        },
+        field: FieldFit {
+            zone_angle: zone_angle(design, choice.y, prep.cor_to_lens).map(Degrees),
+            task_angle: Degrees(prep.width_deg),
+            head_turn: Degrees(choice.turn),
+        },
+        near_vision: Centration {
+            near_pd,
+            inset_per_eye: inset * 0.5,
+            convergence,
+            vertical_imbalance: PrismDioptres(imbalance.difference.0.abs()),
+        },
+    })
+}

@@ -1,0 +1,212 @@
+//! Plain-text rendering of a plan for the command line: the wearer-level
+//! figures, then each option (best first) with its parameters, the reason
+//! for the choice, its zones' ranges of clear vision and a table of tasks,
+//! then unserved tasks, cautions and the order. All words come from the
+//! outcome types' `Display`, shared with the screens.
+
+use super::outcome::*;
+use crate::scenario::{AmplitudeMethod, ReferencePlane};
+use std::fmt::Write;
+
+fn plane(p: ReferencePlane) -> &'static str {
+    match p {
+        ReferencePlane::Spectacle => "at the spectacle plane",
+        ReferencePlane::Ocular => "ocular",
+    }
+}
+
+fn amplitude_line(a: &AmplitudeUsed) -> String {
+    let source = match a.source {
+        AmplitudeSource::Measured { method } => format!(
+            "measured, {}",
+            match method {
+                AmplitudeMethod::PushUp => "push-up",
+                AmplitudeMethod::MinusLens => "minus lens",
+            }
+        ),
+        AmplitudeSource::AgeModel { age_years, .. } => {
+            format!("Hofstetter minimum, 15 - 0.25 x {age_years:.0} years")
+        }
+    };
+    format!(
+        "Amplitude: {} {} ({source}) = {} ocular; usable {:.0} % = {}",
+        a.stated,
+        plane(a.stated_plane),
+        a.ocular,
+        a.usable_fraction * 100.0,
+        a.usable_ocular
+    )
+}
+
+fn pupil_line(p: &PupilUsed) -> String {
+    match p.source {
+        PupilOrigin::Measured => format!("Pupil: {:.1} mm (measured)", p.diameter.0),
+        PupilOrigin::WatsonYellott {
+            luminance_cd_m2,
+            field,
+            age_years,
+        } => format!(
+            "Pupil: {:.1} mm (Watson & Yellott 2012: {luminance_cd_m2} cd/m², {:.0}° field, age {age_years:.0})",
+            p.diameter.0, field.0
+        ),
+    }
+}
+
+fn share(s: Option<f64>) -> String {
+    s.map_or("n/a".to_string(), |s| format!("{:.0} %", s * 100.0))
+}
+
+fn option_block(out: &mut String, o: &OptionPlan) {
+    let s = &o.score;
+    let _ = writeln!(
+        out,
+        "\n#{} \"{}\" ({})  score {:.2} h: comfortable {:.1} h, tiring {:.1} h, blurred {:.1} h",
+        o.rank,
+        o.option.label,
+        family_name(&o.design),
+        s.total,
+        s.comfortable_hours,
+        s.tiring_hours,
+        s.blurred_hours
+    );
+    let params: Vec<String> = o
+        .parameters
+        .iter()
+        .map(|p| format!("{} {} ({})", p.kind, p.value, p.source))
+        .collect();
+    let _ = writeln!(out, "   Parameters: {}", params.join(", "));
+    let _ = writeln!(out, "   Why: {}", o.describe_choice());
+    for z in &o.zones {
+        let _ = writeln!(
+            out,
+            "   {} zone (add {}): comfortable {}; in focus {}",
+            z.zone, z.addition, z.comfortable, z.in_focus
+        );
+    }
+    let _ = writeln!(
+        out,
+        "   {:<22} {:<13} {:>13} {:<34} {:>8} {:>6} {:<20} {:>7} {:<14} {:>6} {:>7} {:>6}",
+        "task",
+        "zone",
+        "point x,y mm",
+        "local power",
+        "accomm.",
+        "share",
+        "verdict",
+        "blur'",
+        "posture",
+        "turn°",
+        "nearPD",
+        "conv.Δ"
+    );
+    for t in &o.tasks {
+        let name: String = t.task.name.chars().take(22).collect();
+        let _ = writeln!(
+            out,
+            "   {:<22} {:<13} {:>13} {:<34} {:>8} {:>6} {:<20} {:>7.1} {:<14} {:>6.0} {:>7.1} {:>6.1}",
+            name,
+            t.zone.to_string(),
+            format!("{:+.1},{:+.1}", t.lens_point.x.0, t.lens_point.y.0),
+            t.local_power.to_string(),
+            t.accommodation.to_string(),
+            share(t.share_of_amplitude),
+            t.verdict.to_string(),
+            t.blur.blur_disc_arcmin,
+            t.posture.to_string(),
+            t.field.head_turn.0,
+            t.near_vision.near_pd.0,
+            t.near_vision.convergence.0
+        );
+    }
+}
+
+/// The name of a design's family for headings.
+pub fn family_name(design: &crate::scenario::FamilyChoice) -> &'static str {
+    use crate::scenario::FamilyChoice as F;
+    match design {
+        F::SingleVision { .. } => "single vision",
+        F::Bifocal { .. } => "bifocal",
+        F::Trifocal { .. } => "trifocal",
+        F::Progressive { .. } => "progressive",
+        F::Degressive { .. } => "degressive (occupational)",
+        F::DoubleSegment { .. } => "double segment",
+    }
+}
+
+/// The whole plan as readable text.
+pub fn render(plan: &Plan) -> String {
+    let mut out = String::new();
+    let _ = writeln!(out, "Plan for \"{}\"", plan.scenario_name);
+    let _ = writeln!(out, "{}", amplitude_line(&plan.amplitude));
+    let r = &plan.refraction;
+    let _ = writeln!(
+        out,
+        "Refraction: {} used for vergence, the mean of both eyes' spherical equivalents (R {}, L {}); vertex {:.0} mm",
+        r.used, r.right_equivalent, r.left_equivalent, r.vertex.0
+    );
+    let _ = writeln!(out, "{}", pupil_line(&plan.pupil));
+    let _ = writeln!(
+        out,
+        "Half depth of field for zone ranges: ±{:.2} D",
+        plan.zone_half_depth.0
+    );
+    for o in &plan.options {
+        option_block(&mut out, o);
+    }
+    if !plan.unserved.is_empty() {
+        let _ = writeln!(out, "\nTasks no option makes comfortable:");
+        for u in &plan.unserved {
+            let closest = u
+                .closest_option
+                .as_ref()
+                .map_or(String::new(), |o| format!(" (closest: \"{}\")", o.label));
+            let _ = writeln!(
+                out,
+                "   \"{}\": at best {}{closest}; {}",
+                u.task.name, u.best_verdict, u.reason
+            );
+        }
+    }
+    let _ = writeln!(out, "\nCautions:");
+    for c in &plan.cautions {
+        let _ = writeln!(out, "   [{}] {}", c.kind, c.text);
+    }
+    if let Some(o) = &plan.order {
+        let _ = writeln!(
+            out,
+            "\nOrder for \"{}\" ({}):",
+            o.option.label,
+            family_name(&o.design)
+        );
+        let _ = writeln!(out, "   R {}   L {}", o.right, o.left);
+        if let Some(a) = o.addition {
+            let name = if o.degression.is_some() {
+                "near addition"
+            } else {
+                "addition"
+            };
+            let _ = writeln!(out, "   {name} {a}");
+        }
+        if let Some(d) = o.degression {
+            let _ = writeln!(out, "   degression {d}");
+        }
+        let _ = writeln!(
+            out,
+            "   fitting height {:.1} mm, PD R {:.1} / L {:.1} mm{}, {}, pantoscopic tilt {:.0}°",
+            o.fitting_height.0,
+            o.pd_right.0,
+            o.pd_left.0,
+            o.near_pd.map_or(String::new(), |n| format!(
+                ", near PD {:.1} mm at the nearest task",
+                n.0
+            )),
+            o.vertex
+                .map_or("contact lenses (no vertex)".to_string(), |v| format!(
+                    "vertex {:.0} mm",
+                    v.0
+                )),
+            o.pantoscopic_tilt.0
+        );
+    }
+    out
+}

@@ -1,0 +1,286 @@
+//! Scenario tests of the planner on invented cases whose results are worked
+//! by hand from the vergence relations of the domain brief (thin-lens
+//! vergence, L = -1/l, A = K - L'e; with contact lenses v = 0 so
+//! A = K - (L + P)), Hofstetter's (1950) minimum amplitude 15 - 0.25 x age,
+//! the geometric blur disc β = p ΔD and Smith's (1991) acuity relation
+//! (from memory), as written out beside each check.
+
+mod plan_support;
+
+use clearspan::plan::*;
+use clearspan::scenario::*;
+use plan_support::*;
+
+fn sv(addition: Option<f64>) -> LensOption {
+    option(
+        "reader",
+        FamilyChoice::SingleVision {
+            addition_d: addition,
+        },
+    )
+}
+
+#[test]
+fn reading_addition_is_the_least_that_makes_the_book_comfortable() {
+    // Emmetrope, contact lenses (K = 0, v = 0), ocular amplitude 1.00 D,
+    // half usable (0.50 D), clinical half depth ±0.25 D. Book at 40 cm:
+    // L = -2.50 D, A = 2.50 - add. Comfortable when -0.25 ≤ A ≤ 0.75, so
+    // 1.75 ≤ add ≤ 2.75; the least on the 0.25 D grid is +1.75 D, where
+    // A = 0.75 D, 75 % of the amplitude.
+    let p = plan_of(
+        wearer(1.0, 0.25),
+        vec![task("book", 0.4, -25.0, 2.0)],
+        vec![sv(None)],
+    );
+    let o = &p.options[0];
+    assert_eq!(
+        o.design,
+        FamilyChoice::SingleVision {
+            addition_d: Some(1.75)
+        }
+    );
+    assert_eq!(o.parameters[0].source, ParameterSource::ChosenByPlanner);
+    let t = &o.tasks[0];
+    assert_eq!(t.verdict, Verdict::Comfortable);
+    close(t.accommodation.0, 0.75, 1e-9, "accommodation");
+    close(
+        t.share_of_amplitude.unwrap_or(f64::NAN),
+        0.75,
+        1e-9,
+        "share",
+    );
+    // +1.50 D would need A = 1.00 D: within amplitude + dof (1.25) but beyond
+    // usable + dof (0.75), so in focus but tiring; the explanation says so.
+    assert!(o.explanation.iter().any(|n| matches!(
+        n,
+        ChoiceNote::NeighbourHurtsTask {
+            verdict_neighbour: Verdict::InFocusButTiring,
+            verdict_chosen: Verdict::Comfortable,
+            ..
+        }
+    )));
+    // Range of the +1.75 D zone: comfortable near limit where A = 0.75 D,
+    // L = -2.50 D (40 cm); far limit where A = -0.25 D, L = -1.50 D (66.7 cm);
+    // in focus near limit where A = 1.25 D, L = -3.00 D (33.3 cm).
+    let z = &o.zones[0];
+    match (z.comfortable, z.in_focus) {
+        (
+            ClearRange::Clear {
+                near,
+                far: FarEnd::Finite(far),
+            },
+            ClearRange::Clear {
+                near: focus_near, ..
+            },
+        ) => {
+            close(near.0, 0.4, 1e-9, "comfortable near limit");
+            close(far.0, 1.0 / 1.5, 1e-9, "far limit");
+            close(focus_near.0, 1.0 / 3.0, 1e-9, "in-focus near limit");
+        }
+        other => panic!("unexpected ranges {other:?}"),
+    }
+    assert!(p.unserved.is_empty());
+}
+
+#[test]
+fn too_weak_a_reader_blurs_by_the_worked_amount() {
+    // Same wearer, addition fixed at +1.00 D: A = 2.50 - 1.00 = 1.50 D, more
+    // than the 1.00 D amplitude by 0.50 D (defocus, needs more plus), which
+    // exceeds the ±0.25 D allowance by 0.25 D: blurred. Short of comfort by
+    // 1.50 - (0.50 + 0.25) = 0.75 D. Blur disc through the 4 mm pupil:
+    // 0.004 x 0.5 = 0.002 rad = 6.875 arcmin. Smith (1991), k = 0.65:
+    // kpD = 1.3 arcmin, MAR = sqrt(1 + 1.69) = 1.6401, log10 = 0.2149.
+    let p = plan_of(
+        wearer(1.0, 0.25),
+        vec![task("book", 0.4, -25.0, 2.0)],
+        vec![sv(Some(1.0))],
+    );
+    let t = &p.options[0].tasks[0];
+    assert_eq!(t.verdict, Verdict::Blurred);
+    assert_eq!(t.blur.direction, DefocusDirection::NeedsMorePlus);
+    close(t.blur.defocus.0, 0.5, 1e-9, "defocus");
+    close(t.blur.beyond_tolerance.0, 0.25, 1e-9, "beyond tolerance");
+    close(t.blur.short_of_comfort.0, 0.75, 1e-9, "short of comfort");
+    close(t.blur.blur_disc_arcmin, 6.875, 1e-3, "blur disc");
+    close(t.blur.acuity_loss_logmar, 0.2149, 1e-4, "acuity loss");
+    assert_eq!(p.options[0].explanation, vec![ChoiceNote::AllFixed]);
+    assert_eq!(p.unserved.len(), 1);
+    assert_eq!(
+        p.unserved[0].reason,
+        UnservedReason::NeedsMorePlus {
+            short_by: clearspan::core::units::Dioptres(0.75)
+        }
+    );
+}
+
+#[test]
+fn amplitude_from_age_uses_hofstetter_minimum() {
+    // No measured amplitude, age 50: Hofstetter minimum 15 - 12.5 = 2.50 D at
+    // the spectacle plane; with contact lenses (v = 0) the ocular amplitude is
+    // the same. Usable half: 1.25 D. Monitor at 50 cm (L = -2.00 D) with
+    // ±0.25 D: comfortable when 2.00 - add ≤ 1.50, so the least addition is +0.50 D.
+    let mut w = wearer(0.0, 0.25);
+    w.measured_amplitude = None;
+    let p = plan_of(w, vec![task("monitor", 0.5, -10.0, 6.0)], vec![sv(None)]);
+    close(p.amplitude.stated.0, 2.5, 1e-12, "stated amplitude");
+    close(p.amplitude.ocular.0, 2.5, 1e-12, "ocular amplitude");
+    close(p.amplitude.usable_ocular.0, 1.25, 1e-12, "usable");
+    assert!(matches!(
+        p.amplitude.source,
+        AmplitudeSource::AgeModel {
+            model: AgeModelName::HofstetterMinimum,
+            ..
+        }
+    ));
+    assert_eq!(
+        p.options[0].design,
+        FamilyChoice::SingleVision {
+            addition_d: Some(0.5)
+        }
+    );
+}
+
+#[test]
+fn a_measured_spectacle_plane_amplitude_is_converted_for_a_myope() {
+    // -10.00 D spectacles at 12 mm, measured 4.00 D at the spectacle plane:
+    // ocular 3.05773 D (worked in the optics core's test from Bennett &
+    // Rabbetts' vergence relations: K = -8.92857, L' = -14,
+    // L'e = -14 / 1.168 = -11.98630, A = 3.05773).
+    let mut w = wearer(4.0, 0.25);
+    w.right = rx(-10.0);
+    w.left = rx(-10.0);
+    w.correction = Correction::Spectacles { vertex_mm: 12.0 };
+    w.measured_amplitude = Some(MeasuredAmplitude {
+        dioptres: 4.0,
+        method: AmplitudeMethod::PushUp,
+        plane: ReferencePlane::Spectacle,
+    });
+    let p = plan_of(w, vec![task("book", 0.4, -25.0, 1.0)], vec![sv(Some(0.0))]);
+    close(p.amplitude.ocular.0, 3.057_73, 1e-4, "ocular amplitude");
+    assert!(p.cautions.iter().any(|c| c.kind == CautionKind::HighPower));
+}
+
+#[test]
+fn a_progressive_wearer_lifts_the_chin_for_a_high_monitor() {
+    // Absolute presbyope (measured amplitude 0), contact lenses, ±0.25 D.
+    // Monitor at 60 cm, 2° above the eyes: L = -1.6667 D, A = 1.6667 - add;
+    // comfortable when -0.25 ≤ A ≤ 0.25, i.e. 1.4167 ≤ add ≤ 1.9167. Head
+    // upright, the line of sight crosses the lens above the fitting point,
+    // in the distance zone (add 0): blurred. A +2.50 D progressive carries
+    // that addition in its corridor below the fitting point, so the wearer
+    // must lift the chin (the classic complaint at a high monitor).
+    let p = plan_of(
+        wearer(0.0, 0.25),
+        vec![task("high monitor", 0.6, 2.0, 4.0)],
+        vec![option(
+            "progressive",
+            FamilyChoice::Progressive {
+                addition_d: Some(2.5),
+                progression_length_mm: Some(14.0),
+            },
+        )],
+    );
+    let t = &p.options[0].tasks[0];
+    assert_eq!(t.verdict, Verdict::Comfortable);
+    assert!(
+        t.posture.chin_up.0 > 5.0 && t.posture.chin_up.0 <= 25.0,
+        "{:?}",
+        t.posture
+    );
+    assert!(t.lens_point.y.0 < 0.0);
+    let add = t.local_power.addition.0;
+    assert!((1.4167..=1.9167).contains(&add), "addition {add}");
+
+    // At 10° above the eyes the corridor would need a chin lift beyond the
+    // 25° the planner allows (about 10° + the eye's ~15° drop to the
+    // corridor): the power is on the lens but out of reach.
+    let p = plan_of(
+        wearer(0.0, 0.25),
+        vec![task("very high monitor", 0.6, 10.0, 4.0)],
+        vec![option(
+            "progressive",
+            FamilyChoice::Progressive {
+                addition_d: Some(2.5),
+                progression_length_mm: Some(14.0),
+            },
+        )],
+    );
+    assert!(!p.options[0].tasks[0].posture.reachable);
+    assert_eq!(p.unserved[0].reason, UnservedReason::PowerOutOfReach);
+}
+
+#[test]
+fn cautions_follow_the_scenario() {
+    // Driving with a degressive lens; a grinding task needing safety
+    // eyewear; R -1.00 / L +0.50 (equivalents differ by 1.50 D ≥ 1.00 D).
+    let mut w = wearer(1.0, 0.25);
+    w.right = rx(-1.0);
+    w.left = rx(0.5);
+    let mut drive = task("van", 20.0, 0.0, 2.0);
+    drive.flags.driving = true;
+    let mut grind = task("grinder", 0.5, -20.0, 1.0);
+    grind.flags.needs_safety_eyewear = true;
+    let p = plan_of(
+        w,
+        vec![drive, grind],
+        vec![
+            option(
+                "office lens",
+                FamilyChoice::Degressive {
+                    near_addition_d: None,
+                    degression_d: None,
+                },
+            ),
+            option(
+                "progressive",
+                FamilyChoice::Progressive {
+                    addition_d: None,
+                    progression_length_mm: None,
+                },
+            ),
+        ],
+    );
+    assert_eq!(p.cautions[0].kind, CautionKind::PlanningAid);
+    let kinds: Vec<CautionKind> = p.cautions.iter().map(|c| c.kind).collect();
+    for k in [
+        CautionKind::NotForDriving,
+        CautionKind::SafetyEyewear,
+        CautionKind::Anisometropia,
+    ] {
+        assert!(kinds.contains(&k), "missing {k:?} in {kinds:?}");
+    }
+    let driving = p
+        .cautions
+        .iter()
+        .find(|c| c.kind == CautionKind::NotForDriving)
+        .expect("checked above");
+    assert_eq!(driving.options.len(), 1);
+    assert_eq!(driving.options[0].label, "office lens");
+    assert_eq!(driving.tasks[0].name, "van");
+    // A design not fit for driving ranks below one that is.
+    assert_eq!(p.options[0].option.label, "progressive");
+}
+
+#[test]
+fn options_are_ranked_and_every_task_gets_a_plan() {
+    let p = plan_of(
+        wearer(1.5, 0.3),
+        vec![
+            task("monitor", 0.65, -12.0, 5.0),
+            task("papers", 0.4, -30.0, 2.0),
+            task("room", 4.0, 0.0, 1.0),
+        ],
+        all_families_open(),
+    );
+    assert_eq!(p.options.len(), 6);
+    for (i, o) in p.options.iter().enumerate() {
+        assert_eq!(o.rank, i + 1);
+        assert_eq!(o.tasks.len(), 3);
+        if let Some(next) = p.options.get(i + 1) {
+            assert!(o.score.total >= next.score.total);
+        }
+    }
+    let best = p.order.as_ref().expect("options exist");
+    assert_eq!(best.option, p.options[0].option);
+    assert_eq!(best.vertex, None);
+}

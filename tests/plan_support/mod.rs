@@ -1,0 +1,128 @@
+//! Builders shared by the planner's scenario tests: a plain wearer and task
+//! that each test changes field by field, so a change of the scenario model
+//! touches one place. All people and workplaces here are invented.
+#![allow(dead_code)]
+
+use clearspan::plan::{plan, Plan};
+use clearspan::scenario::*;
+
+/// An emmetrope with contact lenses (vertex 0, so vergence is plain
+/// addition), a measured ocular amplitude, half usable, a clinical half depth
+/// of field and a measured 4 mm pupil.
+pub fn wearer(amplitude_d: f64, half_depth_d: f64) -> Wearer {
+    Wearer {
+        age_years: 50.0,
+        measured_amplitude: Some(MeasuredAmplitude {
+            dioptres: amplitude_d,
+            method: AmplitudeMethod::MinusLens,
+            plane: ReferencePlane::Ocular,
+        }),
+        right: rx(0.0),
+        left: rx(0.0),
+        prescribed_addition_d: None,
+        correction: Correction::ContactLenses,
+        pd_right_mm: 32.0,
+        pd_left_mm: 32.0,
+        fitting_height_mm: 22.0,
+        lens_height_mm: 38.0,
+        pantoscopic_tilt_deg: 8.0,
+        pupil: PupilSource::Measured { diameter_mm: 4.0 },
+        usable_fraction: 0.5,
+        blur_tolerance: BlurTolerance::Clinical { half_depth_d },
+    }
+}
+
+/// A spherical prescription.
+pub fn rx(sphere: f64) -> Prescription {
+    Prescription {
+        sphere_d: sphere,
+        cylinder_d: 0.0,
+        axis_deg: 0.0,
+    }
+}
+
+/// A task straight ahead at `distance_m`, `gaze_deg` below (negative) or above eye level.
+pub fn task(name: &str, distance_m: f64, gaze_deg: f64, hours: f64) -> Task {
+    Task {
+        name: name.to_string(),
+        distance_m,
+        vertical: VerticalPosition::GazeAngle { degrees: gaze_deg },
+        sideways_m: 0.0,
+        width_m: 0.05,
+        detail_mm: 1.0,
+        hours_per_day: hours,
+        flags: TaskFlags::default(),
+    }
+}
+
+/// A lens option.
+pub fn option(label: &str, family: FamilyChoice) -> LensOption {
+    LensOption {
+        label: label.to_string(),
+        family,
+    }
+}
+
+/// Validates and plans; panics with the problems if the test scenario is invalid.
+pub fn plan_of(wearer: Wearer, tasks: Vec<Task>, options: Vec<LensOption>) -> Plan {
+    let s = Scenario {
+        name: "test".to_string(),
+        wearer,
+        tasks,
+        options,
+    };
+    let valid = validate(s).unwrap_or_else(|e| panic!("invalid test scenario: {e:?}"));
+    plan(&valid).unwrap_or_else(|e| panic!("plan failed: {e}"))
+}
+
+/// Asserts `actual` is within `tol` of `expected`.
+pub fn close(actual: f64, expected: f64, tol: f64, what: &str) {
+    assert!(
+        (actual - expected).abs() <= tol,
+        "{what}: got {actual}, expected {expected} ± {tol}"
+    );
+}
+
+/// Every lens family with every parameter open.
+pub fn all_families_open() -> Vec<LensOption> {
+    vec![
+        option("sv", FamilyChoice::SingleVision { addition_d: None }),
+        option(
+            "bifocal",
+            FamilyChoice::Bifocal {
+                addition_d: None,
+                segment_top_mm: None,
+            },
+        ),
+        option(
+            "trifocal",
+            FamilyChoice::Trifocal {
+                addition_d: None,
+                intermediate_ratio: None,
+                segment_top_mm: None,
+            },
+        ),
+        option(
+            "progressive",
+            FamilyChoice::Progressive {
+                addition_d: None,
+                progression_length_mm: None,
+            },
+        ),
+        option(
+            "degressive",
+            FamilyChoice::Degressive {
+                near_addition_d: None,
+                degression_d: None,
+            },
+        ),
+        option(
+            "double segment",
+            FamilyChoice::DoubleSegment {
+                addition_d: None,
+                lower_top_mm: None,
+                upper_bottom_mm: None,
+            },
+        ),
+    ]
+}
