@@ -1,4 +1,7 @@
-//! The pure geometry of the charts: scales, ticks and SVG path data, tested
-//! natively. Components in the web app only place the elements computed here.
+//! The pure geometry of the charts: scales, ticks, bands, lens-map cells and
+//! SVG path data, tested natively. Components in the web app only place the
+//! elements computed here.
 
 pub mod dioptric_axis;
+pub mod lens_map;
+pub mod range_rows;

@@ -15,7 +15,8 @@ fn plane(p: ReferencePlane) -> &'static str {
     }
 }
 
-fn amplitude_line(a: &AmplitudeUsed) -> String {
+/// The amplitude used and where it came from, as one line.
+pub fn amplitude_line(a: &AmplitudeUsed) -> String {
     let source = match a.source {
         AmplitudeSource::Measured { method } => format!(
             "measured, {}",
@@ -38,7 +39,8 @@ fn amplitude_line(a: &AmplitudeUsed) -> String {
     )
 }
 
-fn pupil_line(p: &PupilUsed) -> String {
+/// The pupil diameter used and where it came from, as one line.
+pub fn pupil_line(p: &PupilUsed) -> String {
     match p.source {
         PupilOrigin::Measured => format!("Pupil: {:.1} mm (measured)", p.diameter.0),
         PupilOrigin::WatsonYellott {
@@ -178,35 +180,42 @@ pub fn render(plan: &Plan) -> String {
             o.option.label,
             family_name(&o.design)
         );
-        let _ = writeln!(out, "   R {}   L {}", o.right, o.left);
-        if let Some(a) = o.addition {
-            let name = if o.degression.is_some() {
-                "near addition"
-            } else {
-                "addition"
-            };
-            let _ = writeln!(out, "   {name} {a}");
+        for line in order_lines(o) {
+            let _ = writeln!(out, "   {line}");
         }
-        if let Some(d) = o.degression {
-            let _ = writeln!(out, "   degression {d}");
-        }
-        let _ = writeln!(
-            out,
-            "   fitting height {:.1} mm, PD R {:.1} / L {:.1} mm{}, {}, pantoscopic tilt {:.0}°",
-            o.fitting_height.0,
-            o.pd_right.0,
-            o.pd_left.0,
-            o.near_pd.map_or(String::new(), |n| format!(
-                ", near PD {:.1} mm at the nearest task",
-                n.0
-            )),
-            o.vertex
-                .map_or("contact lenses (no vertex)".to_string(), |v| format!(
-                    "vertex {:.0} mm",
-                    v.0
-                )),
-            o.pantoscopic_tilt.0
-        );
     }
     out
+}
+
+/// The lines of a lab order: powers, addition or degression, and fitting data.
+pub fn order_lines(o: &OrderSummary) -> Vec<String> {
+    let mut lines = vec![format!("R {}   L {}", o.right, o.left)];
+    if let Some(a) = o.addition {
+        let name = if o.degression.is_some() {
+            "near addition"
+        } else {
+            "addition"
+        };
+        lines.push(format!("{name} {a}"));
+    }
+    if let Some(d) = o.degression {
+        lines.push(format!("degression {d}"));
+    }
+    lines.push(format!(
+        "fitting height {:.1} mm, PD R {:.1} / L {:.1} mm{}, {}, pantoscopic tilt {:.0}°",
+        o.fitting_height.0,
+        o.pd_right.0,
+        o.pd_left.0,
+        o.near_pd.map_or(String::new(), |n| format!(
+            ", near PD {:.1} mm at the nearest task",
+            n.0
+        )),
+        o.vertex
+            .map_or("contact lenses (no vertex)".to_string(), |v| format!(
+                "vertex {:.0} mm",
+                v.0
+            )),
+        o.pantoscopic_tilt.0
+    ));
+    lines
 }

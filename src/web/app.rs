@@ -1,6 +1,7 @@
 //! The top-level layout of the app: masthead, the input panels and the outcome.
 
 use super::options_panel::OptionsPanel;
+use super::outcome::OutcomePanel;
 use super::shelf::is_own_key;
 use super::shelf_panel::{NoticeBar, ShelfPanel};
 use super::state::provide_app_state;
@@ -52,6 +53,7 @@ pub fn App() -> impl IntoView {
                 <TasksPanel />
                 <OptionsPanel />
             </div>
+            <OutcomePanel />
         </main>
     }
 }

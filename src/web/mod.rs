@@ -6,6 +6,7 @@ mod bind;
 mod fields;
 mod files;
 mod options_panel;
+mod outcome;
 mod shelf;
 mod shelf_panel;
 mod state;

@@ -4,6 +4,7 @@
 
 use super::shelf::{Opening, Shelf};
 use crate::display::LengthUnit;
+use crate::plan::{plan, Plan};
 use crate::scenario::{validate, FieldError, Problem, Scenario, ValidScenario};
 use leptos::prelude::*;
 
@@ -16,18 +17,61 @@ pub struct AppState {
     pub unit: RwSignal<LengthUnit>,
     /// The scenario after the validation gate: checked, or every field problem.
     pub checked: Memo<Result<ValidScenario, Vec<FieldError>>>,
+    /// The plan on screen, re-planned on every edit.
+    pub outcome: Memo<Outcome>,
+    /// The lens option shown in the lens map (input index); `None`: the best ranked.
+    pub chosen_option: RwSignal<Option<usize>>,
+    /// The task whose numbers are shown in detail (input index).
+    pub chosen_task: RwSignal<Option<usize>>,
     /// The scenarios kept on this device and the save state of the open one.
     pub shelf: Shelf,
+}
+
+/// The plan on screen: the latest from a valid scenario, kept and marked
+/// stale while the scenario has a problem, so nothing vanishes mid-edit.
+#[derive(Debug, Clone, PartialEq, Default)]
+pub struct Outcome {
+    /// The latest plan, if any scenario so far was valid.
+    pub plan: Option<Plan>,
+    /// Whether the scenario changed since `plan` and cannot be planned now.
+    pub stale: bool,
+    /// Why the current scenario could not be planned, beyond field problems.
+    pub error: Option<String>,
 }
 
 impl AppState {
     fn new(opening: Opening) -> AppState {
         let scenario = RwSignal::new(opening.scenario);
         let checked = Memo::new(move |_| scenario.with(|s| validate(s.clone())));
+        let outcome = Memo::new(move |previous: Option<&Outcome>| {
+            let last = || previous.and_then(|p| p.plan.clone());
+            checked.with(|c| match c {
+                Ok(valid) => match plan(valid) {
+                    Ok(plan) => Outcome {
+                        plan: Some(plan),
+                        stale: false,
+                        error: None,
+                    },
+                    Err(e) => Outcome {
+                        plan: last(),
+                        stale: true,
+                        error: Some(e.to_string()),
+                    },
+                },
+                Err(_) => Outcome {
+                    plan: last(),
+                    stale: true,
+                    error: None,
+                },
+            })
+        });
         AppState {
             scenario,
             unit: RwSignal::new(opening.unit),
             checked,
+            outcome,
+            chosen_option: RwSignal::new(None),
+            chosen_task: RwSignal::new(None),
             shelf: opening.shelf,
         }
     }

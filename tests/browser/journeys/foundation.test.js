@@ -22,7 +22,9 @@ test("first visit opens the demo scenario with a computed plan", async () => {
   const page = await watchedPage(context, server.url);
   await page.goto(server.url);
   await page.getByTestId("workspace").waitFor();
-  await screenshot(page, "foundation-desktop");
+  await page.getByTestId("recommendation").waitFor();
+  await screenshot(page, "desktop-first-screen", { fullPage: false });
+  await screenshot(page, "desktop-full");
   assert.deepEqual(page.problems(), []);
   await context.close();
 });

@@ -89,10 +89,10 @@ export async function watchedPage(context, origin) {
   return page;
 }
 
-/** Saves a full-page screenshot under target/screenshots/NAME.png. */
-export async function screenshot(page, name) {
+/** Saves a screenshot (the whole page unless `fullPage` is false) under target/screenshots/NAME.png. */
+export async function screenshot(page, name, { fullPage = true } = {}) {
   await mkdir(SHOTS, { recursive: true });
   const path = join(SHOTS, `${name}.png`);
-  await page.screenshot({ path, fullPage: true });
+  await page.screenshot({ path, fullPage });
   return path;
 }

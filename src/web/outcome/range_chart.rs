@@ -1,0 +1,117 @@
+//! The range chart: for every option and zone, the distances in focus (light
+//! band) and comfortable (dark band) on a dioptric distance axis, with every
+//! task marked by its number. Hovering shows the numbers; choosing a task
+//! marker shows them below the chart. All geometry comes from `chart`.
+
+use crate::chart::range_rows::{axis_for, range_rows, task_markers};
+use crate::display::trim_number;
+use crate::plan::Plan;
+use crate::web::state::use_app_state;
+use leptos::prelude::*;
+
+const WIDTH: f64 = 820.0;
+const LABEL_END: f64 = 250.0;
+const X_NEAR: f64 = 270.0;
+const X_FAR: f64 = 800.0;
+const TOP: f64 = 44.0;
+const ROW: f64 = 26.0;
+
+/// The range chart for `plan`.
+pub fn range_chart(plan: &Plan) -> impl IntoView {
+    let state = use_app_state();
+    let unit = state.unit.get();
+    let axis = axis_for(plan, X_NEAR, X_FAR);
+    let rows = range_rows(plan, &axis);
+    let markers = task_markers(plan, &axis);
+    let height = TOP + rows.len() as f64 * ROW + 36.0;
+    let bottom = TOP + rows.len() as f64 * ROW;
+    let ticks = axis
+        .ticks(unit)
+        .into_iter()
+        .map(|t| {
+            view! {
+                <line class="grid" x1=t.x x2=t.x y1={TOP - 4.0} y2={bottom} />
+                <text class="tick" x=t.x y={bottom + 18.0} text-anchor="middle">{t.label}</text>
+            }
+        })
+        .collect_view();
+    let bands = rows
+        .iter()
+        .enumerate()
+        .map(|(i, r)| {
+            let y = TOP + i as f64 * ROW;
+            let label = format!("#{} {} · {} {:+.2}", r.rank, r.option, r.zone, r.addition_d);
+            let tooltip = format!("{label}: {}", r.words);
+            let focus = r.in_focus.map(|s| view! {
+                <rect class="band-focus" x=s.x_near y={y + 5.0} width={(s.x_far - s.x_near).max(1.0)} height={ROW - 10.0} />
+            });
+            let comfort = r.comfortable.map(|s| view! {
+                <rect class="band-comfort" x=s.x_near y={y + 9.0} width={(s.x_far - s.x_near).max(1.0)} height={ROW - 18.0} />
+            });
+            view! {
+                <g class="range-row">
+                    <title>{tooltip}</title>
+                    <text class="row-label" x=LABEL_END y={y + ROW / 2.0 + 4.0} text-anchor="end">{label}</text>
+                    {focus}
+                    {comfort}
+                </g>
+            }
+        })
+        .collect_view();
+    let marks = markers
+        .into_iter()
+        .map(|m| {
+            let index = m.index;
+            let distance = format!(
+                "{} {}",
+                trim_number(
+                    unit.from_metres(crate::core::units::Metres(m.distance_m)),
+                    0
+                ),
+                unit.symbol()
+            );
+            let tooltip = format!("{}. {} at {distance}", index + 1, m.name);
+            let label = tooltip.clone();
+            view! {
+                <g
+                    class="task-marker"
+                    tabindex="0"
+                    role="button"
+                    aria-label=label
+                    on:click=move |_| state.chosen_task.set(Some(index))
+                    on:keydown=move |ev| {
+                        if ev.key() == "Enter" || ev.key() == " " {
+                            state.chosen_task.set(Some(index));
+                        }
+                    }
+                >
+                    <title>{tooltip}</title>
+                    <line x1=m.x x2=m.x y1={TOP - 10.0} y2={bottom} />
+                    <circle cx=m.x cy={TOP - 22.0} r="11" />
+                    <text x=m.x y={TOP - 18.0} text-anchor="middle">{(index + 1).to_string()}</text>
+                </g>
+            }
+        })
+        .collect_view();
+    view! {
+        <figure class="range-chart">
+            <svg
+                viewBox=format!("0 0 {WIDTH} {height}")
+                role="img"
+                aria-labelledby="range-chart-caption"
+                data-testid="range-chart"
+            >
+                {ticks}
+                {bands}
+                {marks}
+            </svg>
+            <figcaption id="range-chart-caption">
+                "Range of clear vision of each lens zone on a dioptric scale (equal steps are equal changes of focus). "
+                <span class="key key-focus">"Light: in focus with full effort."</span>
+                " "
+                <span class="key key-comfort">"Dark: comfortable for sustained work."</span>
+                " Numbered lines: the tasks."
+            </figcaption>
+        </figure>
+    }
+}
