@@ -11,7 +11,7 @@ use clearspan::core::lens::{
     SingleVision, Trifocal, VerticalExtent,
 };
 use clearspan::core::units::{Degrees, Dioptres, Metres, Millimetres};
-use criterion::{black_box, criterion_group, criterion_main, Criterion, Throughput};
+use criterion::{black_box, criterion_main, Criterion, Throughput};
 
 const COLUMNS: usize = 60;
 const ROWS: usize = 40;
@@ -119,5 +119,10 @@ fn gaze(c: &mut Criterion) {
     });
 }
 
-criterion_group!(benches, lens_maps, gaze);
-criterion_main!(benches);
+/// The group lives in a private module so that the function the macro
+/// generates is not a public, undocumented item of the bench crate.
+mod group {
+    criterion::criterion_group!(benches, super::lens_maps, super::gaze);
+}
+
+criterion_main!(group::benches);
