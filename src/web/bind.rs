@@ -86,6 +86,7 @@ pub fn scenario_number(
             optional=optional
             placeholder=if optional { "none" } else { "" }
             decimals=decimals
+            signed=matches!(shown, Shown::As("D"))
             test_id=test_id
         />
     }

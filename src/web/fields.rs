@@ -23,6 +23,17 @@ fn same_value(a: Option<f64>, b: Option<f64>) -> bool {
     }
 }
 
+/// A number as a field shows it: at most `decimals` decimals, and with an
+/// explicit sign on powers (two decimals, as prescriptions are written).
+fn written(value: f64, decimals: usize, signed: bool) -> String {
+    if signed {
+        let text = crate::core::units::Dioptres(value).to_string();
+        text.trim_end_matches(" D").to_string()
+    } else {
+        trim_number(value, decimals)
+    }
+}
+
 /// A labelled number input with its unit and a message line.
 #[component]
 pub fn NumberField(
@@ -49,6 +60,10 @@ pub fn NumberField(
     /// Decimals shown when the value is written from elsewhere.
     #[prop(default = 2)]
     decimals: usize,
+    /// Whether a value written from elsewhere shows its sign, as powers are
+    /// written on prescriptions ("+0.75").
+    #[prop(optional)]
+    signed: bool,
     /// A test id for the browser journeys.
     #[prop(optional, into)]
     test_id: String,
@@ -66,7 +81,7 @@ pub fn NumberField(
             })
             .unwrap_or_else(|| {
                 current
-                    .map(|v| trim_number(v, decimals))
+                    .map(|v| written(v, decimals, signed))
                     .unwrap_or_default()
             })
     };
