@@ -189,8 +189,8 @@ pub fn spectacle_from_ocular(
     ocular_amplitude: Dioptres,
 ) -> Result<Dioptres, OpticsError> {
     let a = check_amplitude(ocular_amplitude)?;
-    eye.vergence_for_accommodation(a.0, eye.distance_power().0)
-        .map(|l| Dioptres(-l))
+    eye.vergence_for_accommodation(a, eye.distance_power())
+        .map(|l| -l)
         .filter(|s| s.0 <= 1.0 / MIN_OBJECT_DISTANCE_M)
         .ok_or(OpticsError::Incompatible {
             problem: "this amplitude would put the near point closer than 2 cm to the lens",

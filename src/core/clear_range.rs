@@ -140,15 +140,16 @@ fn solve(eye: &CorrectedEye, power: f64, lo: f64, hi: f64) -> ZoneRange {
     // A(L) ≥ lo holds for L at or below the far-limit vergence; `None` would
     // mean no object in front of the eye needs that little (never within the
     // accepted inputs, but handled as nothing clear).
-    let far_vergence = match eye.vergence_for_accommodation(lo, power) {
-        Some(v) if v >= closest => v,
+    let power = Dioptres(power);
+    let far_vergence = match eye.vergence_for_accommodation(Dioptres(lo), power) {
+        Some(v) if v.0 >= closest => v.0,
         _ => return ZoneRange::NeedsLessPlus,
     };
     // A(L) ≤ hi holds at or above the near-limit vergence; `None` means every
     // object in front of the eye needs less than hi.
     let near_vergence = eye
-        .vergence_for_accommodation(hi, power)
-        .unwrap_or(closest)
+        .vergence_for_accommodation(Dioptres(hi), power)
+        .map_or(closest, |v| v.0)
         .max(closest);
     if near_vergence > 0.0 {
         return ZoneRange::NeedsMorePlus;
@@ -201,6 +202,17 @@ pub fn range_of_clear_vision(
             viewer.usable.of(viewer.amplitude).0 + dof,
         ),
     })
+}
+
+/// The corrected far point and near point of `viewer` through local power
+/// `local_power`, with no depth of field: the range in which the eye itself
+/// can focus, from no accommodation to the full amplitude.
+pub fn far_and_near_points(
+    viewer: &Viewer,
+    local_power: Dioptres,
+) -> Result<ZoneRange, OpticsError> {
+    let p = check_power("local lens power", local_power)?.0;
+    Ok(solve(&viewer.eye, p, 0.0, viewer.amplitude.0))
 }
 
 /// How one task fares through one local power.
@@ -326,9 +338,14 @@ mod tests {
         // (P = -7.00). K = -8 / 1.096 = -7.29927.
         // Far: A = 0 -> L = K / (1 + vK) - P = -8 + 7 = -1.00 -> 1.0000 m.
         // Near: K - 1 = -8.29927; / (1 - 0.0995912) = -9.21722; L = -2.21722 -> 0.45101 m.
-        let r =
-            range_of_clear_vision(&viewer(-8.0, 12.0, 1.0), Dioptres(-7.0), Dioptres(0.0)).unwrap();
+        let v = viewer(-8.0, 12.0, 1.0);
+        let r = range_of_clear_vision(&v, Dioptres(-7.0), Dioptres(0.0)).unwrap();
         check(r.in_focus, 0.451_01, Some(1.0));
+        check(
+            far_and_near_points(&v, Dioptres(-7.0)).unwrap(),
+            0.451_01,
+            Some(1.0),
+        );
     }
 
     #[test]

@@ -129,6 +129,16 @@ pub struct TaskPoint {
     position: Point3<f64>,
 }
 
+impl TaskPoint {
+    /// The task's position in head coordinates with the head pitched by
+    /// `head_pitch` (chin up positive, turning about the eyes). Chin up by p
+    /// turns the head's forward axis up, so in head coordinates the world
+    /// turns down by p: a rotation about +x by +p.
+    fn pitched(&self, head_pitch: Degrees) -> Point3<f64> {
+        Rotation3::from_axis_angle(&Vector3::x_axis(), head_pitch.to_radians()) * self.position
+    }
+}
+
 /// Where one eye's line of sight to a task crosses its lens.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct LensCrossing {
@@ -298,13 +308,10 @@ impl Fitting {
         task: &TaskPoint,
         head_pitch: Degrees,
     ) -> Option<LensCrossing> {
-        // Chin up by p turns the head's forward axis up, so in head
-        // coordinates the world turns down by p: a rotation about +x by +p.
-        let pitch = Rotation3::from_axis_angle(&Vector3::x_axis(), head_pitch.to_radians());
-        let target = pitch * task.position;
-        self.crossing_towards(eye, &target)
+        self.crossing_towards(eye, &task.pitched(head_pitch))
     }
 
+    /// Where `eye`'s line of sight to `target` (head frame, millimetres) crosses its lens.
     fn crossing_towards(&self, eye: Eye, target: &Point3<f64>) -> Option<LensCrossing> {
         let f = self.frame(eye);
         let sight = target - f.cor;

@@ -9,10 +9,11 @@
 //!
 //! Constants: Le Grand full theoretical eye as tabulated by Atchison & Smith,
 //! *Optics of the Human Eye* (2000), appendix of schematic eyes (table number
-//! not at hand; values from memory), and as listed for the Gullstrand-Le
-//! Grand eye by the visisipy project (MREYE-LUMC/visisipy,
-//! `models/catalog/gullstrand.py`, after Le Grand & El Hage 1980, *Physiological
-//! Optics*). Relaxed: cornea 7.8 / 6.5 mm radii, 0.55 mm thick, index 1.3771;
+//! not at hand; values from memory). The radii and distances agree with the
+//! Gullstrand-Le Grand geometry listed by the visisipy project
+//! (MREYE-LUMC/visisipy, `models/catalog/gullstrand.py`, after Le Grand &
+//! El Hage 1980, *Physiological Optics*); the refractive indices were not
+//! checked there. Relaxed: cornea 7.8 / 6.5 mm radii, 0.55 mm thick, index 1.3771;
 //! aqueous 1.3374, 3.05 mm; lens 10.2 / -6.0 mm, 4.0 mm thick, index 1.42;
 //! vitreous 1.336, 16.59655 mm. Accommodated: aqueous 2.65 mm, lens 6.0 /
 //! -5.5 mm, 4.5 mm thick, index 1.427, vitreous 16.49655 mm. The tests check

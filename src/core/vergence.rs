@@ -234,9 +234,13 @@ impl CorrectedEye {
     /// plane or at it), meaning every object, however close, needs less.
     /// The result may be positive: that is a virtual object beyond infinity,
     /// which no real task can be.
-    pub fn vergence_for_accommodation(&self, accommodation: f64, local_power: f64) -> Option<f64> {
-        transfer(self.ocular_refraction.0 - accommodation, -self.vertex.0)
-            .map(|at_lens| at_lens - local_power)
+    pub fn vergence_for_accommodation(
+        &self,
+        accommodation: Dioptres,
+        local_power: Dioptres,
+    ) -> Option<Dioptres> {
+        transfer(self.ocular_refraction.0 - accommodation.0, -self.vertex.0)
+            .map(|at_lens| Dioptres(at_lens - local_power.0))
     }
 }
 
@@ -353,7 +357,7 @@ mod tests {
             .accommodation_for_vergence(Dioptres(-2.0), Dioptres(-3.0))
             .unwrap();
         close(
-            eye.vergence_for_accommodation(a.0, -3.0).unwrap(),
+            eye.vergence_for_accommodation(a, Dioptres(-3.0)).unwrap().0,
             -2.0,
             1e-12,
         );

@@ -9,7 +9,7 @@
 //! interval; the pitch nearest upright is chosen.
 
 use super::{Eye, Fitting, LensCrossing, TaskPoint};
-use crate::core::lens::{Bounds, HeightBand, LensDesign, LensError, Zone};
+use crate::core::lens::{Bounds, LensDesign, LensError, Zone};
 use crate::core::units::{Degrees, Dioptres};
 
 /// The largest head pitch searched either way, in degrees. Beyond it no
@@ -18,8 +18,8 @@ use crate::core::units::{Degrees, Dioptres};
 /// classic complaint of multifocal wearers at a high monitor: common practice).
 pub const HEAD_PITCH_LIMIT_DEG: f64 = 45.0;
 
-/// Bisection steps: 2 x 45 degrees halved 50 times is far below any meaning.
-const STEPS: usize = 50;
+/// Bisection steps: 2 x 45 degrees halved 40 times is below 1e-10 degrees.
+const STEPS: usize = 40;
 
 /// A lens height standing in for "the line of sight misses the lens plane",
 /// beyond any real lens, with the sign of the direction it misses towards.
@@ -143,8 +143,9 @@ impl Fitting {
             highest_elevation: f64::MIN,
             lowest_elevation: f64::MAX,
         };
+        let target = task.pitched(Degrees(pitch));
         for eye in [Eye::Right, Eye::Left] {
-            let (y, elevation) = match self.crossing(eye, task, Degrees(pitch)) {
+            let (y, elevation) = match self.crossing_towards(eye, &target) {
                 Some(c) => (c.point.y.0, c.elevation.0),
                 None => {
                     // The sight line misses the plane only at extreme up or
@@ -169,7 +170,7 @@ impl Fitting {
         p.y.atan2(horizontal).to_degrees() - pitch
     }
 
-    /// The head pitch nearest upright at which `eye`s' lines of sight to
+    /// The head pitch nearest upright at which both eyes' lines of sight to
     /// `task` cross `design` where its addition is within `tolerance` of
     /// `wanted`, with the eyes within `comfort`.
     pub fn posture_for(
@@ -186,12 +187,26 @@ impl Fitting {
         if bands.is_empty() {
             return Ok(PostureOutcome::AdditionNotOnLens);
         }
+        // The comfort limits do not depend on the band: find their pitches once.
+        let comfort_pitches =
+            self.pitches_where(task, &|p| p.highest_elevation <= comfort.highest, &|p| {
+                p.lowest_elevation >= comfort.lowest
+            });
         let mut best: Option<(f64, Zone)> = None;
         for band in bands.iter() {
-            if let Some(pitch) = self.pitch_for_band(task, band, comfort) {
-                if best.is_none_or(|(b, _)| pitch.abs() < b.abs()) {
-                    best = Some((pitch, band.zone));
-                }
+            let (top, bottom) = (band.top.0, band.bottom.0);
+            let band_pitches =
+                self.pitches_where(task, &|p| p.highest_y <= top, &|p| p.lowest_y >= bottom);
+            let (Some((a, b)), Some((c, d))) = (comfort_pitches, band_pitches) else {
+                continue;
+            };
+            let (low, high) = (a.max(c), b.min(d));
+            if low > high {
+                continue;
+            }
+            let pitch = 0.0f64.clamp(low, high);
+            if best.is_none_or(|(b, _)| pitch.abs() < b.abs()) {
+                best = Some((pitch, band.zone));
             }
         }
         let Some((pitch, zone)) = best else {
@@ -220,23 +235,19 @@ impl Fitting {
         }
     }
 
-    /// The feasible pitch nearest zero for one height band, if any.
-    fn pitch_for_band(
+    /// The interval of pitches where both `from_here` (a condition that,
+    /// once true, stays true as the pitch rises) and `up_to_here` (one that,
+    /// once false, stays false) hold; `None` when either never holds.
+    fn pitches_where(
         &self,
         task: &TaskPoint,
-        band: &HeightBand,
-        comfort: ComfortRange,
-    ) -> Option<f64> {
-        let (top, bottom) = (band.top.0, band.bottom.0);
-        // Constraints that hold from a threshold pitch upwards...
-        let from = |ok: &dyn Fn(&Probe) -> bool| self.first_pitch_where(task, ok);
-        // ...and those that hold up to a threshold pitch.
-        let until = |ok: &dyn Fn(&Probe) -> bool| self.last_pitch_where(task, ok);
-        let low =
-            from(&|p| p.highest_y <= top)?.max(from(&|p| p.highest_elevation <= comfort.highest)?);
-        let high = until(&|p| p.lowest_y >= bottom)?
-            .min(until(&|p| p.lowest_elevation >= comfort.lowest)?);
-        (low <= high).then(|| 0.0f64.clamp(low, high))
+        from_here: &dyn Fn(&Probe) -> bool,
+        up_to_here: &dyn Fn(&Probe) -> bool,
+    ) -> Option<(f64, f64)> {
+        Some((
+            self.first_pitch_where(task, from_here)?,
+            self.last_pitch_where(task, up_to_here)?,
+        ))
     }
 
     /// The smallest pitch in the searched range where `ok` holds, for a
