@@ -407,8 +407,8 @@ fn addition_band(viewer: &Viewer, l: f64, distance_power: f64, lo_acc: f64, hi_a
     let power_for = |acc: f64, missing: f64| {
         viewer
             .eye()
-            .vergence_for_accommodation(acc, 0.0)
-            .map_or(missing, |at_lens| at_lens - l - distance_power)
+            .vergence_for_accommodation(Dioptres(acc), Dioptres(0.0))
+            .map_or(missing, |at_lens| at_lens.0 - l - distance_power)
             .clamp(-BAND_LIMIT_D, BAND_LIMIT_D)
     };
     Band {
