@@ -3,7 +3,9 @@
 //! the planner. The browser re-plans on every keystroke; the goal is under
 //! 1 ms natively.
 
+use clearspan::plan::context::Context;
 use clearspan::plan::plan;
+use clearspan::plan::solver::solve;
 use clearspan::scenario::*;
 use criterion::{black_box, criterion_main, Criterion};
 
@@ -120,6 +122,19 @@ fn bench(c: &mut Criterion) {
     c.bench_function("plan: 20 tasks, six families, all parameters open", |b| {
         b.iter(|| plan(black_box(&valid)))
     });
+    // The parts, to see where the time goes: the per-scenario preparation,
+    // and the solver alone for each family.
+    c.bench_function("plan part: context", |b| {
+        b.iter(|| Context::new(black_box(&valid)))
+    });
+    let Ok(ctx) = Context::new(&valid) else {
+        return;
+    };
+    for o in &valid.get().options {
+        c.bench_function(&format!("plan part: solve {}", o.label), |b| {
+            b.iter(|| solve(black_box(&o.family), &ctx.tasks, ctx.extent))
+        });
+    }
 }
 
 /// The benchmark group (a module, so its generated function carries documentation).

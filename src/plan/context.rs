@@ -129,14 +129,16 @@ impl TaskPrep {
     /// sampled degrees; `None` beyond the allowed pitches.
     pub fn pitch_for(&self, y: f64) -> Option<f64> {
         let h = &self.heights;
-        let first = -(MAX_CHIN_DOWN_DEG as f64);
-        h.windows(2).enumerate().find_map(|(i, w)| {
-            let (a, b) = (w[0], w[1]);
-            (y <= a && y >= b).then(|| {
-                let t = if a > b { (a - y) / (a - b) } else { 0.0 };
-                first + i as f64 + t
-            })
-        })
+        let (first, last) = (h.first()?, h.last()?);
+        if y > *first || y < *last {
+            return None;
+        }
+        // Heights fall as the pitch rises: the first sample at or below `y`
+        // closes the interval that holds it.
+        let i = h.partition_point(|&v| v > y).max(1);
+        let (a, b) = (*h.get(i - 1)?, *h.get(i)?);
+        let t = if a > b { (a - y) / (a - b) } else { 0.0 };
+        Some((i - 1) as f64 + t - MAX_CHIN_DOWN_DEG as f64)
     }
 }
 

@@ -82,26 +82,34 @@ pub fn zone_angle(design: &LensDesign, y: f64, cor_to_lens: f64) -> Option<f64> 
     }
 }
 
-/// The task seen at lens height `y` with head pitch `pitch`.
+/// The task seen at lens height `y` with head pitch `pitch`, before any head turn.
 fn at(design: &LensDesign, prep: &TaskPrep, y: f64, pitch: f64) -> TaskChoice {
     let addition = design.addition_at(LensPoint::new(prep.x, y)).0;
     let verdict = prep.verdict(addition);
-    let turn = zone_angle(design, y, prep.cor_to_lens)
-        .map_or(0.0, |zone| (prep.width_deg - zone).max(0.0));
-    let value = prep.hours
-        * (verdict_weight(verdict)
-            - POSTURE_WEIGHT_PER_DEG * pitch.abs()
-            - TURN_WEIGHT_PER_DEG * turn);
+    let value = prep.hours * (verdict_weight(verdict) - POSTURE_WEIGHT_PER_DEG * pitch.abs());
     TaskChoice {
         x: prep.x,
         y,
         pitch,
         addition,
         verdict,
-        turn,
+        turn: 0.0,
         value,
         out_of_reach: false,
     }
+}
+
+/// Charges the head turn the chosen point needs to sweep the task. A turn
+/// only counts where the zone serves the task at all.
+fn with_turn(design: &LensDesign, prep: &TaskPrep, mut c: TaskChoice) -> TaskChoice {
+    if c.verdict == Verdict::Blurred || prep.width_deg <= 0.0 {
+        return c;
+    }
+    if let Some(zone) = zone_angle(design, c.y, prep.cor_to_lens) {
+        c.turn = (prep.width_deg - zone).max(0.0);
+        c.value -= prep.hours * TURN_WEIGHT_PER_DEG * c.turn;
+    }
+    c
 }
 
 /// The best way to see one task through `design` within the frame `extent`.
@@ -109,7 +117,7 @@ pub fn assess(design: &LensDesign, prep: &TaskPrep, extent: VerticalExtent) -> T
     let y0 = prep.natural_y();
     let mut best = at(design, prep, y0, 0.0);
     if best.verdict == Verdict::Comfortable {
-        return best;
+        return with_turn(design, prep, best);
     }
     let mut comfort_on_lens = false;
     let mut comfort_reached = false;
@@ -146,7 +154,28 @@ pub fn assess(design: &LensDesign, prep: &TaskPrep, extent: VerticalExtent) -> T
         }
     }
     best.out_of_reach = comfort_on_lens && !comfort_reached;
-    best
+    with_turn(design, prep, best)
+}
+
+/// The objective of `design` for `tasks` if it can exceed `floor`, else
+/// `None` as soon as even comfortable, posture-free remaining tasks could
+/// not lift it above `floor`. `hours_after[i]` is the total of the hours of
+/// the tasks after task `i`. Gives exactly [`score`]'s total when it returns.
+pub fn total_above(
+    design: &LensDesign,
+    tasks: &[TaskPrep],
+    hours_after: &[f64],
+    extent: VerticalExtent,
+    floor: f64,
+) -> Option<f64> {
+    let mut total = -ADDITION_WEIGHT_PER_D * design.max_addition().0;
+    for (prep, rest) in tasks.iter().zip(hours_after) {
+        total += assess(design, prep, extent).value;
+        if total + rest <= floor {
+            return None;
+        }
+    }
+    Some(total)
 }
 
 /// The objective of `design` for `tasks`; when `choices` is given (as long

@@ -9,7 +9,7 @@
 //! allocating.
 
 use super::context::TaskPrep;
-use super::objective::{score, TaskChoice};
+use super::objective::{score, total_above, TaskChoice};
 use super::outcome::{
     ChoiceNote, ParameterKind, ParameterSource, ParameterValue, PenaltyKind, RangeEnd,
     ResolvedParameter, Score, TaskContext, TaskRef,
@@ -224,6 +224,14 @@ pub fn solve(
 ) -> Result<Solution, LensError> {
     let (axes, _) = axes(choice);
     let total: usize = axes.iter().map(|a| a.map_or(1, |a| a.len())).product();
+    // Hours of the tasks after each task, for the bound that stops scoring
+    // a design once it can no longer beat the best so far.
+    let mut hours_after = vec![0.0; tasks.len()];
+    let mut rest = 0.0;
+    for (h, t) in hours_after.iter_mut().zip(tasks).rev() {
+        *h = rest;
+        rest += t.hours;
+    }
     let mut best: Option<Solution> = None;
     let mut first_error = None;
     for n in 0..total {
@@ -236,16 +244,15 @@ pub fn solve(
                 continue;
             }
         };
-        let s = score(&design, tasks, extent, None);
-        if best
+        let floor = best
             .as_ref()
-            .is_none_or(|b| s.total > b.score.total + 1e-12)
-        {
+            .map_or(f64::NEG_INFINITY, |b| b.score.total + 1e-12);
+        if total_above(&design, tasks, &hours_after, extent, floor).is_some_and(|t| t > floor) {
             best = Some(Solution {
                 choice: resolved,
                 design,
                 values,
-                score: s,
+                score: score(&design, tasks, extent, None),
             });
         }
     }
