@@ -3,3 +3,10 @@
 const tag = document.querySelector("script[data-clearspan-js]");
 const { default: init } = await import(tag.dataset.clearspanJs);
 await init({ module_or_path: tag.dataset.clearspanWasm });
+
+// Offline use: a service worker keeps a copy of the app's own files.
+if ("serviceWorker" in navigator) {
+  navigator.serviceWorker.register("sw.js").catch(() => {
+    // Without a service worker the app still runs; it just needs the network to load.
+  });
+}

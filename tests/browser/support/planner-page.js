@@ -1,0 +1,161 @@
+// Page-object helpers for the planner: find fields by label or test id, type
+// into them, read their messages, and read what the outcome panel shows. The
+// journeys speak in these terms so a change of markup is fixed in one place.
+import { watchedPage } from "./harness.js";
+
+/** The viewports the app is laid out for. */
+export const VIEWPORTS = {
+  desktop: { width: 1366, height: 900 },
+  tabletLandscape: { width: 1024, height: 768 },
+  tabletPortrait: { width: 768, height: 1024 },
+};
+
+/** The storage key prefix of stored scenarios. */
+export const SCENARIO_PREFIX = "clearspan/scenario/";
+
+/**
+ * Opens a fresh browser context (empty storage unless `storageState` is
+ * given) with a watched page and a planner object around it.
+ */
+export async function freshPlanner(browser, origin, { viewport = VIEWPORTS.desktop, initScript } = {}) {
+  const context = await browser.newContext({ viewport, acceptDownloads: true });
+  if (initScript) await context.addInitScript(initScript);
+  const page = await watchedPage(context, origin);
+  return { context, page, planner: new PlannerPage(page, origin) };
+}
+
+export class PlannerPage {
+  constructor(page, origin) {
+    this.page = page;
+    this.origin = origin;
+  }
+
+  /** Loads the app and waits until the workspace and a plan are drawn. */
+  async open() {
+    await this.page.goto(this.origin);
+    await this.ready();
+  }
+
+  /** Reloads the page and waits for the app again. */
+  async reload() {
+    await this.page.reload();
+    await this.ready();
+  }
+
+  async ready() {
+    await this.page.getByTestId("workspace").waitFor();
+    await this.page.getByTestId("scenario-title").waitFor();
+  }
+
+  byTestId(id) {
+    return this.page.getByTestId(id);
+  }
+
+  /** The input labelled `label` (exact words), optionally inside `within`. */
+  fieldByLabel(label, within = this.page) {
+    return within.getByLabel(label, { exact: true });
+  }
+
+  /** Types `text` into the field with test id `testId` (one input event per fill). */
+  async setNumber(testId, text) {
+    await this.byTestId(testId).fill(text);
+  }
+
+  /** The text the field with test id `testId` currently shows. */
+  async valueOf(testId) {
+    return this.byTestId(testId).inputValue();
+  }
+
+  /** The message shown for a field: the element its aria-describedby names. */
+  async messageFor(testId) {
+    const field = this.byTestId(testId);
+    const id = await field.getAttribute("aria-describedby");
+    if (!id) throw new Error(`field ${testId} has no aria-describedby`);
+    return (await this.page.locator(`[id="${id}"]`).textContent()).trim();
+  }
+
+  /** The unit written after the field with test id `testId`. */
+  async unitOf(testId) {
+    return (await this.byTestId(testId).locator("xpath=following-sibling::span[@class='unit']").textContent()).trim();
+  }
+
+  async title() {
+    return (await this.byTestId("scenario-title").textContent()).trim();
+  }
+
+  async taskCount() {
+    return this.byTestId("task-card").count();
+  }
+
+  /** Row headers of the comparison table ("1. Screen", …). */
+  async comparisonRows() {
+    const heads = this.byTestId("comparison").locator("tbody tr th[scope=row] button");
+    return (await heads.allTextContents()).map((t) => t.trim());
+  }
+
+  /** The verdict words of every cell of the comparison table, row by row. */
+  async verdictCells() {
+    return (await this.byTestId("comparison").locator("tbody td.verdict .words").allTextContents()).map((t) =>
+      t.trim(),
+    );
+  }
+
+  /** The "Tasks planned for" lines of the order sheet. */
+  async orderSheetTasks() {
+    return (await this.byTestId("order-sheet").locator("ol.plain li").allTextContents()).map((t) => t.trim());
+  }
+
+  /** The text of every notice shown. */
+  async notices() {
+    return (await this.byTestId("notice").locator("p").allTextContents()).map((t) => t.trim());
+  }
+
+  /** The names of the scenarios on the shelf, in shelf order. */
+  async shelfNames() {
+    return (await this.byTestId("shelf-list").locator(".shelf-name").allTextContents()).map((t) => t.trim());
+  }
+
+  async saveState() {
+    return (await this.byTestId("save-state").textContent()).trim();
+  }
+
+  /** Every key and value in local storage of the app's origin. */
+  async storage() {
+    return this.page.evaluate(() => {
+      const out = {};
+      for (let i = 0; i < localStorage.length; i += 1) {
+        const key = localStorage.key(i);
+        out[key] = localStorage.getItem(key);
+      }
+      return out;
+    });
+  }
+
+  /** The stored scenario entries, parsed, keyed by storage key. */
+  async storedScenarios() {
+    const all = await this.storage();
+    const out = {};
+    for (const [key, value] of Object.entries(all)) {
+      if (key.startsWith(SCENARIO_PREFIX)) out[key] = value;
+    }
+    return out;
+  }
+
+  /** Opens the shelf entry whose name is exactly `name`. */
+  async openFromShelf(name) {
+    await this.byTestId("shelf-list")
+      .locator(".shelf-item")
+      .filter({ has: this.page.locator(".shelf-name", { hasText: name }) })
+      .first()
+      .click();
+    await this.page.waitForFunction(
+      (wanted) => document.querySelector('[data-testid="scenario-title"]')?.textContent.trim() === wanted,
+      name,
+    );
+  }
+
+  /** Offers `text` as the file picked in the import field. */
+  async importFile(name, text, mimeType = "application/json") {
+    await this.byTestId("import-file").setInputFiles({ name, mimeType, buffer: Buffer.from(text, "utf8") });
+  }
+}
