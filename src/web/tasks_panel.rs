@@ -226,7 +226,25 @@ pub fn TasksPanel() -> impl IntoView {
                 let name = format!("Task {}", s.tasks.len() + 1);
                 s.tasks.push(Task::desk_screen(&name));
             }
-        })
+        });
+        // Put the cursor in the new task's name once it is drawn.
+        let last = state
+            .scenario
+            .with_untracked(|s| s.tasks.len())
+            .saturating_sub(1);
+        request_animation_frame(move || {
+            let field = web_sys::window()
+                .and_then(|w| w.document())
+                .and_then(|d| {
+                    d.query_selector(&format!("[data-testid=\"task-{last}-name\"]"))
+                        .ok()
+                        .flatten()
+                })
+                .and_then(|e| wasm_bindgen::JsCast::dyn_into::<web_sys::HtmlElement>(e).ok());
+            if let Some(field) = field {
+                let _ = field.focus();
+            }
+        });
     };
     let tasks_problem = move || state.problem_at("tasks").map(|p| p.to_string());
     view! {
