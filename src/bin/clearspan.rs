@@ -5,63 +5,35 @@
 //! with the file are reported with the field they concern, and the exit
 //! status is non-zero.
 
+use clearspan::library::{parse_import, parse_limited};
 use clearspan::plan::{plan, text, Plan};
 use clearspan::scenario::{validate, Scenario};
-use serde::Deserialize;
 use std::process::ExitCode;
 
 const USAGE: &str = "usage: clearspan plan FILE.json [--json]";
 
-/// The export envelope's format name and the versions this reader knows.
-const EXPORT_FORMAT: &str = "clearspan-scenario-export";
-const KNOWN_VERSIONS: [u64; 1] = [1];
-
-/// One scenario of an export file (the other fields are bookkeeping).
-#[derive(Deserialize)]
-struct ExportItem {
-    scenario: serde_json::Value,
-}
-
-/// A file's scenarios, each with the path prefix its fields are reported under.
+/// A file's scenarios, each with the path prefix its fields are reported
+/// under. Files with a format envelope go through the library's import
+/// reader (size and nesting caps, version migration, validation); a bare
+/// scenario object, handy for hand-written files, is read directly.
 fn scenarios_of(text: &str) -> Result<Vec<(String, Scenario)>, String> {
-    let value: serde_json::Value =
-        serde_json::from_str(text).map_err(|e| format!("not valid JSON: {e}"))?;
-    let Some(format) = value.get("format") else {
+    let value = parse_limited(text).map_err(|e| e.to_string())?;
+    if value.get("format").is_none() {
         let s: Scenario =
             serde_json::from_value(value).map_err(|e| format!("not a clearspan scenario: {e}"))?;
         return Ok(vec![(String::new(), s)]);
-    };
-    if format.as_str() != Some(EXPORT_FORMAT) {
-        return Err(format!(
-            "format: {format} is not a clearspan export file (expected \"{EXPORT_FORMAT}\")"
-        ));
     }
-    let version = value.get("version").and_then(|v| v.as_u64());
-    if !version.is_some_and(|v| KNOWN_VERSIONS.contains(&v)) {
-        return Err(format!(
-            "version: {} is not a version this program reads (it reads {KNOWN_VERSIONS:?})",
-            value
-                .get("version")
-                .map_or("missing".to_string(), |v| v.to_string())
-        ));
+    let batch = parse_import(text).map_err(|e| e.to_string())?;
+    if !batch.rejected.is_empty() {
+        let lines: Vec<String> = batch.rejected.iter().map(|r| format!("  {r}")).collect();
+        return Err(format!("the file has problems:\n{}", lines.join("\n")));
     }
-    let items: Vec<ExportItem> = value
-        .get("scenarios")
-        .cloned()
-        .map(serde_json::from_value)
-        .transpose()
-        .map_err(|e| format!("scenarios: {e}"))?
-        .ok_or("scenarios: missing (an export file lists its scenarios there)")?;
-    items
+    Ok(batch
+        .accepted
         .into_iter()
         .enumerate()
-        .map(|(i, item)| {
-            let prefix = format!("scenarios[{i}].scenario.");
-            serde_json::from_value(item.scenario)
-                .map(|s| (prefix.clone(), s))
-                .map_err(|e| format!("{prefix}: {e}"))
-        })
-        .collect()
+        .map(|(i, item)| (format!("scenarios[{i}].scenario."), item.scenario))
+        .collect())
 }
 
 fn run(args: &[String]) -> Result<String, String> {

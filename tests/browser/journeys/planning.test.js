@@ -1,0 +1,233 @@
+// Planning journeys: a user builds a scenario, reads the plan, switches
+// units, makes and corrects mistakes, changes the working day, prints the
+// plan sheet, and uses the app on a desktop and on tablets.
+import { test, before, after } from "node:test";
+import assert from "node:assert/strict";
+import { readFile, mkdir } from "node:fs/promises";
+import { join } from "node:path";
+import { serveDist, launchBrowser, screenshot, SHOTS } from "../support/harness.js";
+import { freshPlanner, VIEWPORTS } from "../support/planner-page.js";
+
+const VERDICT_WORDS = new Set(["comfortable", "in focus, tiring", "blurred"]);
+const DISTANCE = "tasks-0--distance_m";
+
+let server;
+let browser;
+
+before(async () => {
+  server = await serveDist();
+  browser = await launchBrowser();
+});
+
+after(async () => {
+  await browser?.close();
+  await server?.close();
+});
+
+/** A fresh context with the demo loaded, then a new untitled scenario opened. */
+async function newScenario(options) {
+  const session = await freshPlanner(browser, server.url, options);
+  await session.planner.open();
+  await session.planner.byTestId("new-scenario").click();
+  await session.page.waitForFunction(
+    () => document.querySelector('[data-testid="scenario-title"]')?.textContent.trim() === "Untitled scenario",
+  );
+  return session;
+}
+
+test("a new scenario with an age and a monitor distance gets a plan", async () => {
+  const { context, page, planner } = await newScenario();
+  assert.equal(await planner.taskCount(), 1, "a new scenario starts with one task");
+
+  await planner.fieldByLabel("Age").fill("52");
+  await planner.byTestId("task-0-name").fill("Monitor");
+  await planner.setNumber(DISTANCE, "70");
+
+  await planner.byTestId("recommendation").waitFor();
+  await assert.doesNotReject(
+    page.waitForFunction(() => document.querySelector('[data-testid="plan"]')?.textContent.includes("x 52 years")),
+    "the plan's amplitude line follows the age typed",
+  );
+  const recommendation = await planner.byTestId("recommendation").textContent();
+  assert.match(recommendation, /^Recommended: /);
+  assert.deepEqual(await planner.comparisonRows(), ["1. Monitor"]);
+  const cells = await planner.verdictCells();
+  assert.equal(cells.length, 3, "one verdict per starter lens option for the one task");
+  for (const words of cells) assert.ok(VERDICT_WORDS.has(words), `verdict words "${words}"`);
+  const sheet = await planner.orderSheetTasks();
+  assert.equal(sheet.length, 1);
+  assert.match(sheet[0], /^1\. Monitor: 70 cm at -15°/);
+  assert.match(await planner.byTestId("cautions").textContent(), /planning aid/i);
+  assert.equal(await page.getByTestId("stale").count(), 0);
+
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
+test("switching units converts the task distance and back", async () => {
+  const { context, page, planner } = await newScenario();
+  await planner.setNumber(DISTANCE, "65");
+  assert.equal(await planner.unitOf(DISTANCE), "cm");
+
+  await planner.byTestId("unit-toggle").click();
+  await page.waitForFunction(() => document.querySelector('[data-testid="unit-toggle"]')?.textContent === "Show centimetres");
+  const inches = await planner.valueOf(DISTANCE);
+  // 65 cm / 2.54 cm per inch (exact since 1959) = 25.59 in.
+  assert.equal(Number(inches).toFixed(1), "25.6", `65 cm shown as "${inches}" in`);
+  assert.equal(await planner.unitOf(DISTANCE), "in");
+  assert.match((await planner.orderSheetTasks())[0], /: 26 in at/);
+
+  await planner.byTestId("unit-toggle").click();
+  await page.waitForFunction(() => document.querySelector('[data-testid="unit-toggle"]')?.textContent === "Show inches");
+  assert.equal(await planner.valueOf(DISTANCE), "65");
+  assert.equal(await planner.unitOf(DISTANCE), "cm");
+  assert.match((await planner.orderSheetTasks())[0], /: 65 cm at/);
+
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
+test("an invalid distance is explained, the last plan stays marked stale, and fixing it clears the mark", async () => {
+  const { context, page, planner } = await newScenario();
+  await planner.setNumber(DISTANCE, "65");
+  await planner.byTestId("recommendation").waitFor();
+  const stale = page.getByTestId("stale");
+  assert.equal(await stale.count(), 0);
+
+  await planner.setNumber(DISTANCE, "-3");
+  await stale.waitFor();
+  assert.equal(await planner.messageFor(DISTANCE), "allowed: 10 to 100000 cm");
+  assert.equal(await planner.byTestId(DISTANCE).getAttribute("aria-invalid"), "true");
+  assert.ok(await planner.byTestId("recommendation").isVisible(), "the previous recommendation stays");
+  assert.ok(await planner.byTestId("comparison").isVisible(), "the previous comparison stays");
+  assert.match((await planner.orderSheetTasks())[0], /: 65 cm at/, "the plan on screen is still the one for 65 cm");
+
+  await planner.setNumber(DISTANCE, "abc");
+  assert.equal(await planner.messageFor(DISTANCE), '"abc" is not a number');
+  assert.equal(await planner.valueOf(DISTANCE), "abc", "the user's text is kept for correction");
+  assert.ok(await stale.isVisible(), "still stale: the scenario has no valid distance yet");
+  assert.ok(await planner.byTestId("recommendation").isVisible());
+
+  await planner.setNumber(DISTANCE, "80");
+  await stale.waitFor({ state: "detached" });
+  assert.equal(await planner.messageFor(DISTANCE), "");
+  assert.equal(await planner.byTestId(DISTANCE).getAttribute("aria-invalid"), "false");
+  assert.match((await planner.orderSheetTasks())[0], /: 80 cm at/);
+
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
+test("adding and removing tasks updates the cards and the comparison rows", async () => {
+  const { context, page, planner } = await newScenario();
+  await planner.byTestId("add-task").click();
+  await page.waitForFunction(() => document.querySelectorAll('[data-testid="task-card"]').length === 2);
+  assert.equal(await planner.valueOf("task-1-name"), "Task 2");
+  await planner.byTestId("task-1-name").fill("Phone");
+  await planner.setNumber("tasks-1--distance_m", "35");
+  await page.waitForFunction(
+    () => document.querySelectorAll('[data-testid="comparison"] tbody tr').length === 2,
+  );
+  assert.deepEqual(await planner.comparisonRows(), ["1. Screen", "2. Phone"]);
+  assert.equal((await planner.verdictCells()).length, 2 * 3);
+
+  await page.getByRole("button", { name: "Remove task Screen" }).click();
+  await page.waitForFunction(() => document.querySelectorAll('[data-testid="task-card"]').length === 1);
+  assert.equal(await planner.valueOf("task-0-name"), "Phone", "the remaining card is the phone task");
+  assert.equal(await planner.valueOf(DISTANCE), "35", "and shows the phone's distance");
+  await page.waitForFunction(
+    () => document.querySelectorAll('[data-testid="comparison"] tbody tr').length === 1,
+  );
+  assert.deepEqual(await planner.comparisonRows(), ["1. Phone"]);
+  assert.match((await planner.orderSheetTasks())[0], /^1\. Phone: 35 cm/);
+  assert.equal(await page.getByRole("button", { name: "Remove task Screen" }).count(), 0);
+
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
+test("the print view shows the plan sheet without the inputs", async () => {
+  const { context, page, planner } = await freshPlanner(browser, server.url);
+  await planner.open();
+  await planner.byTestId("recommendation").waitFor();
+  await page.emulateMedia({ media: "print" });
+
+  const hidden = ["wearer-age_years", DISTANCE, "shelf", "unit-toggle", "add-task"];
+  for (const id of hidden) {
+    assert.equal(await planner.byTestId(id).isVisible(), false, `${id} is hidden in print`);
+  }
+  for (const id of ["order-sheet", "cautions", "recommendation", "comparison"]) {
+    assert.ok(await planner.byTestId(id).isVisible(), `${id} is printed`);
+  }
+  const heading = page.locator(".order-sheet .print-only");
+  assert.ok(await heading.isVisible(), "the sheet names itself when printed");
+  assert.equal((await heading.textContent()).trim(), `clearspan plan sheet: ${await planner.title()}`);
+  assert.equal(await page.getByRole("button", { name: "Print plan sheet" }).isVisible(), false);
+  await screenshot(page, "print-view");
+
+  await mkdir(SHOTS, { recursive: true });
+  const pdfPath = join(SHOTS, "plan-sheet.pdf");
+  await page.pdf({ path: pdfPath, format: "A4", printBackground: true });
+  const pdf = await readFile(pdfPath);
+  assert.equal(pdf.subarray(0, 5).toString("latin1"), "%PDF-");
+  const pages = (pdf.toString("latin1").match(/\/Type\s*\/Page[^s]/g) ?? []).length;
+  console.log(`plan-sheet.pdf: ${pdf.length} bytes, ${pages} page(s)`);
+  assert.ok(pages >= 1);
+
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
+/** Controls a user touches, by what they are and how big they are drawn. */
+function controlSizes(page) {
+  return page.evaluate(() => {
+    const controls = document.querySelectorAll(
+      'button, input, select, textarea, [role="button"], label.button',
+    );
+    const out = [];
+    for (const el of controls) {
+      const box = el.getBoundingClientRect();
+      const style = getComputedStyle(el);
+      // Not drawn, or the 1 px visually-hidden pattern whose label is the control.
+      if (box.width <= 1 || box.height <= 1 || style.visibility === "hidden") continue;
+      const name =
+        el.getAttribute("aria-label") ||
+        el.getAttribute("data-testid") ||
+        (el.labels?.[0]?.textContent ?? "") ||
+        el.textContent.trim().slice(0, 40);
+      out.push({
+        what: `${el.tagName.toLowerCase()}${el.type ? `[${el.type}]` : ""} "${name}"`,
+        height: Math.round(box.height * 10) / 10,
+      });
+    }
+    return out;
+  });
+}
+
+for (const [name, file] of [
+  ["desktop", "desktop"],
+  ["tabletLandscape", "tablet-landscape"],
+  ["tabletPortrait", "tablet-portrait"],
+]) {
+  test(`layout at ${VIEWPORTS[name].width}x${VIEWPORTS[name].height}: no sideways scrolling, touch-sized controls`, async () => {
+    const { context, page, planner } = await freshPlanner(browser, server.url, { viewport: VIEWPORTS[name] });
+    await planner.open();
+    await planner.byTestId("range-chart").waitFor();
+    await screenshot(page, file);
+
+    const { scrollWidth, innerWidth } = await page.evaluate(() => ({
+      scrollWidth: document.documentElement.scrollWidth,
+      innerWidth: window.innerWidth,
+    }));
+    assert.ok(scrollWidth <= innerWidth + 1, `document is ${scrollWidth} px wide in a ${innerWidth} px window`);
+
+    const small = (await controlSizes(page)).filter((c) => c.height < 44);
+    const grouped = new Map();
+    for (const c of small) grouped.set(`${c.what} (${c.height} px)`, (grouped.get(`${c.what} (${c.height} px)`) ?? 0) + 1);
+    const report = [...grouped].map(([what, n]) => (n > 1 ? `${what} x${n}` : what));
+    assert.deepEqual(report, [], `controls under 44 px tall:\n  ${report.join("\n  ")}`);
+
+    assert.deepEqual(page.problems(), []);
+    await context.close();
+  });
+}

@@ -1,0 +1,326 @@
+// Storage journeys: work survives a reload, damaged or foreign stored items
+// are set aside without losing the good ones, bad import files are refused
+// item by item, a full storage keeps the work in the tab and offers an
+// export, two tabs follow each other, delete can be undone, and erasing
+// removes everything the app stored (and nothing else).
+import { test, before, after } from "node:test";
+import assert from "node:assert/strict";
+import { readFile } from "node:fs/promises";
+import { join, resolve } from "node:path";
+import { serveDist, launchBrowser, watchedPage } from "../support/harness.js";
+import { freshPlanner, PlannerPage, SCENARIO_PREFIX } from "../support/planner-page.js";
+
+const ROOT = resolve(import.meta.dirname, "../../..");
+const OFFICE_DEMO = "Demo — fictional office worker with two monitors";
+const AGE = "wearer-age_years";
+
+let server;
+let browser;
+
+before(async () => {
+  server = await serveDist();
+  browser = await launchBrowser();
+});
+
+after(async () => {
+  await browser?.close();
+  await server?.close();
+});
+
+/** Waits until the save state reads `text` exactly (or starts with it, for a prefix ending in ':'). */
+async function waitForSaveState(page, text) {
+  await page.waitForFunction((wanted) => {
+    const shown = document.querySelector('[data-testid="save-state"]')?.textContent.trim() ?? "";
+    return wanted.endsWith(":") ? shown.startsWith(wanted) : shown === wanted;
+  }, text);
+}
+
+/** The stored entry (parsed) whose scenario is named `name`, with its key. */
+async function storedByName(planner, name) {
+  for (const [key, raw] of Object.entries(await planner.storedScenarios())) {
+    const entry = JSON.parse(raw);
+    if (entry.scenario?.name === name) return { key, entry };
+  }
+  return undefined;
+}
+
+test("a reload keeps the edited value and the open scenario", async () => {
+  const { context, page, planner } = await freshPlanner(browser, server.url);
+  await planner.open();
+  const electronics = "Demo — fictional electronics bench technician";
+  await planner.openFromShelf(electronics);
+  await planner.setNumber(AGE, "53");
+  await waitForSaveState(page, "Saved on this device");
+  const stored = await storedByName(planner, electronics);
+  assert.equal(stored.entry.format, "clearspan-scenario-entry");
+  assert.equal(stored.entry.version, 1);
+  assert.equal(stored.entry.scenario.wearer.age_years, 53);
+
+  await planner.reload();
+  assert.equal(await planner.title(), electronics);
+  assert.equal(await planner.valueOf(AGE), "53");
+  await planner.byTestId("recommendation").waitFor();
+
+  // A second edit in the reloaded page is stored under the same key, not as a copy.
+  await planner.setNumber(AGE, "54");
+  await waitForSaveState(page, "Saved on this device");
+  const again = await storedByName(planner, electronics);
+  assert.equal(again.key, stored.key);
+  assert.equal(again.entry.scenario.wearer.age_years, 54);
+  assert.equal(Object.keys(await planner.storedScenarios()).length, 5);
+
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
+test(
+  "a reload right after the first visit keeps the demo that was open",
+  {
+    todo:
+      "app bug: on a first visit the opened demo is not remembered in clearspan/settings, " +
+      "so a reload opens the first scenario of the shelf (electrician) instead",
+  },
+  async () => {
+    const { context, page, planner } = await freshPlanner(browser, server.url);
+    await planner.open();
+    assert.equal(await planner.title(), OFFICE_DEMO);
+    await planner.reload();
+    assert.equal(await planner.title(), OFFICE_DEMO);
+    assert.deepEqual(page.problems(), []);
+    await context.close();
+  },
+);
+
+test("damaged and foreign stored items are set aside, the good scenarios still load", async () => {
+  const { context, page, planner } = await freshPlanner(browser, server.url);
+  await planner.open();
+  const demos = await planner.shelfNames();
+  assert.equal(demos.length, 5);
+  const damaged = { key: `${SCENARIO_PREFIX}zz-damaged-1`, raw: '{"format":"clearspan-scenario-entry","version":1,' };
+  const foreign = {
+    key: `${SCENARIO_PREFIX}zz-foreign-2`,
+    raw: JSON.stringify({ format: "another-program-settings", colour: "teal", zoom: 2 }),
+  };
+  await page.evaluate((items) => {
+    for (const { key, raw } of items) localStorage.setItem(key, raw);
+  }, [damaged, foreign]);
+
+  await planner.reload();
+  assert.deepEqual(await planner.shelfNames(), demos, "every good scenario loads");
+  await planner.byTestId("recommendation").waitFor();
+
+  const notices = await planner.notices();
+  for (const { key } of [damaged, foreign]) {
+    assert.ok(
+      notices.some((n) => n.includes(key) && n.includes("could not be opened")),
+      `a notice names ${key}: ${JSON.stringify(notices)}`,
+    );
+  }
+  const setAside = planner.byTestId("set-aside").locator("li");
+  assert.equal(await setAside.count(), 2);
+  for (const { key } of [damaged, foreign]) {
+    const item = setAside.filter({ hasText: key });
+    assert.equal(await item.count(), 1, `${key} is listed under "Set aside"`);
+    assert.ok(await item.getByRole("button", { name: "Download its text" }).isVisible());
+  }
+
+  const [download] = await Promise.all([
+    page.waitForEvent("download"),
+    setAside.filter({ hasText: damaged.key }).getByRole("button", { name: "Download its text" }).click(),
+  ]);
+  assert.equal(download.suggestedFilename(), "clearspan-recovered-zz-damaged-1.json");
+  assert.equal(await readFile(await download.path(), "utf8"), damaged.raw, "the text comes back unchanged");
+
+  const storage = await planner.storage();
+  assert.equal(storage[damaged.key], damaged.raw, "the damaged item is kept, not overwritten");
+  assert.equal(storage[foreign.key], foreign.raw, "the foreign item is kept, not overwritten");
+
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
+test("a bad import file is refused with a notice; a mixed file imports only the good scenario", async () => {
+  const { context, page, planner } = await freshPlanner(browser, server.url);
+  await planner.open();
+  const before = await planner.shelfNames();
+
+  await planner.importFile("notes.json", "these are my notes, not a scenario file");
+  await page.waitForFunction(() =>
+    [...document.querySelectorAll('[data-testid="notice"] p')].some((p) => p.textContent.startsWith("Nothing was imported")),
+  );
+  const refusal = (await planner.notices()).find((n) => n.startsWith("Nothing was imported"));
+  assert.match(refusal, /not valid JSON/);
+  assert.deepEqual(await planner.shelfNames(), before);
+  assert.equal(Object.keys(await planner.storedScenarios()).length, 5);
+
+  const demo = JSON.parse(await readFile(join(ROOT, "scenarios", "office-two-monitors.json"), "utf8"));
+  const good = structuredClone(demo.scenarios[0]);
+  good.scenario.name = "Fictional import: good";
+  const bad = structuredClone(demo.scenarios[0]);
+  bad.scenario.name = "Fictional import: bad";
+  bad.scenario.tasks[0].distance_m = -1;
+  const file = { ...demo, scenarios: [good, bad] };
+  await planner.importFile("mixed.json", JSON.stringify(file, null, 2));
+
+  await page.waitForFunction(
+    () => document.querySelector('[data-testid="scenario-title"]')?.textContent.trim() === "Fictional import: good",
+  );
+  const notices = await planner.notices();
+  assert.ok(notices.includes('Imported "Fictional import: good"'), JSON.stringify(notices));
+  const rejected = notices.find((n) => n.startsWith("Scenario 2"));
+  assert.ok(rejected, `a notice for the rejected scenario: ${JSON.stringify(notices)}`);
+  assert.match(rejected, /"Fictional import: bad"/);
+  assert.match(rejected, /was not imported/);
+  assert.match(rejected, /scenarios\[1\]\.scenario\.tasks\[0\]\.distance_m/);
+
+  const names = await planner.shelfNames();
+  assert.equal(names.length, before.length + 1);
+  assert.ok(names.includes("Fictional import: good"));
+  assert.ok(!names.includes("Fictional import: bad"));
+  assert.ok(await storedByName(planner, "Fictional import: good"), "the good scenario is stored");
+  assert.equal(await storedByName(planner, "Fictional import: bad"), undefined);
+
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
+// Wraps setItem so the test can make storage full once the app has started.
+function storageThatFills() {
+  const original = Storage.prototype.setItem;
+  let full = false;
+  window.__fillStorageForTest = () => {
+    full = true;
+  };
+  Storage.prototype.setItem = function setItem(key, value) {
+    if (full) throw new DOMException("full", "QuotaExceededError");
+    return original.call(this, key, value);
+  };
+}
+
+test("full storage keeps the edit in the tab and offers an export", async () => {
+  const { context, page, planner } = await freshPlanner(browser, server.url, { initScript: storageThatFills });
+  await planner.open();
+  await planner.byTestId("recommendation").waitFor();
+  const title = await planner.title();
+  const storedAge = (await storedByName(planner, title)).entry.scenario.wearer.age_years;
+  await page.evaluate(() => window.__fillStorageForTest());
+
+  await planner.setNumber(AGE, "58");
+  await waitForSaveState(page, "Kept in this tab only:");
+  assert.match(await planner.saveState(), /storage for this app is full/);
+  const notice = planner.byTestId("notice").filter({ hasText: "full" });
+  assert.equal(await notice.count(), 1, JSON.stringify(await planner.notices()));
+  const exportButton = notice.getByRole("button", { name: "Export all scenarios" });
+  assert.ok(await exportButton.isVisible());
+  assert.equal(await planner.valueOf(AGE), "58", "the edited value stays on screen");
+  await page.waitForFunction(() => document.querySelector('[data-testid="plan"]')?.textContent.includes("x 58 years"));
+  assert.equal(
+    (await storedByName(planner, title)).entry.scenario.wearer.age_years,
+    storedAge,
+    "storage still holds the last value it accepted",
+  );
+
+  const [download] = await Promise.all([page.waitForEvent("download"), exportButton.click()]);
+  const exported = JSON.parse(await readFile(await download.path(), "utf8"));
+  assert.equal(exported.format, "clearspan-scenario-export");
+  const mine = exported.scenarios.find((s) => s.scenario.name === title);
+  assert.equal(mine.scenario.wearer.age_years, 58, "the export carries the edit storage refused");
+  assert.equal(exported.scenarios.length, 5);
+
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
+test("an edit in one tab shows in the other", async () => {
+  const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+  const first = new PlannerPage(await watchedPage(context, server.url), server.url);
+  await first.open();
+  const second = new PlannerPage(await watchedPage(context, server.url), server.url);
+  await second.open();
+  await second.openFromShelf(OFFICE_DEMO);
+  assert.equal(await first.title(), OFFICE_DEMO);
+  assert.notEqual(await first.valueOf(AGE), "61");
+
+  await first.setNumber(AGE, "61");
+  await waitForSaveState(first.page, "Saved on this device");
+  await second.page.waitForFunction(
+    (id) => document.querySelector(`[data-testid="${id}"]`)?.value === "61",
+    AGE,
+  );
+  await second.page.waitForFunction(() =>
+    document.querySelector('[data-testid="plan"]')?.textContent.includes("x 61 years"),
+  );
+
+  // And back: the second tab's edit builds on the revision it received.
+  await second.setNumber("tasks-0--distance_m", "72");
+  await waitForSaveState(second.page, "Saved on this device");
+  await first.page.waitForFunction(
+    () => document.querySelector('[data-testid="tasks-0--distance_m"]')?.value === "72",
+  );
+  assert.equal(await first.byTestId("conflict").count(), 0);
+  assert.equal(await second.byTestId("conflict").count(), 0);
+  assert.equal(await first.saveState(), "Saved on this device");
+
+  assert.deepEqual(first.page.problems(), []);
+  assert.deepEqual(second.page.problems(), []);
+  await context.close();
+});
+
+test("a deleted scenario comes back with Undo", async () => {
+  const { context, page, planner } = await freshPlanner(browser, server.url);
+  await planner.open();
+  const names = await planner.shelfNames();
+  const { key } = await storedByName(planner, OFFICE_DEMO);
+
+  await planner.byTestId("delete-scenario").click();
+  await page.waitForFunction(
+    (name) => document.querySelector('[data-testid="scenario-title"]')?.textContent.trim() !== name,
+    OFFICE_DEMO,
+  );
+  assert.deepEqual(await planner.shelfNames(), names.filter((n) => n !== OFFICE_DEMO));
+  assert.equal((await planner.storage())[key], undefined, "the entry left storage");
+  const notice = planner.byTestId("notice").filter({ hasText: `Deleted "${OFFICE_DEMO}".` });
+  assert.equal(await notice.count(), 1);
+
+  await notice.getByRole("button", { name: "Undo" }).click();
+  await page.waitForFunction(
+    (name) => document.querySelector('[data-testid="scenario-title"]')?.textContent.trim() === name,
+    OFFICE_DEMO,
+  );
+  assert.deepEqual(await planner.shelfNames(), names);
+  assert.ok(await storedByName(planner, OFFICE_DEMO), "the entry is stored again");
+  await planner.byTestId("recommendation").waitFor();
+  assert.equal(await planner.byTestId("notice").filter({ hasText: "Deleted" }).count(), 0);
+
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
+test("erasing all local data removes every key of the app and nothing else", async () => {
+  const { context, page, planner } = await freshPlanner(browser, server.url);
+  await planner.open();
+  await planner.openFromShelf(OFFICE_DEMO);
+  await page.evaluate(() => localStorage.setItem("another-app/preferences", "{\"dark\":true}"));
+  const ownKeys = Object.keys(await planner.storage()).filter((k) => k.startsWith("clearspan/"));
+  assert.ok(ownKeys.includes("clearspan/settings"));
+  assert.equal(ownKeys.filter((k) => k.startsWith(SCENARIO_PREFIX)).length, 5);
+
+  await page.getByRole("button", { name: "Erase all local data…" }).click();
+  assert.equal(Object.keys(await planner.storedScenarios()).length, 5, "nothing is erased before confirming");
+  await planner.byTestId("confirm-erase").click();
+  await page.waitForFunction(() =>
+    [...document.querySelectorAll('[data-testid="notice"] p')].some((p) => p.textContent.startsWith("Erased all")),
+  );
+
+  const left = await planner.storage();
+  assert.deepEqual(Object.keys(left).filter((k) => k.startsWith("clearspan/")), []);
+  assert.equal(left["another-app/preferences"], "{\"dark\":true}", "another app's data is untouched");
+  assert.ok(
+    (await planner.notices()).includes(`Erased all of clearspan's data on this device (${ownKeys.length} stored items).`),
+  );
+  assert.deepEqual(await planner.shelfNames(), []);
+  assert.equal(await planner.title(), "Untitled scenario");
+
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
