@@ -123,6 +123,67 @@ fn position_fields(i: usize) -> impl IntoView {
     }
 }
 
+/// One plain number of a task: its label, field name, how it is shown, and
+/// how to read and write it.
+struct TaskNumber {
+    label: &'static str,
+    field: &'static str,
+    shown: Shown,
+    read: fn(&Task) -> f64,
+    write: fn(&mut Task, f64),
+}
+
+/// The plain numbers of a task card, distance first.
+const TASK_NUMBERS: [TaskNumber; 5] = [
+    TaskNumber {
+        label: "Distance",
+        field: "distance_m",
+        shown: Shown::Length,
+        read: |t| t.distance_m,
+        write: |t, v| t.distance_m = v,
+    },
+    TaskNumber {
+        label: "Sideways (right +)",
+        field: "sideways_m",
+        shown: Shown::Length,
+        read: |t| t.sideways_m,
+        write: |t, v| t.sideways_m = v,
+    },
+    TaskNumber {
+        label: "Width of task area",
+        field: "width_m",
+        shown: Shown::Length,
+        read: |t| t.width_m,
+        write: |t, v| t.width_m = v,
+    },
+    TaskNumber {
+        label: "Smallest detail",
+        field: "detail_mm",
+        shown: Shown::As("mm"),
+        read: |t| t.detail_mm,
+        write: |t, v| t.detail_mm = v,
+    },
+    TaskNumber {
+        label: "Hours per day",
+        field: "hours_per_day",
+        shown: Shown::As("h"),
+        read: |t| t.hours_per_day,
+        write: |t, v| t.hours_per_day = v,
+    },
+];
+
+/// The field of number `n` of task `i`.
+fn task_number(i: usize, n: &TaskNumber) -> impl IntoView {
+    scenario_number(
+        n.label,
+        format!("tasks[{i}].{}", n.field),
+        n.shown,
+        task_value(i, n.read),
+        task_write(i, n.write),
+        false,
+    )
+}
+
 /// The card of task `i`.
 fn task_card(i: usize) -> impl IntoView {
     let state = use_app_state();
@@ -164,47 +225,9 @@ fn task_card(i: usize) -> impl IntoView {
                 </button>
             </div>
             <div class="grid">
-                {scenario_number(
-                    "Distance",
-                    format!("tasks[{i}].distance_m"),
-                    Shown::Length,
-                    task_value(i, |t| t.distance_m),
-                    task_write(i, |t, v| t.distance_m = v),
-                    false,
-                )}
+                {task_number(i, &TASK_NUMBERS[0])}
                 {position_fields(i)}
-                {scenario_number(
-                    "Sideways (right +)",
-                    format!("tasks[{i}].sideways_m"),
-                    Shown::Length,
-                    task_value(i, |t| t.sideways_m),
-                    task_write(i, |t, v| t.sideways_m = v),
-                    false,
-                )}
-                {scenario_number(
-                    "Width of task area",
-                    format!("tasks[{i}].width_m"),
-                    Shown::Length,
-                    task_value(i, |t| t.width_m),
-                    task_write(i, |t, v| t.width_m = v),
-                    false,
-                )}
-                {scenario_number(
-                    "Smallest detail",
-                    format!("tasks[{i}].detail_mm"),
-                    Shown::As("mm"),
-                    task_value(i, |t| t.detail_mm),
-                    task_write(i, |t, v| t.detail_mm = v),
-                    false,
-                )}
-                {scenario_number(
-                    "Hours per day",
-                    format!("tasks[{i}].hours_per_day"),
-                    Shown::As("h"),
-                    task_value(i, |t| t.hours_per_day),
-                    task_write(i, |t, v| t.hours_per_day = v),
-                    false,
-                )}
+                {TASK_NUMBERS[1..].iter().map(|n| task_number(i, n)).collect_view()}
             </div>
             <div class="flags">
                 {flag_field(i, "Driving or moving machinery", |f| &mut f.driving)}

@@ -267,6 +267,71 @@ fn pupil_and_blur_fields() -> impl IntoView {
     }
 }
 
+/// One fitting measurement: label, field path, unit, and how to read and write it.
+struct Fitting {
+    label: &'static str,
+    path: &'static str,
+    unit: &'static str,
+    read: fn(&Scenario) -> f64,
+    write: fn(&mut Scenario, f64),
+}
+
+/// The fitting measurements, in the order a dispenser takes them.
+const FITTING: [Fitting; 5] = [
+    Fitting {
+        label: "PD right",
+        path: "wearer.pd_right_mm",
+        unit: "mm",
+        read: |s| s.wearer.pd_right_mm,
+        write: |s, v| s.wearer.pd_right_mm = v,
+    },
+    Fitting {
+        label: "PD left",
+        path: "wearer.pd_left_mm",
+        unit: "mm",
+        read: |s| s.wearer.pd_left_mm,
+        write: |s, v| s.wearer.pd_left_mm = v,
+    },
+    Fitting {
+        label: "Fitting height",
+        path: "wearer.fitting_height_mm",
+        unit: "mm",
+        read: |s| s.wearer.fitting_height_mm,
+        write: |s, v| s.wearer.fitting_height_mm = v,
+    },
+    Fitting {
+        label: "Lens height",
+        path: "wearer.lens_height_mm",
+        unit: "mm",
+        read: |s| s.wearer.lens_height_mm,
+        write: |s, v| s.wearer.lens_height_mm = v,
+    },
+    Fitting {
+        label: "Pantoscopic tilt",
+        path: "wearer.pantoscopic_tilt_deg",
+        unit: "°",
+        read: |s| s.wearer.pantoscopic_tilt_deg,
+        write: |s, v| s.wearer.pantoscopic_tilt_deg = v,
+    },
+];
+
+/// The field of one fitting measurement.
+fn fitting_field(f: &Fitting) -> impl IntoView {
+    let (read, write) = (f.read, f.write);
+    scenario_number(
+        f.label,
+        f.path.to_string(),
+        Shown::As(f.unit),
+        move |s| Some(read(s)),
+        move |s, v| {
+            if let Some(v) = v {
+                write(s, v);
+            }
+        },
+        false,
+    )
+}
+
 /// The wearer panel.
 #[component]
 pub fn WearerPanel() -> impl IntoView {
@@ -291,46 +356,7 @@ pub fn WearerPanel() -> impl IntoView {
             </div>
             <h3>"Fitting"</h3>
             <div class="grid">
-                {scenario_number(
-                    "PD right",
-                    "wearer.pd_right_mm".into(),
-                    Shown::As("mm"),
-                    |s| Some(s.wearer.pd_right_mm),
-                    |s, v| s.wearer.pd_right_mm = v.unwrap_or(0.0),
-                    false,
-                )}
-                {scenario_number(
-                    "PD left",
-                    "wearer.pd_left_mm".into(),
-                    Shown::As("mm"),
-                    |s| Some(s.wearer.pd_left_mm),
-                    |s, v| s.wearer.pd_left_mm = v.unwrap_or(0.0),
-                    false,
-                )}
-                {scenario_number(
-                    "Fitting height",
-                    "wearer.fitting_height_mm".into(),
-                    Shown::As("mm"),
-                    |s| Some(s.wearer.fitting_height_mm),
-                    |s, v| s.wearer.fitting_height_mm = v.unwrap_or(0.0),
-                    false,
-                )}
-                {scenario_number(
-                    "Lens height",
-                    "wearer.lens_height_mm".into(),
-                    Shown::As("mm"),
-                    |s| Some(s.wearer.lens_height_mm),
-                    |s, v| s.wearer.lens_height_mm = v.unwrap_or(0.0),
-                    false,
-                )}
-                {scenario_number(
-                    "Pantoscopic tilt",
-                    "wearer.pantoscopic_tilt_deg".into(),
-                    Shown::As("°"),
-                    |s| Some(s.wearer.pantoscopic_tilt_deg),
-                    |s, v| s.wearer.pantoscopic_tilt_deg = v.unwrap_or(0.0),
-                    false,
-                )}
+                {FITTING.iter().map(fitting_field).collect_view()}
             </div>
             <h3>"Sustained work"</h3>
             <div class="grid">
