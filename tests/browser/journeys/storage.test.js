@@ -184,12 +184,16 @@ test("a bad import file is refused with a notice; a mixed file imports only the 
   await context.close();
 });
 
-// Wraps setItem so the test can make storage full once the app has started.
+// Wraps setItem so the test can make storage full once the app has started
+// (and give it room again).
 function storageThatFills() {
   const original = Storage.prototype.setItem;
   let full = false;
   window.__fillStorageForTest = () => {
     full = true;
+  };
+  window.__freeStorageForTest = () => {
+    full = false;
   };
   Storage.prototype.setItem = function setItem(key, value) {
     if (full) throw new DOMException("full", "QuotaExceededError");
@@ -227,6 +231,12 @@ test("full storage keeps the edit in the tab and offers an export", async () => 
   assert.equal(mine.scenario.wearer.age_years, 58, "the export carries the edit storage refused");
   assert.equal(exported.scenarios.length, 5);
 
+  // With room again, the next edit reaches storage and the state says so.
+  await page.evaluate(() => window.__freeStorageForTest());
+  await planner.setNumber(AGE, "59");
+  await waitForSaveState(page, "Saved on this device");
+  assert.equal((await storedByName(planner, title)).entry.scenario.wearer.age_years, 59);
+
   assert.deepEqual(page.problems(), []);
   await context.close();
 });
@@ -260,6 +270,36 @@ test("an edit in one tab shows in the other", async () => {
   assert.equal(await first.byTestId("conflict").count(), 0);
   assert.equal(await second.byTestId("conflict").count(), 0);
   assert.equal(await first.saveState(), "Saved on this device");
+
+  assert.deepEqual(first.page.problems(), []);
+  assert.deepEqual(second.page.problems(), []);
+  await context.close();
+});
+
+test("a scenario deleted in one tab stays open in the other and is stored again on its next edit", async () => {
+  const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
+  const first = new PlannerPage(await watchedPage(context, server.url), server.url);
+  await first.open();
+  const second = new PlannerPage(await watchedPage(context, server.url), server.url);
+  await second.open();
+  await second.openFromShelf(OFFICE_DEMO);
+
+  await first.openFromShelf(OFFICE_DEMO);
+  await first.byTestId("delete-scenario").click();
+  await second.page.waitForFunction(() =>
+    [...document.querySelectorAll('[data-testid="notice"] p')].some((p) => p.textContent.includes("deleted in another tab")),
+  );
+  assert.equal(await second.title(), OFFICE_DEMO, "the work stays open");
+  assert.ok(!(await second.shelfNames()).includes(OFFICE_DEMO));
+
+  await second.setNumber(AGE, "50");
+  await waitForSaveState(second.page, "Saved on this device");
+  const restored = await storedByName(second, OFFICE_DEMO);
+  assert.equal(restored.entry.scenario.wearer.age_years, 50);
+  await first.page.waitForFunction(
+    (name) => [...document.querySelectorAll('[data-testid="shelf-list"] .shelf-name')].some((n) => n.textContent.trim() === name),
+    OFFICE_DEMO,
+  );
 
   assert.deepEqual(first.page.problems(), []);
   assert.deepEqual(second.page.problems(), []);

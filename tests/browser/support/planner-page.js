@@ -14,8 +14,8 @@ export const VIEWPORTS = {
 export const SCENARIO_PREFIX = "clearspan/scenario/";
 
 /**
- * Opens a fresh browser context (empty storage unless `storageState` is
- * given) with a watched page and a planner object around it.
+ * Opens a fresh browser context (empty storage) with a watched page and a
+ * planner object around it; `initScript` runs in every page before the app.
  */
 export async function freshPlanner(browser, origin, { viewport = VIEWPORTS.desktop, initScript } = {}) {
   const context = await browser.newContext({ viewport, acceptDownloads: true });
