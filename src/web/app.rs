@@ -21,7 +21,7 @@ pub fn App() -> impl IntoView {
             return;
         }
         if let Some(scenario) = state.shelf.follow_other_tab(key) {
-            state.scenario.set(scenario);
+            state.replace_scenario(scenario);
         }
     });
     let unit_label = move || match state.unit.get() {

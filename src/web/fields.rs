@@ -3,6 +3,7 @@
 //! loaded scenario), refuses text that is not a number with a message, and
 //! passes only parsed numbers on. Every field has a visible label.
 
+use super::state::use_app_state;
 use crate::display::{parse_number, trim_number};
 use leptos::prelude::*;
 use std::sync::atomic::{AtomicUsize, Ordering};
@@ -70,13 +71,16 @@ pub fn NumberField(
 ) -> impl IntoView {
     let id = unique_id("field");
     let message_id = format!("{id}-msg");
-    // What the user typed, and the value the field held when they typed it.
-    let typed: RwSignal<Option<(String, Option<f64>)>> = RwSignal::new(None);
+    let state = use_app_state();
+    // What the user typed, the value the field held then, and the era it was typed in.
+    let typed: RwSignal<Option<(String, Option<f64>, u64)>> = RwSignal::new(None);
+    let own =
+        move |at: Option<f64>, era: u64| era == state.era.get() && same_value(at, value.get());
     let text = move || {
         let current = value.get();
         typed
             .with(|t| match t {
-                Some((text, at)) if same_value(*at, current) => Some(text.clone()),
+                Some((text, at, era)) if own(*at, *era) => Some(text.clone()),
                 _ => None,
             })
             .unwrap_or_else(|| {
@@ -86,9 +90,8 @@ pub fn NumberField(
             })
     };
     let parse_message = move || {
-        let current = value.get();
         typed.with(|t| match t {
-            Some((text, at)) if same_value(*at, current) => {
+            Some((text, at, era)) if own(*at, *era) => {
                 if optional && text.trim().is_empty() {
                     None
                 } else {
@@ -99,6 +102,16 @@ pub fn NumberField(
         })
     };
     let message = move || parse_message().or_else(|| problem.get());
+    let unparsed_key = id.clone();
+    let mark_unparsed = move |bad: bool| {
+        state.unparsed.update(|set| {
+            if bad {
+                set.insert(unparsed_key.clone());
+            } else {
+                set.remove(&unparsed_key);
+            }
+        })
+    };
     let on_text = move |ev| {
         let text = event_target_value(&ev);
         let parsed = if optional && text.trim().is_empty() {
@@ -106,14 +119,22 @@ pub fn NumberField(
         } else {
             parse_number(&text).map(Some)
         };
+        let era = state.era.get_untracked();
+        mark_unparsed(parsed.is_err());
         match parsed {
             Ok(v) => {
-                typed.set(Some((text, v)));
+                typed.set(Some((text, v, era)));
                 on_input.run(v);
             }
-            Err(_) => typed.set(Some((text, value.get_untracked()))),
+            Err(_) => typed.set(Some((text, value.get_untracked(), era))),
         }
     };
+    let forget_key = id.clone();
+    on_cleanup(move || {
+        state.unparsed.update(|set| {
+            set.remove(&forget_key);
+        })
+    });
     view! {
         <div class="field" class:invalid=move || message().is_some()>
             <label for=id.clone()>{label}</label>

@@ -237,7 +237,7 @@ fn option_card(i: usize) -> impl IntoView {
         })
     });
     let remove = move |_| {
-        state.edit(|s| {
+        state.reshape(|s| {
             if i < s.options.len() {
                 s.options.remove(i);
             }

@@ -124,6 +124,8 @@ impl Shelf {
             conflict: RwSignal::new(None),
             save_state: RwSignal::new(SaveState::Saved),
         };
+        // A reload opens the same scenario, the first visit's demo included.
+        shelf.remember(None);
         Opening {
             shelf,
             scenario,

@@ -19,7 +19,7 @@ pub fn open_entry(state: AppState, id: EntryId) {
         .with_untracked(|lib| lib.get(&id).map(|e| e.scenario.clone()));
     if let Some(scenario) = scenario {
         shelf.current.set(Some(id));
-        state.scenario.set(scenario);
+        state.replace_scenario(scenario);
         shelf.save_state.set(SaveState::Saved);
         shelf.remember(None);
     }
@@ -196,7 +196,7 @@ pub fn ShelfPanel() -> impl IntoView {
                     Some(next) => open_entry(state, next),
                     None => {
                         shelf.current.set(None);
-                        state.scenario.set(Scenario::untitled());
+                        state.replace_scenario(Scenario::untitled());
                     }
                 }
             }
@@ -263,7 +263,7 @@ pub fn ShelfPanel() -> impl IntoView {
         match shelf.library.try_update(|lib| lib.erase_all_local_data()) {
             Some(Ok(count)) => {
                 shelf.current.set(None);
-                state.scenario.set(Scenario::untitled());
+                state.replace_scenario(Scenario::untitled());
                 shelf.tell(
                     format!(
                         "Erased all of clearspan's data on this device ({count} stored items)."

@@ -7,6 +7,7 @@ use crate::display::LengthUnit;
 use crate::plan::{plan, Plan};
 use crate::scenario::{validate, FieldError, Problem, Scenario, ValidScenario};
 use leptos::prelude::*;
+use std::collections::BTreeSet;
 
 /// Everything the views share. Cheap to copy: it holds signal handles only.
 #[derive(Clone, Copy)]
@@ -23,6 +24,13 @@ pub struct AppState {
     pub chosen_option: RwSignal<Option<usize>>,
     /// The task whose numbers are shown in detail (input index).
     pub chosen_task: RwSignal<Option<usize>>,
+    /// Counts the times what the fields show was replaced from elsewhere
+    /// (a scenario opened, a task or option removed, the unit switched):
+    /// text a user typed before then no longer belongs to the field.
+    pub era: RwSignal<u64>,
+    /// Fields whose typed text is not a number; while any is, the plan on
+    /// screen does not reflect what the user sees and is marked stale.
+    pub unparsed: RwSignal<BTreeSet<String>>,
     /// The scenarios kept on this device and the save state of the open one.
     pub shelf: Shelf,
 }
@@ -72,6 +80,8 @@ impl AppState {
             outcome,
             chosen_option: RwSignal::new(None),
             chosen_task: RwSignal::new(None),
+            era: RwSignal::new(0),
+            unparsed: RwSignal::new(BTreeSet::new()),
             shelf: opening.shelf,
         }
     }
@@ -95,8 +105,29 @@ impl AppState {
 
     /// Switches the length unit and remembers it for the next visit.
     pub fn set_unit(&self, unit: LengthUnit) {
+        self.new_era();
         self.unit.set(unit);
         self.shelf.remember(Some(unit));
+    }
+
+    /// Replaces the scenario on screen (opened, reloaded, taken from another
+    /// tab) without storing it again.
+    pub fn replace_scenario(&self, scenario: Scenario) {
+        self.new_era();
+        self.scenario.set(scenario);
+    }
+
+    /// Applies an edit that changes which task or option each field shows
+    /// (removing one), then stores the result.
+    pub fn reshape(&self, edit: impl FnOnce(&mut Scenario)) {
+        self.new_era();
+        self.edit(edit);
+    }
+
+    /// Starts a new era: typed text no longer belongs to its field.
+    fn new_era(&self) {
+        self.unparsed.update(BTreeSet::clear);
+        self.era.update(|e| *e += 1);
     }
 }
 

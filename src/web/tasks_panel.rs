@@ -205,7 +205,7 @@ fn task_card(i: usize) -> impl IntoView {
             .map(|p| p.to_string())
     });
     let remove = move |_| {
-        state.edit(|s| {
+        state.reshape(|s| {
             if i < s.tasks.len() {
                 s.tasks.remove(i);
             }

@@ -73,7 +73,8 @@ pub fn comparison(plan: &Plan) -> impl IntoView {
         })
         .collect_view();
     view! {
-        <div class="table-scroll">
+        <h3 class="comparison-heading">"Comparison"</h3>
+        <div class="table-scroll comparison-block">
             <table class="comparison" data-testid="comparison">
                 <caption>"Each task through each lens option (best first). Choose an option to draw its lens."</caption>
                 <thead>

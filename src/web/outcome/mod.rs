@@ -24,7 +24,7 @@ fn recommendation(best: &OptionPlan) -> impl IntoView {
         .collect_view();
     view! {
         <div class="recommendation" data-testid="recommendation">
-            <h3>{format!("Recommended: {} ({})", best.option.label, family_name(&best.design))}</h3>
+            <h3>{format!("Recommended: {} · {}", best.option.label, family_name(&best.design))}</h3>
             <ul class="parameters">{parameters}</ul>
             <p>{best.describe_choice()}</p>
             <p class="detail">
@@ -136,6 +136,8 @@ pub fn OutcomePanel() -> impl IntoView {
     let state = use_app_state();
     let body = move || {
         let outcome = state.outcome.get();
+        let unparsed = state.unparsed.with(|set| !set.is_empty());
+        let stale = outcome.stale || unparsed;
         let Some(plan) = outcome.plan else {
             return view! {
                 <p class="hint" data-testid="no-plan">
@@ -153,21 +155,19 @@ pub fn OutcomePanel() -> impl IntoView {
         let wearer = state.scenario.with(|s| s.wearer.clone());
         let detail = state.chosen_task.get().map(|t| task_detail(&plan, t));
         view! {
-            <Show when=move || outcome.stale>
+            <Show when=move || stale>
                 <p class="stale" role="status" data-testid="stale">
                     "This plan is from before the last change: correct the marked fields to update it."
                     {outcome.error.clone().map(|e| format!(" ({e})"))}
                 </p>
             </Show>
-            <div class="plan" class:is-stale=outcome.stale data-testid="plan">
+            <div class="plan" class:is-stale=stale data-testid="plan">
                 {cautions(&plan)}
                 {plan.options.first().map(recommendation)}
                 {unserved(&plan)}
                 <p class="detail">{amplitude_line(&plan.amplitude)}" · "{pupil_line(&plan.pupil)}</p>
-                <h3>"Comparison"</h3>
                 {matrix::comparison(&plan)}
                 {detail}
-                <h3>"Range of clear vision"</h3>
                 {range_chart::range_chart(&plan)}
                 <h3>"Lens map"</h3>
                 {chosen.as_ref().map(|o| lens_map::lens_map(o, &wearer))}

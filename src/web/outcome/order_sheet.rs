@@ -28,8 +28,7 @@ pub fn order_sheet(plan: &Plan) -> impl IntoView {
             view! {
                 <li>
                     {format!(
-                        "{}. {}: {} {} at {:+.0}°, {:.1} h a day",
-                        t.task.index + 1,
+                        "{}: {} {} at {:+.0}°, {:.1} h a day",
                         t.task.name,
                         crate::display::trim_number(unit.from_metres(t.distance), 0),
                         unit.symbol(),

@@ -13,7 +13,10 @@ const WIDTH: f64 = 820.0;
 const LABEL_END: f64 = 250.0;
 const X_NEAR: f64 = 270.0;
 const X_FAR: f64 = 800.0;
-const TOP: f64 = 44.0;
+const TOP: f64 = 70.0;
+/// Side of the square that takes a tap on a task marker, in SVG units: about
+/// 44 px or more at the widths the chart is drawn (touch-target size, WCAG 2.5.5).
+const HIT: f64 = 76.0;
 const ROW: f64 = 26.0;
 
 /// The range chart for `plan`.
@@ -86,14 +89,16 @@ pub fn range_chart(plan: &Plan) -> impl IntoView {
                     }
                 >
                     <title>{tooltip}</title>
+                    <rect class="hit" x={m.x - HIT / 2.0} y={TOP - 8.0 - HIT} width=HIT height=HIT />
                     <line x1=m.x x2=m.x y1={TOP - 10.0} y2={bottom} />
-                    <circle cx=m.x cy={TOP - 22.0} r="11" />
-                    <text x=m.x y={TOP - 18.0} text-anchor="middle">{(index + 1).to_string()}</text>
+                    <circle cx=m.x cy={TOP - 40.0} r="13" />
+                    <text x=m.x y={TOP - 35.0} text-anchor="middle">{(index + 1).to_string()}</text>
                 </g>
             }
         })
         .collect_view();
     view! {
+        <h3 class="range-heading">"Range of clear vision"</h3>
         <figure class="range-chart">
             <svg
                 viewBox=format!("0 0 {WIDTH} {height}")

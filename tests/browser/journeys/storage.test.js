@@ -75,11 +75,6 @@ test("a reload keeps the edited value and the open scenario", async () => {
 
 test(
   "a reload right after the first visit keeps the demo that was open",
-  {
-    todo:
-      "app bug: on a first visit the opened demo is not remembered in clearspan/settings, " +
-      "so a reload opens the first scenario of the shelf (electrician) instead",
-  },
   async () => {
     const { context, page, planner } = await freshPlanner(browser, server.url);
     await planner.open();
