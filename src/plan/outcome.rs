@@ -356,23 +356,9 @@ pub enum RangeEnd {
     Highest,
 }
 
-/// The named region of a lens.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize)]
-#[serde(rename_all = "snake_case")]
-pub enum ZoneKind {
-    /// One power over the whole lens.
-    SingleVision,
-    /// The distance portion: no addition.
-    Distance,
-    /// A trifocal's intermediate band, or the upper zone of a degressive lens.
-    Intermediate,
-    /// The near segment or near portion.
-    Near,
-    /// A corridor where the addition changes with height.
-    Progression,
-    /// The upper segment of a double-segment lens.
-    UpperSegment,
-}
+/// The named region of a lens: the lens core's zone, which carries the
+/// report's serialized name and display words.
+pub use crate::core::lens::Zone as ZoneKind;
 
 /// The range of clear vision of one zone of a design.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize)]
@@ -671,19 +657,6 @@ impl fmt::Display for Verdict {
             Verdict::Comfortable => "comfortable",
             Verdict::InFocusButTiring => "in focus but tiring",
             Verdict::Blurred => "blurred",
-        })
-    }
-}
-
-impl fmt::Display for ZoneKind {
-    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        f.write_str(match self {
-            ZoneKind::SingleVision => "single vision",
-            ZoneKind::Distance => "distance",
-            ZoneKind::Intermediate => "intermediate",
-            ZoneKind::Near => "near",
-            ZoneKind::Progression => "corridor",
-            ZoneKind::UpperSegment => "upper segment",
         })
     }
 }

@@ -45,6 +45,8 @@ pub use trifocal::{Trifocal, DEFAULT_BAND_HEIGHT_MM, DEFAULT_INTERMEDIATE_RATIO}
 
 use crate::core::units::{Dioptres, Millimetres};
 use crate::scenario::FamilyChoice;
+use serde::Serialize;
+use std::fmt;
 
 /// A point on the lens, in millimetres from the fitting point: `x` nasal
 /// positive, `y` up positive.
@@ -66,8 +68,10 @@ impl LensPoint {
     }
 }
 
-/// The named region of a lens a point belongs to.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+/// The named region of a lens a point belongs to. It is also the zone name
+/// the plan reports (as `plan::ZoneKind`), serialized in snake case.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize)]
+#[serde(rename_all = "snake_case")]
 pub enum Zone {
     /// One power over the whole lens (single vision).
     SingleVision,
@@ -82,6 +86,19 @@ pub enum Zone {
     Progression,
     /// The upper segment of a double-segment lens, for work overhead.
     UpperSegment,
+}
+
+impl fmt::Display for Zone {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_str(match self {
+            Zone::SingleVision => "single vision",
+            Zone::Distance => "distance",
+            Zone::Intermediate => "intermediate",
+            Zone::Near => "near",
+            Zone::Progression => "corridor",
+            Zone::UpperSegment => "upper segment",
+        })
+    }
 }
 
 /// What a design gives at one lens point.
