@@ -19,6 +19,7 @@ mod degressive;
 mod double_segment;
 mod error;
 mod limits;
+mod parameter;
 mod progressive;
 mod ramp;
 mod segment;
@@ -30,13 +31,15 @@ mod tests;
 
 pub use bifocal::Bifocal;
 pub use catalogue::{
-    Candidates, Grid, ADDITION_GRID, DEGRESSION_GRID, INTERMEDIATE_RATIO_GRID,
-    PROGRESSION_LENGTH_GRID, SEGMENT_TOP_GRID, SINGLE_VISION_ADDITION_GRID, UPPER_BOTTOM_GRID,
+    combination, combination_count, option_axes, with_values, Axis, Candidates, Grid,
+    ADDITION_GRID, DEGRESSION_GRID, INTERMEDIATE_RATIO_GRID, PROGRESSION_LENGTH_GRID,
+    SEGMENT_TOP_GRID, SINGLE_VISION_ADDITION_GRID, UPPER_BOTTOM_GRID,
 };
 pub use degressive::{Degressive, DEGRESSION_HEIGHT_MM, NEAR_REFERENCE_MM};
 pub use double_segment::DoubleSegment;
 pub(crate) use error::Bounds;
 pub use error::LensError;
+pub use parameter::Parameter;
 pub use progressive::{Progressive, DEFAULT_NEAR_INSET_MM, PROGRESSION_START_MM};
 pub use ramp::{PowerGradient, Ramp};
 pub use segment::SegmentShape;
