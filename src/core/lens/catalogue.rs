@@ -5,7 +5,7 @@
 //! which range) that both [`Candidates`] and the planner's solver walk, and
 //! the translation of a lens option into designs.
 
-use super::error::{Bounds, LensError};
+use super::error::{LensError, NamedBounds};
 use super::limits::{
     ADDITION, DEGRESSION, INTERMEDIATE_RATIO, NEAR_ADDITION, PROGRESSION_LENGTH, SEGMENT_TOP,
     UPPER_BOTTOM,
@@ -123,7 +123,7 @@ pub struct Axis {
     /// The values made.
     pub grid: Grid,
     /// The range the lens models accept.
-    bounds: Bounds,
+    bounds: NamedBounds,
 }
 
 impl Axis {
@@ -150,7 +150,7 @@ impl Axis {
     }
 }
 
-fn axis(kind: Parameter, fixed: Option<f64>, grid: Grid, bounds: Bounds) -> Axis {
+fn axis(kind: Parameter, fixed: Option<f64>, grid: Grid, bounds: NamedBounds) -> Axis {
     Axis {
         kind,
         fixed,

@@ -37,8 +37,8 @@ pub use catalogue::{
 };
 pub use degressive::{Degressive, DEGRESSION_HEIGHT_MM, NEAR_REFERENCE_MM};
 pub use double_segment::DoubleSegment;
-pub(crate) use error::Bounds;
 pub use error::LensError;
+pub(crate) use error::NamedBounds;
 pub use parameter::Parameter;
 pub use progressive::{Progressive, DEFAULT_NEAR_INSET_MM, PROGRESSION_START_MM};
 pub use ramp::{PowerGradient, Ramp};
@@ -145,20 +145,9 @@ impl VerticalExtent {
         fitting_height: Millimetres,
         lens_height: Millimetres,
     ) -> Result<VerticalExtent, LensError> {
-        let lens_height = error::Bounds {
-            parameter: "lens height",
-            min: 15.0,
-            max: 70.0,
-            unit: "mm",
-        }
-        .check(lens_height.0)?;
-        let fitting_height = error::Bounds {
-            parameter: "fitting height",
-            min: 1.0,
-            max: lens_height - 1.0,
-            unit: "mm",
-        }
-        .check(fitting_height.0)?;
+        let lens_height = NamedBounds::new("lens height", 15.0, 70.0, "mm").check(lens_height.0)?;
+        let fitting_height = NamedBounds::new("fitting height", 1.0, lens_height - 1.0, "mm")
+            .check(fitting_height.0)?;
         Ok(VerticalExtent {
             bottom: -fitting_height,
             top: lens_height - fitting_height,
