@@ -6,6 +6,7 @@
 //! The helper constructors here let every core module check its input the same
 //! way, so messages read alike across the product.
 
+use crate::core::bounds::{unit_suffix, Bounds, RangeFault};
 use std::fmt;
 
 /// Why a core formula refused its input. Every message says what is wrong
@@ -77,18 +78,15 @@ impl OpticsError {
         max: f64,
         unit: &'static str,
     ) -> Result<f64, OpticsError> {
-        let v = Self::finite(quantity, value)?;
-        if v < min || v > max {
-            Err(OpticsError::OutOfRange {
+        within(quantity, value, Bounds::new(min, max, unit), || {
+            OpticsError::OutOfRange {
                 quantity,
-                value: v,
+                value,
                 min,
                 max,
                 unit,
-            })
-        } else {
-            Ok(v)
-        }
+            }
+        })
     }
 
     /// Returns `value` if it is finite and within the range `[min, max]` a
@@ -101,29 +99,31 @@ impl OpticsError {
         max: f64,
         unit: &'static str,
     ) -> Result<f64, OpticsError> {
-        let v = Self::finite(quantity, value)?;
-        if v < min || v > max {
-            Err(OpticsError::OutsideModel {
+        within(quantity, value, Bounds::new(min, max, unit), || {
+            OpticsError::OutsideModel {
                 model,
                 quantity,
-                value: v,
+                value,
                 min,
                 max,
                 unit,
-            })
-        } else {
-            Ok(v)
-        }
+            }
+        })
     }
 }
 
-/// Writes " unit" with a leading space, or nothing for a unitless quantity.
-fn unit_suffix(unit: &str) -> String {
-    if unit.is_empty() {
-        String::new()
-    } else {
-        format!(" {unit}")
-    }
+/// Checks `value` against `bounds`: a value that is not a number is
+/// [`OpticsError::NotFinite`], one outside the range is the error `outside` makes.
+fn within(
+    quantity: &'static str,
+    value: f64,
+    bounds: Bounds,
+    outside: impl FnOnce() -> OpticsError,
+) -> Result<f64, OpticsError> {
+    bounds.check(value).map_err(|fault| match fault {
+        RangeFault::NotFinite => OpticsError::NotFinite { quantity },
+        RangeFault::OutOfRange => outside(),
+    })
 }
 
 impl fmt::Display for OpticsError {

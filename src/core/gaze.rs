@@ -24,7 +24,7 @@ pub use centration::{
 };
 pub use posture::{ComfortRange, Posture, PostureOutcome, HEAD_PITCH_LIMIT_DEG};
 
-use crate::core::lens::{Bounds, LensError, LensPoint, VerticalExtent};
+use crate::core::lens::{LensError, LensPoint, NamedBounds, VerticalExtent};
 use crate::core::units::{Degrees, Metres, Millimetres, PrismDioptres};
 use crate::scenario::{Correction, Task, VerticalPosition, Wearer};
 use nalgebra::{Point3, Rotation3, Vector3};
@@ -155,26 +155,17 @@ pub struct LensCrossing {
     pub on_lens: bool,
 }
 
-const fn b(parameter: &'static str, min: f64, max: f64, unit: &'static str) -> Bounds {
-    Bounds {
-        parameter,
-        min,
-        max,
-        unit,
-    }
-}
-
-const PD_RIGHT: Bounds = b("right monocular PD", 20.0, 45.0, "mm");
-const PD_LEFT: Bounds = b("left monocular PD", 20.0, 45.0, "mm");
-const VERTEX: Bounds = b("vertex distance", 0.0, 25.0, "mm");
-const COR: Bounds = b("CoR behind cornea", 10.0, 18.0, "mm");
-const TILT: Bounds = b("pantoscopic tilt", -5.0, 25.0, "°");
-const WRAP: Bounds = b("face-form angle", 0.0, 30.0, "°");
+const PD_RIGHT: NamedBounds = NamedBounds::new("right monocular PD", 20.0, 45.0, "mm");
+const PD_LEFT: NamedBounds = NamedBounds::new("left monocular PD", 20.0, 45.0, "mm");
+const VERTEX: NamedBounds = NamedBounds::new("vertex distance", 0.0, 25.0, "mm");
+const COR: NamedBounds = NamedBounds::new("CoR behind cornea", 10.0, 18.0, "mm");
+const TILT: NamedBounds = NamedBounds::new("pantoscopic tilt", -5.0, 25.0, "°");
+const WRAP: NamedBounds = NamedBounds::new("face-form angle", 0.0, 30.0, "°");
 /// Task distance from the spectacle plane, in metres.
-pub(crate) const DISTANCE: Bounds = b("task distance", 0.1, 1000.0, "m");
-const SIDEWAYS: Bounds = b("task sideways offset", -20.0, 20.0, "m");
-const GAZE_ANGLE: Bounds = b("task gaze angle", -80.0, 80.0, "°");
-const HEIGHT: Bounds = b("task height", -5.0, 5.0, "m");
+pub(crate) const DISTANCE: NamedBounds = NamedBounds::new("task distance", 0.1, 1000.0, "m");
+const SIDEWAYS: NamedBounds = NamedBounds::new("task sideways offset", -20.0, 20.0, "m");
+const GAZE_ANGLE: NamedBounds = NamedBounds::new("task gaze angle", -80.0, 80.0, "°");
+const HEIGHT: NamedBounds = NamedBounds::new("task height", -5.0, 5.0, "m");
 
 impl Fitting {
     /// Checks the measurements and sets up both lens planes.

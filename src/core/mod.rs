@@ -4,6 +4,7 @@
 
 pub mod accommodation;
 pub mod astigmatism;
+pub mod bounds;
 pub mod clear_range;
 pub mod depth_of_field;
 pub mod error;

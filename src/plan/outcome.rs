@@ -224,27 +224,9 @@ pub struct ResolvedParameter {
     pub source: ParameterSource,
 }
 
-/// The parameters a lens family can have.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
-#[serde(rename_all = "snake_case")]
-pub enum ParameterKind {
-    /// Near addition over the distance power (single vision: the task addition).
-    Addition,
-    /// Height of a segment top relative to the fitting point.
-    SegmentTop,
-    /// Trifocal intermediate power as a share of the near addition.
-    IntermediateRatio,
-    /// Fitting point to near reference point of a progressive lens.
-    ProgressionLength,
-    /// Near addition of a degressive lens at its near reference point.
-    NearAddition,
-    /// Power a degressive lens loses from its near point to its top.
-    Degression,
-    /// Top of the lower segment of a double-segment lens.
-    LowerSegmentTop,
-    /// Bottom of the upper segment of a double-segment lens.
-    UpperSegmentBottom,
-}
+/// The parameters a lens family can have: the lens core's parameter names,
+/// which carry the report's serialized name and display words.
+pub use crate::core::lens::Parameter as ParameterKind;
 
 /// The value of one lens parameter, with its unit in the variant.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize)]
@@ -356,23 +338,9 @@ pub enum RangeEnd {
     Highest,
 }
 
-/// The named region of a lens.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize)]
-#[serde(rename_all = "snake_case")]
-pub enum ZoneKind {
-    /// One power over the whole lens.
-    SingleVision,
-    /// The distance portion: no addition.
-    Distance,
-    /// A trifocal's intermediate band, or the upper zone of a degressive lens.
-    Intermediate,
-    /// The near segment or near portion.
-    Near,
-    /// A corridor where the addition changes with height.
-    Progression,
-    /// The upper segment of a double-segment lens.
-    UpperSegment,
-}
+/// The named region of a lens: the lens core's zone, which carries the
+/// report's serialized name and display words.
+pub use crate::core::lens::Zone as ZoneKind;
 
 /// The range of clear vision of one zone of a design.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize)]
@@ -671,34 +639,6 @@ impl fmt::Display for Verdict {
             Verdict::Comfortable => "comfortable",
             Verdict::InFocusButTiring => "in focus but tiring",
             Verdict::Blurred => "blurred",
-        })
-    }
-}
-
-impl fmt::Display for ZoneKind {
-    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        f.write_str(match self {
-            ZoneKind::SingleVision => "single vision",
-            ZoneKind::Distance => "distance",
-            ZoneKind::Intermediate => "intermediate",
-            ZoneKind::Near => "near",
-            ZoneKind::Progression => "corridor",
-            ZoneKind::UpperSegment => "upper segment",
-        })
-    }
-}
-
-impl fmt::Display for ParameterKind {
-    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        f.write_str(match self {
-            ParameterKind::Addition => "addition",
-            ParameterKind::SegmentTop => "segment top",
-            ParameterKind::IntermediateRatio => "intermediate ratio",
-            ParameterKind::ProgressionLength => "progression length",
-            ParameterKind::NearAddition => "near addition",
-            ParameterKind::Degression => "degression",
-            ParameterKind::LowerSegmentTop => "lower segment top",
-            ParameterKind::UpperSegmentBottom => "upper segment bottom",
         })
     }
 }

@@ -14,24 +14,12 @@ use super::outcome::{
 };
 use crate::core::clear_range::{evaluate_task, range_of_clear_vision, FarLimit, ZoneRange};
 use crate::core::gaze::{vertical_imbalance, Eye};
-use crate::core::lens::{LensDesign, LensPoint, Zone};
+use crate::core::lens::{LensDesign, LensPoint};
 use crate::core::prescription::SpheroCylinder;
 use crate::core::units::{Degrees, Dioptres, Millimetres, PrismDioptres};
 
 /// Residuals smaller than this, in dioptres, are rounding, not defocus.
 const NEGLIGIBLE_D: f64 = 1e-9;
-
-/// The report's name for a lens zone.
-pub fn zone_kind(zone: Zone) -> ZoneKind {
-    match zone {
-        Zone::SingleVision => ZoneKind::SingleVision,
-        Zone::Distance => ZoneKind::Distance,
-        Zone::Intermediate => ZoneKind::Intermediate,
-        Zone::Near => ZoneKind::Near,
-        Zone::Progression => ZoneKind::Progression,
-        Zone::UpperSegment => ZoneKind::UpperSegment,
-    }
-}
 
 /// The zones of constant power of a design, with their additions.
 pub fn fixed_zones(design: &LensDesign) -> Vec<(ZoneKind, Dioptres)> {
@@ -163,7 +151,7 @@ pub fn task_plan(
             x: Millimetres(choice.x),
             y: Millimetres(choice.y),
         },
-        zone: zone_kind(sample.zone),
+        zone: sample.zone,
         local_power: LocalPower {
             addition: add,
             right: with_addition(&ctx.right, add),
@@ -184,7 +172,7 @@ pub fn task_plan(
             blur_disc_arcmin: blur_disc,
             acuity_loss_logmar: acuity_loss_logmar(Dioptres(defocus), ctx.pupil),
         },
-        range_here: zone_range(ctx, zone_kind(sample.zone), add, prep.half_depth)?,
+        range_here: zone_range(ctx, sample.zone, add, prep.half_depth)?,
         posture: HeadPosture {
             chin_up: Degrees(choice.pitch),
             reachable: !choice.out_of_reach,

@@ -4,6 +4,7 @@
 //! passes becomes a [`ValidScenario`], the only form the planner accepts.
 
 use super::model::*;
+use crate::core::bounds::{unit_suffix, Bounds, RangeFault};
 use std::fmt;
 
 /// A problem with one field of a scenario, addressed by its path
@@ -54,11 +55,7 @@ impl fmt::Display for Problem {
                 max,
                 unit,
             } => {
-                let unit = if unit.is_empty() {
-                    String::new()
-                } else {
-                    format!(" {unit}")
-                };
+                let unit = unit_suffix(unit);
                 write!(
                     f,
                     "{value} is outside the allowed range {min} to {max}{unit}"
@@ -98,46 +95,35 @@ pub const MAX_OPTIONS: usize = 12;
 /// The longest name or label, in characters.
 pub const MAX_NAME_CHARS: usize = 120;
 
-/// An inclusive range of allowed values with its unit, for messages.
-struct Bounds {
-    min: f64,
-    max: f64,
-    unit: &'static str,
-}
-
-const fn b(min: f64, max: f64, unit: &'static str) -> Bounds {
-    Bounds { min, max, unit }
-}
-
 /// Age range the amplitude models are applied over, in years.
-const AGE: Bounds = b(5.0, 100.0, "years");
-const AMPLITUDE: Bounds = b(0.0, 25.0, "D");
-const SPHERE: Bounds = b(-30.0, 30.0, "D");
-const CYLINDER: Bounds = b(-10.0, 10.0, "D");
-const AXIS: Bounds = b(0.0, 180.0, "°");
-const ADDITION: Bounds = b(0.0, 4.0, "D");
-const VERTEX: Bounds = b(0.0, 25.0, "mm");
-const PD: Bounds = b(20.0, 45.0, "mm");
-const FITTING_HEIGHT: Bounds = b(8.0, 45.0, "mm");
-const LENS_HEIGHT: Bounds = b(15.0, 70.0, "mm");
-const TILT: Bounds = b(-5.0, 25.0, "°");
-const PUPIL: Bounds = b(1.0, 9.0, "mm");
-const LUMINANCE: Bounds = b(0.001, 100_000.0, "cd/m²");
-const USABLE_FRACTION: Bounds = b(0.2, 1.0, "");
-const HALF_DEPTH: Bounds = b(0.05, 1.5, "D");
-const DISTANCE: Bounds = b(0.1, 1000.0, "m");
-const GAZE_ANGLE: Bounds = b(-80.0, 80.0, "°");
-const HEIGHT: Bounds = b(-5.0, 5.0, "m");
-const SIDEWAYS: Bounds = b(-20.0, 20.0, "m");
-const WIDTH: Bounds = b(0.0, 20.0, "m");
-const DETAIL: Bounds = b(0.01, 1000.0, "mm");
-const HOURS: Bounds = b(0.0, 24.0, "h");
-const SEGMENT_TOP: Bounds = b(-20.0, 5.0, "mm");
-const INTERMEDIATE_RATIO: Bounds = b(0.3, 0.8, "");
-const PROGRESSION: Bounds = b(10.0, 24.0, "mm");
-const NEAR_ADDITION: Bounds = b(0.5, 4.0, "D");
-const DEGRESSION: Bounds = b(0.5, 2.5, "D");
-const UPPER_BOTTOM: Bounds = b(3.0, 25.0, "mm");
+const AGE: Bounds = Bounds::new(5.0, 100.0, "years");
+const AMPLITUDE: Bounds = Bounds::new(0.0, 25.0, "D");
+const SPHERE: Bounds = Bounds::new(-30.0, 30.0, "D");
+const CYLINDER: Bounds = Bounds::new(-10.0, 10.0, "D");
+const AXIS: Bounds = Bounds::new(0.0, 180.0, "°");
+const ADDITION: Bounds = Bounds::new(0.0, 4.0, "D");
+const VERTEX: Bounds = Bounds::new(0.0, 25.0, "mm");
+const PD: Bounds = Bounds::new(20.0, 45.0, "mm");
+const FITTING_HEIGHT: Bounds = Bounds::new(8.0, 45.0, "mm");
+const LENS_HEIGHT: Bounds = Bounds::new(15.0, 70.0, "mm");
+const TILT: Bounds = Bounds::new(-5.0, 25.0, "°");
+const PUPIL: Bounds = Bounds::new(1.0, 9.0, "mm");
+const LUMINANCE: Bounds = Bounds::new(0.001, 100_000.0, "cd/m²");
+const USABLE_FRACTION: Bounds = Bounds::new(0.2, 1.0, "");
+const HALF_DEPTH: Bounds = Bounds::new(0.05, 1.5, "D");
+const DISTANCE: Bounds = Bounds::new(0.1, 1000.0, "m");
+const GAZE_ANGLE: Bounds = Bounds::new(-80.0, 80.0, "°");
+const HEIGHT: Bounds = Bounds::new(-5.0, 5.0, "m");
+const SIDEWAYS: Bounds = Bounds::new(-20.0, 20.0, "m");
+const WIDTH: Bounds = Bounds::new(0.0, 20.0, "m");
+const DETAIL: Bounds = Bounds::new(0.01, 1000.0, "mm");
+const HOURS: Bounds = Bounds::new(0.0, 24.0, "h");
+const SEGMENT_TOP: Bounds = Bounds::new(-20.0, 5.0, "mm");
+const INTERMEDIATE_RATIO: Bounds = Bounds::new(0.3, 0.8, "");
+const PROGRESSION: Bounds = Bounds::new(10.0, 24.0, "mm");
+const NEAR_ADDITION: Bounds = Bounds::new(0.5, 4.0, "D");
+const DEGRESSION: Bounds = Bounds::new(0.5, 2.5, "D");
+const UPPER_BOTTOM: Bounds = Bounds::new(3.0, 25.0, "mm");
 
 /// Collects field errors while walking a scenario.
 struct Checker {
@@ -153,10 +139,10 @@ impl Checker {
     }
 
     fn number(&mut self, path: &str, value: f64, bounds: &Bounds) {
-        if !value.is_finite() {
-            self.fail(path, Problem::NotANumber);
-        } else if value < bounds.min || value > bounds.max {
-            self.fail(
+        match bounds.check(value) {
+            Ok(_) => {}
+            Err(RangeFault::NotFinite) => self.fail(path, Problem::NotANumber),
+            Err(RangeFault::OutOfRange) => self.fail(
                 path,
                 Problem::OutOfRange {
                     value,
@@ -164,7 +150,7 @@ impl Checker {
                     max: bounds.max,
                     unit: bounds.unit,
                 },
-            );
+            ),
         }
     }
 

@@ -2,22 +2,12 @@
 //! the eyes at the reading level, and the angles a zone and a task span from
 //! the eye, with the head turn needed when the task is wider than the zone.
 
-use crate::core::lens::{Bounds, LensError};
+use crate::core::lens::{LensError, NamedBounds};
 use crate::core::units::{Degrees, Dioptres, Millimetres, PrismDioptres};
 
-const DECENTRATION: Bounds = Bounds {
-    parameter: "decentration",
-    min: -80.0,
-    max: 80.0,
-    unit: "mm",
-};
+const DECENTRATION: NamedBounds = NamedBounds::new("decentration", -80.0, 80.0, "mm");
 
-const POWER: Bounds = Bounds {
-    parameter: "lens power in the meridian",
-    min: -40.0,
-    max: 40.0,
-    unit: "D",
-};
+const POWER: NamedBounds = NamedBounds::new("lens power in the meridian", -40.0, 40.0, "D");
 
 /// Prentice's rule: the prism (prism dioptres) at `decentration` millimetres
 /// from the optical centre of a lens of `power` dioptres in that meridian,
@@ -98,20 +88,8 @@ pub fn vertical_imbalance(
 /// assert!((a.0 - 53.130).abs() < 1e-3);
 /// ```
 pub fn subtended_angle(width: Millimetres, distance: Millimetres) -> Result<Degrees, LensError> {
-    let w = Bounds {
-        parameter: "width",
-        min: 0.0,
-        max: 1.0e6,
-        unit: "mm",
-    }
-    .check(width.0)?;
-    let d = Bounds {
-        parameter: "viewing distance",
-        min: 1.0,
-        max: 1.0e7,
-        unit: "mm",
-    }
-    .check(distance.0)?;
+    let w = NamedBounds::new("width", 0.0, 1.0e6, "mm").check(width.0)?;
+    let d = NamedBounds::new("viewing distance", 1.0, 1.0e7, "mm").check(distance.0)?;
     Ok(Degrees::from_radians(2.0 * (w / (2.0 * d)).atan()))
 }
 

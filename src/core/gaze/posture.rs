@@ -9,7 +9,7 @@
 //! interval; the pitch nearest upright is chosen.
 
 use super::{Eye, Fitting, LensCrossing, TaskPoint};
-use crate::core::lens::{Bounds, LensDesign, LensError, Zone};
+use crate::core::lens::{LensDesign, LensError, NamedBounds, Zone};
 use crate::core::units::{Degrees, Dioptres};
 
 /// The largest head pitch searched either way, in degrees. Beyond it no
@@ -25,26 +25,11 @@ const STEPS: usize = 40;
 /// beyond any real lens, with the sign of the direction it misses towards.
 const OFF_LENS_MM: f64 = 1.0e6;
 
-const ELEVATION: Bounds = Bounds {
-    parameter: "comfortable eye rotation",
-    min: -60.0,
-    max: 40.0,
-    unit: "°",
-};
+const ELEVATION: NamedBounds = NamedBounds::new("comfortable eye rotation", -60.0, 40.0, "°");
 
-const ADDITION: Bounds = Bounds {
-    parameter: "wanted addition",
-    min: 0.0,
-    max: 6.0,
-    unit: "D",
-};
+const ADDITION: NamedBounds = NamedBounds::new("wanted addition", 0.0, 6.0, "D");
 
-const TOLERANCE: Bounds = Bounds {
-    parameter: "addition tolerance",
-    min: 0.0,
-    max: 2.0,
-    unit: "D",
-};
+const TOLERANCE: NamedBounds = NamedBounds::new("addition tolerance", 0.0, 2.0, "D");
 
 /// The range of eye rotation (elevation relative to the primary position,
 /// negative downwards) the wearer can hold comfortably.

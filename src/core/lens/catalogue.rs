@@ -1,9 +1,11 @@
 //! What is usually made: the grids of additions, degressions, progression
 //! lengths and segment placements a planner iterates over when the user
-//! leaves a parameter open, and the translation of a saved lens option
-//! ([`FamilyChoice`]) into designs.
+//! leaves a parameter open, the one mapping of a saved lens option
+//! ([`FamilyChoice`]) to its parameter axes (which parameter, which grid,
+//! which range) that both [`Candidates`] and the planner's solver walk, and
+//! the translation of a lens option into designs.
 
-use super::error::{Bounds, LensError};
+use super::error::{LensError, NamedBounds};
 use super::limits::{
     ADDITION, DEGRESSION, INTERMEDIATE_RATIO, NEAR_ADDITION, PROGRESSION_LENGTH, SEGMENT_TOP,
     UPPER_BOTTOM,
@@ -11,7 +13,7 @@ use super::limits::{
 use super::progressive::DEFAULT_NEAR_INSET_MM;
 use super::trifocal::DEFAULT_BAND_HEIGHT_MM;
 use super::{
-    Bifocal, Degressive, DoubleSegment, Family, LensDesign, Progressive, SegmentShape,
+    Bifocal, Degressive, DoubleSegment, Family, LensDesign, Parameter, Progressive, SegmentShape,
     SingleVision, Trifocal,
 };
 use crate::core::units::{Dioptres, Millimetres};
@@ -109,17 +111,24 @@ pub const INTERMEDIATE_RATIO_GRID: Grid = Grid {
     step: 0.1,
 };
 
-/// One parameter of a family: fixed by the user or left to a grid.
+/// One parameter of a lens option: which it is, the user's value if fixed,
+/// and the grid of values made (in the parameter's unit: dioptres for
+/// powers, millimetres for heights and lengths, none for the ratio).
 #[derive(Debug, Clone, Copy)]
-struct Axis {
-    fixed: Option<f64>,
-    grid: Grid,
-    /// The allowed range; `None` for an axis the family does not use.
-    bounds: Option<Bounds>,
+pub struct Axis {
+    /// Which parameter.
+    pub kind: Parameter,
+    /// The user's value, or `None` to choose from `grid`.
+    pub fixed: Option<f64>,
+    /// The values made.
+    pub grid: Grid,
+    /// The range the lens models accept.
+    bounds: NamedBounds,
 }
 
 impl Axis {
-    fn len(&self) -> usize {
+    /// The number of values to try: one when fixed, else the grid's length.
+    pub fn len(&self) -> usize {
         if self.fixed.is_some() {
             1
         } else {
@@ -127,42 +136,56 @@ impl Axis {
         }
     }
 
-    fn get(&self, i: usize) -> f64 {
-        match self.fixed {
-            Some(v) => v,
-            None => self.grid.first + i as f64 * self.grid.step,
-        }
+    /// Whether there is no value to try (never: a fixed axis has one).
+    pub fn is_empty(&self) -> bool {
+        self.len() == 0
+    }
+
+    /// The `i`-th value to try: the fixed value, else the grid's `i`-th
+    /// (its first past the end).
+    pub fn value(&self, i: usize) -> f64 {
+        self.fixed
+            .or_else(|| self.grid.get(i))
+            .unwrap_or(self.grid.first)
     }
 }
 
-/// A grid of one value, used to fill the unused axes of two-parameter families.
-const UNUSED: Axis = Axis {
-    fixed: Some(0.0),
-    grid: Grid {
-        first: 0.0,
-        last: 0.0,
-        step: 1.0,
-    },
-    bounds: None,
-};
-
-fn axis(fixed: Option<f64>, grid: Grid, bounds: Bounds) -> Axis {
+fn axis(kind: Parameter, fixed: Option<f64>, grid: Grid, bounds: NamedBounds) -> Axis {
     Axis {
+        kind,
         fixed,
         grid,
-        bounds: Some(bounds),
+        bounds,
     }
 }
 
-/// The family and the three parameter axes a lens option describes.
-fn axes_of(choice: &FamilyChoice) -> (Family, [Axis; 3]) {
+/// The number of values to try on an axis slot; an unused slot has one (zero).
+fn slot_len(a: &Option<Axis>) -> usize {
+    a.map_or(1, |a| a.len())
+}
+
+/// The value of an axis slot at grid index `i`; an unused slot gives zero.
+fn slot_value(a: &Option<Axis>, i: usize) -> f64 {
+    a.map_or(0.0, |a| a.value(i))
+}
+
+/// The family a lens option describes and its parameters, in the order
+/// [`with_values`] takes them; the slots a family does not use (always the
+/// last ones) are `None`. The grids are the ones [`Candidates`] iterates over.
+pub fn option_axes(choice: &FamilyChoice) -> (Family, [Option<Axis>; 3]) {
+    use Parameter as P;
     match *choice {
         FamilyChoice::SingleVision { addition_d } => (
             Family::SingleVision,
             [
-                axis(addition_d, SINGLE_VISION_ADDITION_GRID, ADDITION),
-                UNUSED,
-                UNUSED,
+                Some(axis(
+                    P::Addition,
+                    addition_d,
+                    SINGLE_VISION_ADDITION_GRID,
+                    ADDITION,
+                )),
+                None,
+                None,
             ],
         ),
         FamilyChoice::Bifocal {
@@ -171,9 +194,14 @@ fn axes_of(choice: &FamilyChoice) -> (Family, [Axis; 3]) {
         } => (
             Family::Bifocal,
             [
-                axis(addition_d, ADDITION_GRID, ADDITION),
-                axis(segment_top_mm, SEGMENT_TOP_GRID, SEGMENT_TOP),
-                UNUSED,
+                Some(axis(P::Addition, addition_d, ADDITION_GRID, ADDITION)),
+                Some(axis(
+                    P::SegmentTop,
+                    segment_top_mm,
+                    SEGMENT_TOP_GRID,
+                    SEGMENT_TOP,
+                )),
+                None,
             ],
         ),
         FamilyChoice::Trifocal {
@@ -183,13 +211,19 @@ fn axes_of(choice: &FamilyChoice) -> (Family, [Axis; 3]) {
         } => (
             Family::Trifocal,
             [
-                axis(addition_d, ADDITION_GRID, ADDITION),
-                axis(
+                Some(axis(P::Addition, addition_d, ADDITION_GRID, ADDITION)),
+                Some(axis(
+                    P::IntermediateRatio,
                     intermediate_ratio,
                     INTERMEDIATE_RATIO_GRID,
                     INTERMEDIATE_RATIO,
-                ),
-                axis(segment_top_mm, SEGMENT_TOP_GRID, SEGMENT_TOP),
+                )),
+                Some(axis(
+                    P::SegmentTop,
+                    segment_top_mm,
+                    SEGMENT_TOP_GRID,
+                    SEGMENT_TOP,
+                )),
             ],
         ),
         FamilyChoice::Progressive {
@@ -198,13 +232,14 @@ fn axes_of(choice: &FamilyChoice) -> (Family, [Axis; 3]) {
         } => (
             Family::Progressive,
             [
-                axis(addition_d, ADDITION_GRID, ADDITION),
-                axis(
+                Some(axis(P::Addition, addition_d, ADDITION_GRID, ADDITION)),
+                Some(axis(
+                    P::ProgressionLength,
                     progression_length_mm,
                     PROGRESSION_LENGTH_GRID,
                     PROGRESSION_LENGTH,
-                ),
-                UNUSED,
+                )),
+                None,
             ],
         ),
         FamilyChoice::Degressive {
@@ -213,9 +248,19 @@ fn axes_of(choice: &FamilyChoice) -> (Family, [Axis; 3]) {
         } => (
             Family::Degressive,
             [
-                axis(near_addition_d, ADDITION_GRID, NEAR_ADDITION),
-                axis(degression_d, DEGRESSION_GRID, DEGRESSION),
-                UNUSED,
+                Some(axis(
+                    P::NearAddition,
+                    near_addition_d,
+                    ADDITION_GRID,
+                    NEAR_ADDITION,
+                )),
+                Some(axis(
+                    P::Degression,
+                    degression_d,
+                    DEGRESSION_GRID,
+                    DEGRESSION,
+                )),
+                None,
             ],
         ),
         FamilyChoice::DoubleSegment {
@@ -225,12 +270,70 @@ fn axes_of(choice: &FamilyChoice) -> (Family, [Axis; 3]) {
         } => (
             Family::DoubleSegment,
             [
-                axis(addition_d, ADDITION_GRID, ADDITION),
-                axis(lower_top_mm, SEGMENT_TOP_GRID, SEGMENT_TOP),
-                axis(upper_bottom_mm, UPPER_BOTTOM_GRID, UPPER_BOTTOM),
+                Some(axis(P::Addition, addition_d, ADDITION_GRID, ADDITION)),
+                Some(axis(
+                    P::LowerSegmentTop,
+                    lower_top_mm,
+                    SEGMENT_TOP_GRID,
+                    SEGMENT_TOP,
+                )),
+                Some(axis(
+                    P::UpperSegmentBottom,
+                    upper_bottom_mm,
+                    UPPER_BOTTOM_GRID,
+                    UPPER_BOTTOM,
+                )),
             ],
         ),
     }
+}
+
+/// `choice` with every parameter set from `v` (in the order of [`option_axes`]).
+pub fn with_values(choice: &FamilyChoice, v: [f64; 3]) -> FamilyChoice {
+    match choice {
+        FamilyChoice::SingleVision { .. } => FamilyChoice::SingleVision {
+            addition_d: Some(v[0]),
+        },
+        FamilyChoice::Bifocal { .. } => FamilyChoice::Bifocal {
+            addition_d: Some(v[0]),
+            segment_top_mm: Some(v[1]),
+        },
+        FamilyChoice::Trifocal { .. } => FamilyChoice::Trifocal {
+            addition_d: Some(v[0]),
+            intermediate_ratio: Some(v[1]),
+            segment_top_mm: Some(v[2]),
+        },
+        FamilyChoice::Progressive { .. } => FamilyChoice::Progressive {
+            addition_d: Some(v[0]),
+            progression_length_mm: Some(v[1]),
+        },
+        FamilyChoice::Degressive { .. } => FamilyChoice::Degressive {
+            near_addition_d: Some(v[0]),
+            degression_d: Some(v[1]),
+        },
+        FamilyChoice::DoubleSegment { .. } => FamilyChoice::DoubleSegment {
+            addition_d: Some(v[0]),
+            lower_top_mm: Some(v[1]),
+            upper_bottom_mm: Some(v[2]),
+        },
+    }
+}
+
+/// The parameter values of combination number `n` of `axes`, the first axis
+/// varying fastest, as [`Candidates`] and the planner's solver enumerate them.
+pub fn combination(axes: &[Option<Axis>; 3], mut n: usize) -> [f64; 3] {
+    let mut values = [0.0; 3];
+    for (value, a) in values.iter_mut().zip(axes.iter()) {
+        let len = slot_len(a);
+        *value = slot_value(a, n % len);
+        n /= len;
+    }
+    values
+}
+
+/// The number of parameter combinations of `axes`.
+pub fn combination_count(axes: &[Option<Axis>; 3]) -> usize {
+    axes.iter().map(slot_len).product()
 }
 
 /// Builds a design of `family` from its parameter values, with the defaults
@@ -268,17 +371,17 @@ fn build(family: Family, v: [f64; 3]) -> Result<LensDesign, LensError> {
 }
 
 pub(super) fn design_from_choice(choice: &FamilyChoice) -> Result<LensDesign, LensError> {
-    let (family, axes) = axes_of(choice);
+    let (family, axes) = option_axes(choice);
     let mut values = [0.0; 3];
     for (value, a) in values.iter_mut().zip(axes.iter()) {
-        *value = match (a.fixed, a.bounds) {
-            (Some(v), _) => v,
-            (None, Some(b)) => {
+        *value = match a {
+            Some(Axis { fixed: Some(v), .. }) => *v,
+            Some(Axis { bounds, .. }) => {
                 return Err(LensError::MissingParameter {
-                    parameter: b.parameter,
+                    parameter: bounds.parameter,
                 })
             }
-            (None, None) => 0.0,
+            None => 0.0,
         };
     }
     build(family, values)
@@ -291,7 +394,7 @@ pub(super) fn design_from_choice(choice: &FamilyChoice) -> Result<LensDesign, Le
 #[derive(Debug, Clone)]
 pub struct Candidates {
     family: Family,
-    axes: [Axis; 3],
+    axes: [Option<Axis>; 3],
     next: usize,
     total: usize,
 }
@@ -300,16 +403,16 @@ impl Candidates {
     /// The candidates of `choice`; an error when a fixed parameter is out of
     /// range, or when every parameter is fixed and the design is invalid.
     pub fn new(choice: &FamilyChoice) -> Result<Candidates, LensError> {
-        let (family, axes) = axes_of(choice);
-        for a in &axes {
-            if let (Some(v), Some(b)) = (a.fixed, a.bounds) {
-                b.check(v)?;
+        let (family, axes) = option_axes(choice);
+        for a in axes.iter().flatten() {
+            if let Some(v) = a.fixed {
+                a.bounds.check(v)?;
             }
         }
-        if axes.iter().all(|a| a.fixed.is_some()) {
+        if axes.iter().flatten().all(|a| a.fixed.is_some()) {
             design_from_choice(choice)?;
         }
-        let total = axes.iter().map(Axis::len).product();
+        let total = combination_count(&axes);
         Ok(Candidates {
             family,
             axes,
@@ -329,14 +432,8 @@ impl Iterator for Candidates {
 
     fn next(&mut self) -> Option<LensDesign> {
         while self.next < self.total {
-            let mut rest = self.next;
+            let values = combination(&self.axes, self.next);
             self.next += 1;
-            let mut values = [0.0; 3];
-            for (value, a) in values.iter_mut().zip(self.axes.iter()) {
-                let n = a.len();
-                *value = a.get(rest % n);
-                rest /= n;
-            }
             if let Ok(design) = build(self.family, values) {
                 return Some(design);
             }

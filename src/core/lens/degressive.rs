@@ -8,7 +8,7 @@
 //! near addition less the degression, [`DEGRESSION_HEIGHT_MM`] higher. The
 //! corridor moves nasally with the addition, as for progressive lenses.
 
-use super::error::{Bounds, LensError};
+use super::error::{LensError, NamedBounds};
 use super::limits::{CORRIDOR_INSET, DEGRESSION, NEAR_ADDITION};
 use super::ramp::Ramp;
 use super::{corridor_zone, LensPoint, LensSample, Zone};
@@ -25,20 +25,11 @@ pub const NEAR_REFERENCE_MM: f64 = -14.0;
 pub const DEGRESSION_HEIGHT_MM: f64 = 20.0;
 
 /// Allowed heights of the near reference point, in millimetres.
-const NEAR_REFERENCE: Bounds = Bounds {
-    parameter: "near reference point height",
-    min: -24.0,
-    max: -6.0,
-    unit: "mm",
-};
+const NEAR_REFERENCE: NamedBounds =
+    NamedBounds::new("near reference point height", -24.0, -6.0, "mm");
 
 /// Allowed heights over which the degression is spread, in millimetres.
-const DEGRESSION_HEIGHT: Bounds = Bounds {
-    parameter: "degression height",
-    min: 8.0,
-    max: 36.0,
-    unit: "mm",
-};
+const DEGRESSION_HEIGHT: NamedBounds = NamedBounds::new("degression height", 8.0, 36.0, "mm");
 
 /// A degressive-power lens: near addition, degression and the model's layout.
 #[derive(Debug, Clone, Copy, PartialEq)]

@@ -2,6 +2,7 @@
 //! way a parameter handed to these modules can be unusable, each with a
 //! message that says what is wrong and what is allowed.
 
+use crate::core::bounds::{unit_suffix, Bounds, RangeFault};
 use std::fmt;
 
 /// A parameter of a lens design, a fitting or a task that the lens and gaze
@@ -70,11 +71,7 @@ impl fmt::Display for LensError {
                 max,
                 unit,
             } => {
-                let unit = if unit.is_empty() {
-                    String::new()
-                } else {
-                    format!(" {unit}")
-                };
+                let unit = unit_suffix(unit);
                 write!(
                     f,
                     "{parameter} is {value}{unit}; it must lie between {min} and {max}{unit}"
@@ -111,33 +108,43 @@ impl fmt::Display for LensError {
 
 impl std::error::Error for LensError {}
 
-/// The allowed range of one parameter, with the name and unit used in messages.
+/// The allowed range of one parameter, with the parameter's name as the
+/// user sees it, for messages.
 #[derive(Debug, Clone, Copy)]
-pub(crate) struct Bounds {
+pub(crate) struct NamedBounds {
     pub(crate) parameter: &'static str,
-    pub(crate) min: f64,
-    pub(crate) max: f64,
-    pub(crate) unit: &'static str,
+    pub(crate) bounds: Bounds,
 }
 
-impl Bounds {
+impl NamedBounds {
+    /// The range `min..=max` in `unit` of the parameter called `parameter`.
+    pub(crate) const fn new(
+        parameter: &'static str,
+        min: f64,
+        max: f64,
+        unit: &'static str,
+    ) -> NamedBounds {
+        NamedBounds {
+            parameter,
+            bounds: Bounds::new(min, max, unit),
+        }
+    }
+
     /// Checks that `value` is finite and within `[min, max]`.
     pub(crate) fn check(&self, value: f64) -> Result<f64, LensError> {
-        if !value.is_finite() {
-            Err(LensError::NotFinite {
+        let Bounds { min, max, unit } = self.bounds;
+        self.bounds.check(value).map_err(|fault| match fault {
+            RangeFault::NotFinite => LensError::NotFinite {
                 parameter: self.parameter,
-            })
-        } else if value < self.min || value > self.max {
-            Err(LensError::OutOfRange {
+            },
+            RangeFault::OutOfRange => LensError::OutOfRange {
                 parameter: self.parameter,
                 value,
-                min: self.min,
-                max: self.max,
-                unit: self.unit,
-            })
-        } else {
-            Ok(value)
-        }
+                min,
+                max,
+                unit,
+            },
+        })
     }
 }
 
@@ -147,12 +154,7 @@ mod tests {
 
     #[test]
     fn messages_say_what_is_allowed() {
-        let addition = Bounds {
-            parameter: "addition",
-            min: 0.0,
-            max: 4.0,
-            unit: "D",
-        };
+        let addition = NamedBounds::new("addition", 0.0, 4.0, "D");
         let e = addition.check(5.0).unwrap_err();
         assert_eq!(
             e.to_string(),

@@ -2,76 +2,35 @@
 //! ranges the scenario gate allows, so a checked scenario builds a design;
 //! the narrower grids of what is usually made live in `catalogue`.
 
-use super::error::Bounds;
+use super::error::NamedBounds;
 
 /// Any addition over the distance power, in dioptres.
-pub(crate) const ADDITION: Bounds = Bounds {
-    parameter: "addition",
-    min: 0.0,
-    max: 4.0,
-    unit: "D",
-};
+pub(crate) const ADDITION: NamedBounds = NamedBounds::new("addition", 0.0, 4.0, "D");
 
 /// Near addition of a degressive lens, in dioptres.
-pub(crate) const NEAR_ADDITION: Bounds = Bounds {
-    parameter: "near addition",
-    min: 0.5,
-    max: 4.0,
-    unit: "D",
-};
+pub(crate) const NEAR_ADDITION: NamedBounds = NamedBounds::new("near addition", 0.5, 4.0, "D");
 
 /// Degression of a degressive lens, in dioptres.
-pub(crate) const DEGRESSION: Bounds = Bounds {
-    parameter: "degression",
-    min: 0.5,
-    max: 2.5,
-    unit: "D",
-};
+pub(crate) const DEGRESSION: NamedBounds = NamedBounds::new("degression", 0.5, 2.5, "D");
 
 /// Progression length, fitting point to near reference point, in millimetres.
-pub(crate) const PROGRESSION_LENGTH: Bounds = Bounds {
-    parameter: "progression length",
-    min: 10.0,
-    max: 24.0,
-    unit: "mm",
-};
+pub(crate) const PROGRESSION_LENGTH: NamedBounds =
+    NamedBounds::new("progression length", 10.0, 24.0, "mm");
 
 /// Segment top relative to the fitting point, in millimetres.
-pub(crate) const SEGMENT_TOP: Bounds = Bounds {
-    parameter: "segment top",
-    min: -20.0,
-    max: 5.0,
-    unit: "mm",
-};
+pub(crate) const SEGMENT_TOP: NamedBounds = NamedBounds::new("segment top", -20.0, 5.0, "mm");
 
 /// Bottom edge of an upper segment relative to the fitting point, in millimetres.
-pub(crate) const UPPER_BOTTOM: Bounds = Bounds {
-    parameter: "upper segment bottom",
-    min: 3.0,
-    max: 25.0,
-    unit: "mm",
-};
+pub(crate) const UPPER_BOTTOM: NamedBounds =
+    NamedBounds::new("upper segment bottom", 3.0, 25.0, "mm");
 
 /// Trifocal intermediate power as a share of the near addition.
-pub(crate) const INTERMEDIATE_RATIO: Bounds = Bounds {
-    parameter: "intermediate ratio",
-    min: 0.3,
-    max: 0.8,
-    unit: "",
-};
+pub(crate) const INTERMEDIATE_RATIO: NamedBounds =
+    NamedBounds::new("intermediate ratio", 0.3, 0.8, "");
 
 /// Height of a trifocal intermediate band, in millimetres.
-pub(crate) const BAND_HEIGHT: Bounds = Bounds {
-    parameter: "intermediate band height",
-    min: 4.0,
-    max: 12.0,
-    unit: "mm",
-};
+pub(crate) const BAND_HEIGHT: NamedBounds =
+    NamedBounds::new("intermediate band height", 4.0, 12.0, "mm");
 
 /// Nasal inset of a corridor's near end, in millimetres.
-pub(crate) const CORRIDOR_INSET: Bounds = Bounds {
-    parameter: "near inset",
-    min: 0.0,
-    max: 5.0,
-    unit: "mm",
-};
+pub(crate) const CORRIDOR_INSET: NamedBounds = NamedBounds::new("near inset", 0.0, 5.0, "mm");

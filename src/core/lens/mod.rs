@@ -19,6 +19,7 @@ mod degressive;
 mod double_segment;
 mod error;
 mod limits;
+mod parameter;
 mod progressive;
 mod ramp;
 mod segment;
@@ -30,13 +31,15 @@ mod tests;
 
 pub use bifocal::Bifocal;
 pub use catalogue::{
-    Candidates, Grid, ADDITION_GRID, DEGRESSION_GRID, INTERMEDIATE_RATIO_GRID,
-    PROGRESSION_LENGTH_GRID, SEGMENT_TOP_GRID, SINGLE_VISION_ADDITION_GRID, UPPER_BOTTOM_GRID,
+    combination, combination_count, option_axes, with_values, Axis, Candidates, Grid,
+    ADDITION_GRID, DEGRESSION_GRID, INTERMEDIATE_RATIO_GRID, PROGRESSION_LENGTH_GRID,
+    SEGMENT_TOP_GRID, SINGLE_VISION_ADDITION_GRID, UPPER_BOTTOM_GRID,
 };
 pub use degressive::{Degressive, DEGRESSION_HEIGHT_MM, NEAR_REFERENCE_MM};
 pub use double_segment::DoubleSegment;
-pub(crate) use error::Bounds;
 pub use error::LensError;
+pub(crate) use error::NamedBounds;
+pub use parameter::Parameter;
 pub use progressive::{Progressive, DEFAULT_NEAR_INSET_MM, PROGRESSION_START_MM};
 pub use ramp::{PowerGradient, Ramp};
 pub use segment::SegmentShape;
@@ -45,6 +48,8 @@ pub use trifocal::{Trifocal, DEFAULT_BAND_HEIGHT_MM, DEFAULT_INTERMEDIATE_RATIO}
 
 use crate::core::units::{Dioptres, Millimetres};
 use crate::scenario::FamilyChoice;
+use serde::Serialize;
+use std::fmt;
 
 /// A point on the lens, in millimetres from the fitting point: `x` nasal
 /// positive, `y` up positive.
@@ -66,8 +71,10 @@ impl LensPoint {
     }
 }
 
-/// The named region of a lens a point belongs to.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+/// The named region of a lens a point belongs to. It is also the zone name
+/// the plan reports (as `plan::ZoneKind`), serialized in snake case.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize)]
+#[serde(rename_all = "snake_case")]
 pub enum Zone {
     /// One power over the whole lens (single vision).
     SingleVision,
@@ -82,6 +89,19 @@ pub enum Zone {
     Progression,
     /// The upper segment of a double-segment lens, for work overhead.
     UpperSegment,
+}
+
+impl fmt::Display for Zone {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_str(match self {
+            Zone::SingleVision => "single vision",
+            Zone::Distance => "distance",
+            Zone::Intermediate => "intermediate",
+            Zone::Near => "near",
+            Zone::Progression => "corridor",
+            Zone::UpperSegment => "upper segment",
+        })
+    }
 }
 
 /// What a design gives at one lens point.
@@ -125,20 +145,9 @@ impl VerticalExtent {
         fitting_height: Millimetres,
         lens_height: Millimetres,
     ) -> Result<VerticalExtent, LensError> {
-        let lens_height = error::Bounds {
-            parameter: "lens height",
-            min: 15.0,
-            max: 70.0,
-            unit: "mm",
-        }
-        .check(lens_height.0)?;
-        let fitting_height = error::Bounds {
-            parameter: "fitting height",
-            min: 1.0,
-            max: lens_height - 1.0,
-            unit: "mm",
-        }
-        .check(fitting_height.0)?;
+        let lens_height = NamedBounds::new("lens height", 15.0, 70.0, "mm").check(lens_height.0)?;
+        let fitting_height = NamedBounds::new("fitting height", 1.0, lens_height - 1.0, "mm")
+            .check(fitting_height.0)?;
         Ok(VerticalExtent {
             bottom: -fitting_height,
             top: lens_height - fitting_height,

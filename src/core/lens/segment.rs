@@ -3,25 +3,15 @@
 //! lens with a nasal inset. It answers "is this lens point inside the
 //! segment?" and "how wide is the segment at this height?".
 
-use super::error::{Bounds, LensError};
+use super::error::{LensError, NamedBounds};
 use crate::core::units::Millimetres;
 
 /// Allowed segment widths, in millimetres. Straight-top segments are commonly
 /// made 22 to 45 mm wide (28 mm the most usual): from memory.
-const WIDTH: Bounds = Bounds {
-    parameter: "segment width",
-    min: 20.0,
-    max: 45.0,
-    unit: "mm",
-};
+const WIDTH: NamedBounds = NamedBounds::new("segment width", 20.0, 45.0, "mm");
 
 /// Allowed nasal insets of the segment centre, in millimetres.
-const INSET: Bounds = Bounds {
-    parameter: "segment inset",
-    min: 0.0,
-    max: 5.0,
-    unit: "mm",
-};
+const INSET: NamedBounds = NamedBounds::new("segment inset", 0.0, 5.0, "mm");
 
 /// The shape and placement of a straight-top segment.
 ///
@@ -57,12 +47,12 @@ impl SegmentShape {
         inset: Millimetres,
     ) -> Result<SegmentShape, LensError> {
         let width = WIDTH.check(width.0)?;
-        let edge_to_centre = Bounds {
-            parameter: "distance from the segment edge to its widest point",
-            min: 0.0,
-            max: 0.5 * width,
-            unit: "mm",
-        }
+        let edge_to_centre = NamedBounds::new(
+            "distance from the segment edge to its widest point",
+            0.0,
+            0.5 * width,
+            "mm",
+        )
         .check(edge_to_centre.0)?;
         let inset = INSET.check(inset.0)?;
         Ok(SegmentShape {
