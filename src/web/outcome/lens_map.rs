@@ -1,28 +1,40 @@
 //! The lens map: the chosen option's local addition over the lens, drawn
 //! from the family's own map, with the usable-zone edges, the fitting point
 //! and each task's crossing point labelled with the power found there.
+//! The shaded lens depends only on the design and the frame, so it is
+//! redrawn only when they change; the task points follow every edit.
 
 use crate::chart::lens_map::{shade, LensFrame};
 use crate::core::gaze::COR_BEHIND_CORNEA_MM;
 use crate::core::lens::LensDesign;
 use crate::core::units::{Dioptres, Millimetres};
 use crate::plan::{context::TOLERATED_ASTIGMATISM_D, OptionPlan};
-use crate::scenario::{Correction, Wearer};
+use crate::scenario::{Correction, FamilyChoice};
 use crate::web::state::use_app_state;
 use leptos::prelude::*;
 
 /// SVG width of the map.
 const WIDTH: f64 = 420.0;
-/// Sampling step of the map, in millimetres.
+/// Sampling step of the map, in millimetres (finer than a task point's label).
 const STEP_MM: f64 = 1.0;
 
-/// The lens map of option `o` for `wearer`.
-pub fn lens_map(o: &OptionPlan, wearer: &Wearer) -> impl IntoView {
+/// What the shaded lens depends on: the design, the fitting height, the lens
+/// height and the vertex distance, in millimetres.
+type Geometry = (FamilyChoice, f64, f64, f64);
+
+/// The shaded lens, zone edges and fitting cross for `geometry`, with the
+/// task points of `chosen` drawn over them.
+fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
     let state = use_app_state();
-    let Ok(design) = LensDesign::from_choice(&o.design) else {
+    let (choice, fitting_height, lens_height, vertex) = geometry;
+    let Ok(design) = LensDesign::from_choice(&choice) else {
         return view! { <p class="hint">"This option's lens cannot be drawn."</p> }.into_any();
     };
-    let frame = LensFrame::new(wearer.fitting_height_mm, wearer.lens_height_mm, WIDTH);
+    if !(fitting_height > 0.0 && lens_height > fitting_height) {
+        return view! { <p class="hint">"Correct the fitting height and lens height to draw the lens."</p> }
+            .into_any();
+    }
+    let frame = LensFrame::new(fitting_height, lens_height, WIDTH);
     let (width, height) = frame.size();
     let max_add = design.max_addition().0;
     let cells = frame
@@ -32,64 +44,104 @@ pub fn lens_map(o: &OptionPlan, wearer: &Wearer) -> impl IntoView {
             view! { <rect x=c.x y=c.y width={c.size + 0.3} height={c.size + 0.3} fill=shade(c.addition_d, max_add) /> }
         })
         .collect_view();
-    let vertex = match wearer.correction {
-        Correction::Spectacles { vertex_mm } => vertex_mm,
-        Correction::ContactLenses => 0.0,
-    };
     let edges = frame.zone_edges(
         &design,
         Dioptres(TOLERATED_ASTIGMATISM_D),
         Millimetres(vertex + COR_BEHIND_CORNEA_MM),
     );
-    let points = o
-        .tasks
-        .iter()
-        .map(|t| {
-            let index = t.task.index;
-            let (x, y) = (frame.x(t.lens_point.x.0), frame.y(t.lens_point.y.0));
-            let label = format!("{} {}", index + 1, t.local_power.addition);
-            let tooltip = format!(
-                "{}. {}: {} zone, addition {}, {}",
-                index + 1,
-                t.task.name,
-                t.zone,
-                t.local_power.addition,
-                t.verdict
-            );
-            view! {
-                <g class="lens-point" on:click=move |_| state.chosen_task.set(Some(index))>
-                    <title>{tooltip}</title>
-                    <circle cx=x cy=y r="5" />
-                    <text x={x + 8.0} y={y + 4.0}>{label}</text>
-                </g>
-            }
+    let points = move || {
+        chosen.with(|o| {
+            o.iter()
+                .flat_map(|o| o.tasks.iter())
+                .map(|t| {
+                    let index = t.task.index;
+                    let (x, y) = (frame.x(t.lens_point.x.0), frame.y(t.lens_point.y.0));
+                    let label = format!("{} {}", index + 1, t.local_power.addition);
+                    let tooltip = format!(
+                        "{}. {}: {} zone, addition {}, {}",
+                        index + 1,
+                        t.task.name,
+                        t.zone,
+                        t.local_power.addition,
+                        t.verdict
+                    );
+                    view! {
+                        <g class="lens-point" on:click=move |_| state.chosen_task.set(Some(index))>
+                            <title>{tooltip}</title>
+                            <circle cx=x cy=y r="5" />
+                            <text x={x + 8.0} y={y + 4.0}>{label}</text>
+                        </g>
+                    }
+                })
+                .collect_view()
         })
-        .collect_view();
+    };
     let (fx, fy) = (frame.x(0.0), frame.y(0.0));
     let outline = frame.outline();
+    let label = move || {
+        chosen.with(|o| {
+            o.as_ref()
+                .map(|o| o.option.label.clone())
+                .unwrap_or_default()
+        })
+    };
     view! {
-        <figure class="lens-map">
-            <svg viewBox=format!("0 0 {width:.0} {height:.0}") role="img" aria-labelledby="lens-map-caption" data-testid="lens-map">
-                <defs>
-                    <clipPath id="lens-clip">
-                        <path d=outline.clone() />
-                    </clipPath>
-                </defs>
-                <g clip-path="url(#lens-clip)">{cells}</g>
-                <path class="lens-outline" d=outline />
-                <path class="zone-edge" d=edges />
-                <path class="fitting-cross" d=format!("M{:.1} {fy:.1}h16M{fx:.1} {:.1}v16", fx - 8.0, fy - 8.0) />
-                {points}
-            </svg>
-            <figcaption id="lens-map-caption">
-                {format!(
-                    "{}: right lens as seen facing the wearer (nose side right). Shading: local addition, white 0.00 D to dark {}. Lines: edges of the zone where unwanted astigmatism stays under {:.2} D. Cross: fitting point. Dots: where each task is seen.",
-                    o.option.label,
-                    Dioptres(max_add),
-                    TOLERATED_ASTIGMATISM_D,
-                )}
-            </figcaption>
-        </figure>
+        <svg viewBox=format!("0 0 {width:.0} {height:.0}") role="img" aria-labelledby="lens-map-caption" data-testid="lens-map">
+            <defs>
+                <clipPath id="lens-clip">
+                    <path d=outline.clone() />
+                </clipPath>
+            </defs>
+            <g clip-path="url(#lens-clip)">{cells}</g>
+            <path class="lens-outline" d=outline />
+            <path class="zone-edge" d=edges />
+            <path class="fitting-cross" d=format!("M{:.1} {fy:.1}h16M{fx:.1} {:.1}v16", fx - 8.0, fy - 8.0) />
+            {points}
+        </svg>
+        <figcaption id="lens-map-caption">
+            {label}
+            {format!(
+                ": right lens as seen facing the wearer (nose side right). Shading: local addition, white 0.00 D to dark {}. Lines: edges of the zone where unwanted astigmatism stays under {:.2} D. Cross: fitting point. Dots: where each task is seen.",
+                Dioptres(max_add),
+                TOLERATED_ASTIGMATISM_D,
+            )}
+        </figcaption>
     }
     .into_any()
+}
+
+/// The lens map of the option chosen in the comparison (the best by default).
+#[component]
+pub fn LensMap() -> impl IntoView {
+    let state = use_app_state();
+    let chosen = Memo::new(move |_| {
+        let wanted = state.chosen_option.get();
+        state.outcome.with(|o| {
+            o.plan.as_ref().and_then(|p| {
+                wanted
+                    .and_then(|i| p.options.iter().find(|o| o.option.index == i))
+                    .or_else(|| p.options.first())
+                    .cloned()
+            })
+        })
+    });
+    let geometry = Memo::new(move |_| {
+        let choice = chosen.with(|o| o.as_ref().map(|o| o.design))?;
+        let (fitting, lens, vertex) = state.scenario.with(|s| {
+            let vertex = match s.wearer.correction {
+                Correction::Spectacles { vertex_mm } => vertex_mm,
+                Correction::ContactLenses => 0.0,
+            };
+            (s.wearer.fitting_height_mm, s.wearer.lens_height_mm, vertex)
+        });
+        Some((choice, fitting, lens, vertex))
+    });
+    view! {
+        <Show when=move || geometry.with(Option::is_some)>
+            <h3>"Lens map"</h3>
+            <figure class="lens-map">
+                {move || geometry.get().map(|g| drawing(g, chosen))}
+            </figure>
+        </Show>
+    }
 }

@@ -12,6 +12,7 @@ mod range_chart;
 use crate::plan::text::{amplitude_line, family_name, pupil_line};
 use crate::plan::{OptionPlan, Plan};
 use crate::web::state::use_app_state;
+use lens_map::LensMap;
 use leptos::prelude::*;
 use marks::verdict_mark;
 
@@ -146,13 +147,6 @@ pub fn OutcomePanel() -> impl IntoView {
             }
             .into_any();
         };
-        let chosen = state
-            .chosen_option
-            .get()
-            .and_then(|i| plan.options.iter().find(|o| o.option.index == i))
-            .or_else(|| plan.options.first())
-            .cloned();
-        let wearer = state.scenario.with(|s| s.wearer.clone());
         let detail = state.chosen_task.get().map(|t| task_detail(&plan, t));
         view! {
             <Show when=move || stale>
@@ -169,17 +163,21 @@ pub fn OutcomePanel() -> impl IntoView {
                 {matrix::comparison(&plan)}
                 {detail}
                 {range_chart::range_chart(&plan)}
-                <h3>"Lens map"</h3>
-                {chosen.as_ref().map(|o| lens_map::lens_map(o, &wearer))}
-                {order_sheet::order_sheet(&plan)}
             </div>
         }
         .into_any()
+    };
+    let sheet = move || {
+        state
+            .outcome
+            .with(|o| o.plan.as_ref().map(order_sheet::order_sheet))
     };
     view! {
         <section class="panel outcome" aria-labelledby="outcome-heading" data-testid="outcome">
             <h2 id="outcome-heading">"Plan"</h2>
             {body}
+            <LensMap />
+            {sheet}
         </section>
     }
 }
