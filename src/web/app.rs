@@ -41,6 +41,12 @@ pub fn App() -> impl IntoView {
                 <span class="tagline">"eyewear planning for working distances"</span>
             </div>
             <h1 data-testid="scenario-title">{move || state.scenario.with(|s| s.name.clone())}</h1>
+            <nav class="jump" aria-label="Sections">
+                <a href="#wearer-heading">"Wearer"</a>
+                <a href="#tasks-heading">"Working day"</a>
+                <a href="#options-heading">"Lens options"</a>
+                <a href="#outcome-heading">"Plan"</a>
+            </nav>
             <button type="button" data-testid="unit-toggle" on:click=toggle_unit>
                 {unit_label}
             </button>
