@@ -2,6 +2,7 @@
 //! delete (with undo), export, import, recovery of set-aside entries and
 //! erasing all local data; and the notice bar that reports what happened.
 
+use super::fields::TextField;
 use super::files::{download_json, read_text};
 use super::shelf::{now_ms, Notice, NoticeAction, SaveState, Shelf};
 use super::state::{use_app_state, AppState};
@@ -278,6 +279,33 @@ pub fn ShelfPanel() -> impl IntoView {
         confirming_erase.set(false);
     };
     let set_aside = move || shelf.library.with(|lib| lib.set_aside().to_vec());
+    let name = Signal::derive(move || state.scenario.with(|s| s.name.clone()));
+    let on_name = Callback::new(move |v: String| state.edit(|s| s.name = v));
+    let name_problem = Signal::derive(move || state.problem_at("name").map(|p| p.to_string()));
+    let note = Signal::derive(move || {
+        let id = shelf.current.get();
+        shelf
+            .library
+            .with(|lib| id.and_then(|id| lib.get(&id).map(|e| e.note.clone())))
+            .unwrap_or_default()
+    });
+    let no_problem = Signal::derive(|| None::<String>);
+    let on_note = Callback::new(move |v: String| {
+        let Some(id) = shelf.current.get_untracked() else {
+            shelf.tell(
+                "Edit the scenario once so it is stored, then add a note.",
+                false,
+                None,
+            );
+            return;
+        };
+        if let Some(result) = shelf
+            .library
+            .try_update(|lib| lib.set_note(&id, &v, now_ms()))
+        {
+            shelf.show_persisted(result);
+        }
+    });
 
     view! {
         <aside class="panel shelf" aria-labelledby="shelf-heading" data-testid="shelf">
@@ -288,6 +316,8 @@ pub fn ShelfPanel() -> impl IntoView {
                     SaveState::InMemoryOnly(why) => format!("Kept in this tab only: {why}"),
                 }}
             </p>
+            <TextField label="Scenario name" value=name on_input=on_name problem=name_problem test_id="scenario-name" />
+            <TextField label="Note" value=note on_input=on_note problem=no_problem test_id="scenario-note" />
             <div class="actions">
                 <button type="button" on:click=new_scenario data-testid="new-scenario">"New"</button>
                 <button type="button" on:click=duplicate>"Duplicate"</button>

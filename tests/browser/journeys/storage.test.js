@@ -359,3 +359,27 @@ test("erasing all local data removes every key of the app and nothing else", asy
   assert.deepEqual(page.problems(), []);
   await context.close();
 });
+
+test("renaming the open scenario and giving it a note are kept across a reload", async () => {
+  const { context, page, planner } = await freshPlanner(browser, server.url);
+  await planner.open();
+  const name = planner.byTestId("scenario-name");
+  await name.fill("Workstation 4, fictional");
+  await page.waitForFunction(
+    () => document.querySelector('[data-testid="scenario-title"]')?.textContent === "Workstation 4, fictional",
+  );
+  assert.ok((await planner.shelfNames()).includes("Workstation 4, fictional"), "the shelf follows");
+  await planner.byTestId("scenario-note").fill("second floor, left desk");
+  await waitForSaveState(page, "Saved on this device");
+  const stored = await storedByName(planner, "Workstation 4, fictional");
+  assert.equal(stored.entry.note, "second floor, left desk");
+
+  await planner.reload();
+  assert.equal(await planner.title(), "Workstation 4, fictional");
+  assert.equal(await planner.valueOf("scenario-note"), "second floor, left desk");
+
+  await name.fill("");
+  assert.equal(await planner.messageFor("scenario-name"), "", "an empty name is allowed while typing");
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
