@@ -70,7 +70,8 @@ case "${1:-}" in
     ensure_rust_tools
     ensure_node_tools
     say "serving on http://127.0.0.1:8080 (Ctrl-C stops)"
-    exec trunk serve --release --offline --address 127.0.0.1 --port 8080
+    # No auto-reload: its inline script would be refused by the Content-Security-Policy.
+    exec trunk serve --release --offline --no-autoreload --address 127.0.0.1 --port 8080
     ;;
   test)
     ensure_rust_tools
