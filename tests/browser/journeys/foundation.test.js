@@ -1,26 +1,15 @@
 // The app loads cleanly: no panic, no console error, nothing fetched from
 // another origin, and the demo scenario opens with a computed plan.
-import { test, before, after } from "node:test";
+import { test } from "node:test";
 import assert from "node:assert/strict";
-import { serveDist, launchBrowser, watchedPage, screenshot } from "../support/harness.js";
+import { appUnderTest, watchedPage, screenshot } from "../support/harness.js";
 
-let server;
-let browser;
-
-before(async () => {
-  server = await serveDist();
-  browser = await launchBrowser();
-});
-
-after(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const app = appUnderTest();
 
 test("first visit opens the demo scenario with a computed plan", async () => {
-  const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
-  const page = await watchedPage(context, server.url);
-  await page.goto(server.url);
+  const context = await app.browser().newContext({ viewport: { width: 1366, height: 900 } });
+  const page = await watchedPage(context, app.url());
+  await page.goto(app.url());
   await page.getByTestId("workspace").waitFor();
   await page.getByTestId("recommendation").waitFor();
   await screenshot(page, "desktop-first-screen", { fullPage: false });

@@ -1,32 +1,21 @@
 // Planning journeys: a user builds a scenario, reads the plan, switches
 // units, makes and corrects mistakes, changes the working day, prints the
 // plan sheet, and uses the app on a desktop and on tablets.
-import { test, before, after } from "node:test";
+import { test } from "node:test";
 import assert from "node:assert/strict";
 import { readFile, mkdir } from "node:fs/promises";
 import { join } from "node:path";
-import { serveDist, launchBrowser, screenshot, SHOTS } from "../support/harness.js";
+import { appUnderTest, screenshot, SHOTS } from "../support/harness.js";
 import { freshPlanner, VIEWPORTS } from "../support/planner-page.js";
 
 const VERDICT_WORDS = new Set(["comfortable", "in focus, tiring", "blurred"]);
 const DISTANCE = "tasks-0--distance_m";
 
-let server;
-let browser;
-
-before(async () => {
-  server = await serveDist();
-  browser = await launchBrowser();
-});
-
-after(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const app = appUnderTest();
 
 /** A fresh context with the demo loaded, then a new untitled scenario opened. */
 async function newScenario(options) {
-  const session = await freshPlanner(browser, server.url, options);
+  const session = await freshPlanner(app.browser(), app.url(), options);
   await session.planner.open();
   await session.planner.byTestId("new-scenario").click();
   await session.page.waitForFunction(
@@ -147,7 +136,7 @@ test("adding and removing tasks updates the cards and the comparison rows", asyn
 });
 
 test("the print view shows the plan sheet without the inputs", async () => {
-  const { context, page, planner } = await freshPlanner(browser, server.url);
+  const { context, page, planner } = await freshPlanner(app.browser(), app.url());
   await planner.open();
   await planner.byTestId("recommendation").waitFor();
   await page.emulateMedia({ media: "print" });
@@ -243,7 +232,7 @@ const LAYOUTS = [
 for (const [name, file] of LAYOUTS) {
   const { width, height } = VIEWPORTS[name];
   test(`layout at ${width}x${height} fits the window without sideways scrolling`, async () => {
-    const { context, page, planner } = await freshPlanner(browser, server.url, { viewport: VIEWPORTS[name] });
+    const { context, page, planner } = await freshPlanner(app.browser(), app.url(), { viewport: VIEWPORTS[name] });
     await planner.open();
     await planner.byTestId("range-chart").waitFor();
     await screenshot(page, file);
@@ -262,7 +251,7 @@ test(
   async () => {
     const offenders = [];
     for (const [name] of LAYOUTS) {
-      const { context, page, planner } = await freshPlanner(browser, server.url, { viewport: VIEWPORTS[name] });
+      const { context, page, planner } = await freshPlanner(app.browser(), app.url(), { viewport: VIEWPORTS[name] });
       await planner.open();
       await planner.byTestId("range-chart").waitFor();
       const { width, height } = VIEWPORTS[name];

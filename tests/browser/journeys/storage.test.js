@@ -3,29 +3,18 @@
 // item by item, a full storage keeps the work in the tab and offers an
 // export, two tabs follow each other, delete can be undone, and erasing
 // removes everything the app stored (and nothing else).
-import { test, before, after } from "node:test";
+import { test } from "node:test";
 import assert from "node:assert/strict";
 import { readFile } from "node:fs/promises";
 import { join, resolve } from "node:path";
-import { serveDist, launchBrowser, watchedPage } from "../support/harness.js";
+import { appUnderTest, watchedPage } from "../support/harness.js";
 import { freshPlanner, PlannerPage, SCENARIO_PREFIX } from "../support/planner-page.js";
 
 const ROOT = resolve(import.meta.dirname, "../../..");
 const OFFICE_DEMO = "Demo — fictional office worker with two monitors";
 const AGE = "wearer-age_years";
 
-let server;
-let browser;
-
-before(async () => {
-  server = await serveDist();
-  browser = await launchBrowser();
-});
-
-after(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const app = appUnderTest();
 
 /** Waits until the save state reads `text` exactly (or starts with it, for a prefix ending in ':'). */
 async function waitForSaveState(page, text) {
@@ -45,7 +34,7 @@ async function storedByName(planner, name) {
 }
 
 test("a reload keeps the edited value and the open scenario", async () => {
-  const { context, page, planner } = await freshPlanner(browser, server.url);
+  const { context, page, planner } = await freshPlanner(app.browser(), app.url());
   await planner.open();
   const electronics = "Demo — fictional electronics bench technician";
   await planner.openFromShelf(electronics);
@@ -76,7 +65,7 @@ test("a reload keeps the edited value and the open scenario", async () => {
 test(
   "a reload right after the first visit keeps the demo that was open",
   async () => {
-    const { context, page, planner } = await freshPlanner(browser, server.url);
+    const { context, page, planner } = await freshPlanner(app.browser(), app.url());
     await planner.open();
     assert.equal(await planner.title(), OFFICE_DEMO);
     await planner.reload();
@@ -87,7 +76,7 @@ test(
 );
 
 test("damaged and foreign stored items are set aside, the good scenarios still load", async () => {
-  const { context, page, planner } = await freshPlanner(browser, server.url);
+  const { context, page, planner } = await freshPlanner(app.browser(), app.url());
   await planner.open();
   const demos = await planner.shelfNames();
   assert.equal(demos.length, 5);
@@ -135,7 +124,7 @@ test("damaged and foreign stored items are set aside, the good scenarios still l
 });
 
 test("a bad import file is refused with a notice; a mixed file imports only the good scenario", async () => {
-  const { context, page, planner } = await freshPlanner(browser, server.url);
+  const { context, page, planner } = await freshPlanner(app.browser(), app.url());
   await planner.open();
   const before = await planner.shelfNames();
 
@@ -197,7 +186,7 @@ function storageThatFills() {
 }
 
 test("full storage keeps the edit in the tab and offers an export", async () => {
-  const { context, page, planner } = await freshPlanner(browser, server.url, { initScript: storageThatFills });
+  const { context, page, planner } = await freshPlanner(app.browser(), app.url(), { initScript: storageThatFills });
   await planner.open();
   await planner.byTestId("recommendation").waitFor();
   const title = await planner.title();
@@ -236,13 +225,19 @@ test("full storage keeps the edit in the tab and offers an export", async () => 
   await context.close();
 });
 
-test("an edit in one tab shows in the other", async () => {
-  const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
-  const first = new PlannerPage(await watchedPage(context, server.url), server.url);
+/** Two tabs of the app sharing one storage; the second has the office demo open. */
+async function twoTabsOnTheOfficeDemo() {
+  const context = await app.browser().newContext({ viewport: { width: 1366, height: 900 } });
+  const first = new PlannerPage(await watchedPage(context, app.url()), app.url());
   await first.open();
-  const second = new PlannerPage(await watchedPage(context, server.url), server.url);
+  const second = new PlannerPage(await watchedPage(context, app.url()), app.url());
   await second.open();
   await second.openFromShelf(OFFICE_DEMO);
+  return { context, first, second };
+}
+
+test("an edit in one tab shows in the other", async () => {
+  const { context, first, second } = await twoTabsOnTheOfficeDemo();
   assert.equal(await first.title(), OFFICE_DEMO);
   assert.notEqual(await first.valueOf(AGE), "61");
 
@@ -272,12 +267,7 @@ test("an edit in one tab shows in the other", async () => {
 });
 
 test("a scenario deleted in one tab stays open in the other and is stored again on its next edit", async () => {
-  const context = await browser.newContext({ viewport: { width: 1366, height: 900 } });
-  const first = new PlannerPage(await watchedPage(context, server.url), server.url);
-  await first.open();
-  const second = new PlannerPage(await watchedPage(context, server.url), server.url);
-  await second.open();
-  await second.openFromShelf(OFFICE_DEMO);
+  const { context, first, second } = await twoTabsOnTheOfficeDemo();
 
   await first.openFromShelf(OFFICE_DEMO);
   await first.byTestId("delete-scenario").click();
@@ -302,7 +292,7 @@ test("a scenario deleted in one tab stays open in the other and is stored again 
 });
 
 test("a deleted scenario comes back with Undo", async () => {
-  const { context, page, planner } = await freshPlanner(browser, server.url);
+  const { context, page, planner } = await freshPlanner(app.browser(), app.url());
   await planner.open();
   const names = await planner.shelfNames();
   const { key } = await storedByName(planner, OFFICE_DEMO);
@@ -332,7 +322,7 @@ test("a deleted scenario comes back with Undo", async () => {
 });
 
 test("erasing all local data removes every key of the app and nothing else", async () => {
-  const { context, page, planner } = await freshPlanner(browser, server.url);
+  const { context, page, planner } = await freshPlanner(app.browser(), app.url());
   await planner.open();
   await planner.openFromShelf(OFFICE_DEMO);
   await page.evaluate(() => localStorage.setItem("another-app/preferences", "{\"dark\":true}"));
@@ -361,7 +351,7 @@ test("erasing all local data removes every key of the app and nothing else", asy
 });
 
 test("renaming the open scenario and giving it a note are kept across a reload", async () => {
-  const { context, page, planner } = await freshPlanner(browser, server.url);
+  const { context, page, planner } = await freshPlanner(app.browser(), app.url());
   await planner.open();
   const name = planner.byTestId("scenario-name");
   await name.fill("Workstation 4, fictional");

@@ -5,6 +5,7 @@
 import { createServer } from "node:http";
 import { readFile, mkdir } from "node:fs/promises";
 import { extname, join, normalize, resolve } from "node:path";
+import { before, after } from "node:test";
 import { chromium } from "playwright-core";
 
 const ROOT = resolve(import.meta.dirname, "../../..");
@@ -95,4 +96,22 @@ export async function screenshot(page, name, { fullPage = true } = {}) {
   const path = join(SHOTS, `${name}.png`);
   await page.screenshot({ path, fullPage });
   return path;
+}
+
+/**
+ * Serves dist/ and starts Chromium once for a test file, and stops both
+ * after its last test. Returns getters for the browser and the app's address.
+ */
+export function appUnderTest() {
+  let server;
+  let browser;
+  before(async () => {
+    server = await serveDist();
+    browser = await launchBrowser();
+  });
+  after(async () => {
+    await browser?.close();
+    await server?.close();
+  });
+  return { browser: () => browser, url: () => server.url };
 }
