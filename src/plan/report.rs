@@ -123,22 +123,12 @@ pub fn task_plan(
         blur_disc_arcmin(Dioptres(defocus), ctx.pupil).map_err(PlanError::optics(field.clone()))?;
     let gaze = |e| PlanError::lens(field.clone())(e);
     let near_pd = ctx.fitting.near_pd(prep.distance).map_err(gaze)?;
-    let convergence = ctx
-        .fitting
-        .convergence_demand(Eye::Right, prep.distance)
-        .map_err(gaze)?
-        + ctx
-            .fitting
-            .convergence_demand(Eye::Left, prep.distance)
-            .map_err(gaze)?;
-    let inset = ctx
-        .fitting
-        .near_inset(Eye::Right, prep.distance)
-        .map_err(gaze)?
-        + ctx
-            .fitting
-            .near_inset(Eye::Left, prep.distance)
-            .map_err(gaze)?;
+    let convergence = both_eyes(|eye| {
+        ctx.fitting
+            .convergence_demand(eye, prep.distance)
+            .map_err(gaze)
+    })?;
+    let inset = both_eyes(|eye| ctx.fitting.near_inset(eye, prep.distance).map_err(gaze))?;
     // Both lines of sight are taken at the right eye's height, the optical
     // centres at the fitting points; a line of sight beyond the lens's edge
     // meets no prism, so the height is limited to the lens.
@@ -189,4 +179,12 @@ pub fn task_plan(
             vertical_imbalance: PrismDioptres(imbalance.difference.0.abs()),
         },
     })
+}
+
+/// The sum over both eyes of a per-eye quantity (a prism, a distance), the
+/// right eye's taken first so that its error, if any, is the one reported.
+fn both_eyes<T: std::ops::Add<Output = T>, E>(
+    per_eye: impl Fn(Eye) -> Result<T, E>,
+) -> Result<T, E> {
+    Ok(per_eye(Eye::Right)? + per_eye(Eye::Left)?)
 }

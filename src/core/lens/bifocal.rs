@@ -5,7 +5,7 @@
 use super::error::LensError;
 use super::limits::{ADDITION, SEGMENT_TOP};
 use super::segment::SegmentShape;
-use super::{HeightBand, HeightBands, LensPoint, LensSample, VerticalExtent, Zone};
+use super::{BandSearch, HeightBand, LensPoint, LensSample, Zone};
 use crate::core::units::{Dioptres, Millimetres};
 
 /// A straight-top bifocal.
@@ -49,41 +49,21 @@ impl Bifocal {
 
     /// The addition and zone at a lens point.
     pub fn evaluate(&self, point: LensPoint) -> LensSample {
-        if self.shape.contains(point.x.0, self.top - point.y.0) {
-            LensSample {
+        match self.shape.depth_below(self.top, point) {
+            Some(_) => LensSample {
                 addition: Dioptres(self.addition),
                 zone: Zone::Near,
-            }
-        } else {
-            LensSample {
-                addition: Dioptres(0.0),
-                zone: Zone::Distance,
-            }
+            },
+            None => LensSample::DISTANCE,
         }
     }
 
     /// Heights, along the segment's centre line, of the segment and of the
-    /// distance portion above and below it, for whichever is within
-    /// `tolerance` of `wanted`.
-    pub(crate) fn bands_for(
-        &self,
-        wanted: f64,
-        tolerance: f64,
-        extent: VerticalExtent,
-    ) -> HeightBands {
-        let mut bands = HeightBands::default();
+    /// distance portion above and below it, offered to `search`.
+    pub(crate) fn offer_bands(&self, search: &mut BandSearch) {
         let top = Millimetres(self.top);
         let bottom = top - self.shape.depth();
-        if wanted.abs() <= tolerance {
-            bands.push_clipped(HeightBand::new(top, extent.top(), Zone::Distance), extent);
-            bands.push_clipped(
-                HeightBand::new(extent.bottom(), bottom, Zone::Distance),
-                extent,
-            );
-        }
-        if (wanted - self.addition).abs() <= tolerance {
-            bands.push_clipped(HeightBand::new(bottom, top, Zone::Near), extent);
-        }
-        bands
+        search.offer(0.0, &self.shape.distance_around(top, search.extent()));
+        search.offer(self.addition, &[HeightBand::new(bottom, top, Zone::Near)]);
     }
 }

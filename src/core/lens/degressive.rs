@@ -10,8 +10,8 @@
 
 use super::error::{LensError, NamedBounds};
 use super::limits::{CORRIDOR_INSET, DEGRESSION, NEAR_ADDITION};
-use super::ramp::Ramp;
-use super::{corridor_zone, LensPoint, LensSample, Zone};
+use super::ramp::{Corridor, Ramp};
+use super::{LensPoint, LensSample, Zone};
 use crate::core::units::{Dioptres, Millimetres};
 
 /// Default height of the near reference point, in millimetres from the
@@ -34,8 +34,7 @@ const DEGRESSION_HEIGHT: NamedBounds = NamedBounds::new("degression height", 8.0
 /// A degressive-power lens: near addition, degression and the model's layout.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Degressive {
-    ramp: Ramp,
-    inset: f64,
+    corridor: Corridor,
 }
 
 impl Degressive {
@@ -75,46 +74,45 @@ impl Degressive {
         let height = DEGRESSION_HEIGHT.check(degression_height.0)?;
         let inset = CORRIDOR_INSET.check(near_inset.0)?;
         Ok(Degressive {
-            ramp: Ramp::new(
-                Millimetres(bottom + height),
-                Millimetres(bottom),
-                Dioptres(near - degression),
-                Dioptres(near),
+            corridor: Corridor::new(
+                Ramp::new(
+                    Millimetres(bottom + height),
+                    Millimetres(bottom),
+                    Dioptres(near - degression),
+                    Dioptres(near),
+                ),
+                inset,
             ),
-            inset,
         })
     }
 
     /// The addition at the near reference point and below, in dioptres.
     pub fn near_addition(&self) -> Dioptres {
-        self.ramp.bottom_value()
+        self.ramp().bottom_value()
     }
 
     /// The power lost from the near reference point to the top, in dioptres.
     pub fn degression(&self) -> Dioptres {
-        self.ramp.bottom_value() - self.ramp.top_value()
+        self.ramp().bottom_value() - self.ramp().top_value()
     }
 
     /// The addition of the upper zone (near addition less degression), in dioptres.
     pub fn upper_addition(&self) -> Dioptres {
-        self.ramp.top_value()
+        self.ramp().top_value()
     }
 
     /// The power profile along the corridor.
     pub fn ramp(&self) -> &Ramp {
-        &self.ramp
+        self.corridor.ramp()
     }
 
     /// The corridor centre line's nasal offset at height `y`, in millimetres.
     pub fn corridor_x(&self, y: Millimetres) -> Millimetres {
-        Millimetres(self.inset * self.ramp.progress(y))
+        self.corridor.x_at(y)
     }
 
     /// The addition and zone at a lens point (the addition depends on the height only).
     pub fn evaluate(&self, point: LensPoint) -> LensSample {
-        LensSample {
-            addition: self.ramp.value_at(point.y),
-            zone: corridor_zone(&self.ramp, point.y, Zone::Intermediate),
-        }
+        self.corridor.sample(point, Zone::Intermediate)
     }
 }

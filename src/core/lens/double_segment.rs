@@ -5,7 +5,7 @@
 use super::error::LensError;
 use super::limits::{ADDITION, SEGMENT_TOP, UPPER_BOTTOM};
 use super::segment::SegmentShape;
-use super::{HeightBand, HeightBands, LensPoint, LensSample, VerticalExtent, Zone};
+use super::{BandSearch, HeightBand, LensPoint, LensSample, Zone};
 use crate::core::units::{Dioptres, Millimetres};
 
 /// A double-segment lens.
@@ -67,10 +67,9 @@ impl DoubleSegment {
 
     /// The addition and zone at a lens point.
     pub fn evaluate(&self, point: LensPoint) -> LensSample {
-        let (x, y) = (point.x.0, point.y.0);
-        let zone = if self.shape.contains(x, self.lower_top - y) {
+        let zone = if self.shape.depth_below(self.lower_top, point).is_some() {
             Zone::Near
-        } else if self.shape.contains(x, y - self.upper_bottom) {
+        } else if self.shape.covers_above(self.upper_bottom, point) {
             Zone::UpperSegment
         } else {
             Zone::Distance
@@ -87,36 +86,26 @@ impl DoubleSegment {
     }
 
     /// Heights, along the segments' centre line, of the lower segment, the
-    /// distance portion and the upper segment, for whichever is within
-    /// `tolerance` of `wanted`.
-    pub(crate) fn bands_for(
-        &self,
-        wanted: f64,
-        tolerance: f64,
-        extent: VerticalExtent,
-    ) -> HeightBands {
-        let mut bands = HeightBands::default();
+    /// distance portion and the upper segment, offered to `search`.
+    pub(crate) fn offer_bands(&self, search: &mut BandSearch) {
+        let extent = search.extent();
         let lower = Millimetres(self.lower_top);
         let upper = Millimetres(self.upper_bottom);
         let depth = self.shape.depth();
-        if (wanted - self.addition).abs() <= tolerance {
-            bands.push_clipped(HeightBand::new(lower - depth, lower, Zone::Near), extent);
-            bands.push_clipped(
+        search.offer(
+            self.addition,
+            &[
+                HeightBand::new(lower - depth, lower, Zone::Near),
                 HeightBand::new(upper, upper + depth, Zone::UpperSegment),
-                extent,
-            );
-        }
-        if wanted.abs() <= tolerance {
-            bands.push_clipped(HeightBand::new(lower, upper, Zone::Distance), extent);
-            bands.push_clipped(
+            ],
+        );
+        search.offer(
+            0.0,
+            &[
+                HeightBand::new(lower, upper, Zone::Distance),
                 HeightBand::new(extent.bottom(), lower - depth, Zone::Distance),
-                extent,
-            );
-            bands.push_clipped(
                 HeightBand::new(upper + depth, extent.top(), Zone::Distance),
-                extent,
-            );
-        }
-        bands
+            ],
+        );
     }
 }

@@ -113,6 +113,14 @@ pub struct LensSample {
     pub zone: Zone,
 }
 
+impl LensSample {
+    /// The distance portion of a segment lens: no addition.
+    pub(crate) const DISTANCE: LensSample = LensSample {
+        addition: Dioptres(0.0),
+        zone: Zone::Distance,
+    };
+}
+
 /// The lens families the product models.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
 pub enum Family {
@@ -225,6 +233,48 @@ impl HeightBands {
     }
 }
 
+/// A search for the lens heights where a design's addition lies within
+/// `tolerance` dioptres of `wanted`. Each family with zones of constant power
+/// offers every zone's addition with the height bands it covers; the search
+/// keeps the bands of the matching zones, cut to the lens extent, in the
+/// order they were offered.
+pub(crate) struct BandSearch {
+    wanted: f64,
+    tolerance: f64,
+    extent: VerticalExtent,
+    bands: HeightBands,
+}
+
+impl BandSearch {
+    fn new(wanted: f64, tolerance: f64, extent: VerticalExtent) -> BandSearch {
+        BandSearch {
+            wanted,
+            tolerance,
+            extent,
+            bands: HeightBands::default(),
+        }
+    }
+
+    /// The vertical extent of the lens the bands are cut to.
+    pub(crate) fn extent(&self) -> VerticalExtent {
+        self.extent
+    }
+
+    /// Keeps `bands` when `addition` (dioptres) lies within the tolerance of
+    /// the wanted addition.
+    pub(crate) fn offer(&mut self, addition: f64, bands: &[HeightBand]) {
+        if (self.wanted - addition).abs() <= self.tolerance {
+            for band in bands {
+                self.bands.push_clipped(*band, self.extent);
+            }
+        }
+    }
+
+    fn found(self) -> HeightBands {
+        self.bands
+    }
+}
+
 /// One lens design with checked parameters: any of the families.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum LensDesign {
@@ -332,14 +382,20 @@ impl LensDesign {
             return HeightBands::default();
         }
         let (w, t) = (wanted.0, tolerance.0);
+        let mut search = BandSearch::new(w, t, extent);
         match self {
-            LensDesign::SingleVision(d) => d.bands_for(w, t, extent),
-            LensDesign::Bifocal(d) => d.bands_for(w, t, extent),
-            LensDesign::Trifocal(d) => d.bands_for(w, t, extent),
-            LensDesign::Progressive(d) => ramp_bands(d.ramp(), w, t, extent, Zone::Distance),
-            LensDesign::Degressive(d) => ramp_bands(d.ramp(), w, t, extent, Zone::Intermediate),
-            LensDesign::DoubleSegment(d) => d.bands_for(w, t, extent),
+            LensDesign::SingleVision(d) => d.offer_bands(&mut search),
+            LensDesign::Bifocal(d) => d.offer_bands(&mut search),
+            LensDesign::Trifocal(d) => d.offer_bands(&mut search),
+            LensDesign::DoubleSegment(d) => d.offer_bands(&mut search),
+            LensDesign::Progressive(d) => {
+                return ramp_bands(d.ramp(), w, t, extent, Zone::Distance)
+            }
+            LensDesign::Degressive(d) => {
+                return ramp_bands(d.ramp(), w, t, extent, Zone::Intermediate)
+            }
         }
+        search.found()
     }
 
     /// The design a lens option describes when every parameter is fixed;

@@ -11,8 +11,8 @@
 
 use super::error::LensError;
 use super::limits::{ADDITION, CORRIDOR_INSET, PROGRESSION_LENGTH};
-use super::ramp::Ramp;
-use super::{corridor_zone, LensPoint, LensSample, Zone};
+use super::ramp::{Corridor, Ramp};
+use super::{LensPoint, LensSample, Zone};
 use crate::core::units::{Dioptres, Millimetres};
 
 /// How far below the fitting point the addition starts to rise, in
@@ -27,8 +27,7 @@ pub const DEFAULT_NEAR_INSET_MM: f64 = 2.5;
 /// A progressive-power lens: addition, progression length and near inset.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Progressive {
-    ramp: Ramp,
-    inset: f64,
+    corridor: Corridor,
 }
 
 impl Progressive {
@@ -44,56 +43,55 @@ impl Progressive {
         let length = PROGRESSION_LENGTH.check(progression_length.0)?;
         let inset = CORRIDOR_INSET.check(near_inset.0)?;
         Ok(Progressive {
-            ramp: Ramp::new(
-                Millimetres(-PROGRESSION_START_MM),
-                Millimetres(-length),
-                Dioptres(0.0),
-                Dioptres(addition),
+            corridor: Corridor::new(
+                Ramp::new(
+                    Millimetres(-PROGRESSION_START_MM),
+                    Millimetres(-length),
+                    Dioptres(0.0),
+                    Dioptres(addition),
+                ),
+                inset,
             ),
-            inset,
         })
     }
 
     /// The full addition, reached at the near reference point, in dioptres.
     pub fn addition(&self) -> Dioptres {
-        self.ramp.bottom_value()
+        self.ramp().bottom_value()
     }
 
     /// Fitting point to near reference point, in millimetres.
     pub fn progression_length(&self) -> Millimetres {
-        -self.ramp.bottom()
+        -self.ramp().bottom()
     }
 
     /// Nasal inset of the near reference point, in millimetres.
     pub fn near_inset(&self) -> Millimetres {
-        Millimetres(self.inset)
+        Millimetres(self.corridor.inset())
     }
 
     /// The near reference point on the lens.
     pub fn near_reference_point(&self) -> LensPoint {
         LensPoint {
-            x: Millimetres(self.inset),
-            y: self.ramp.bottom(),
+            x: Millimetres(self.corridor.inset()),
+            y: self.ramp().bottom(),
         }
     }
 
     /// The power profile along the corridor.
     pub fn ramp(&self) -> &Ramp {
-        &self.ramp
+        self.corridor.ramp()
     }
 
     /// The corridor centre line's nasal offset at height `y`, in millimetres.
     pub fn corridor_x(&self, y: Millimetres) -> Millimetres {
-        Millimetres(self.inset * self.ramp.progress(y))
+        self.corridor.x_at(y)
     }
 
     /// The addition and zone at a lens point: the addition depends on the
     /// height only (the model's simplification; see [`crate::core::astigmatism`]
     /// for the lateral limit of the corridor).
     pub fn evaluate(&self, point: LensPoint) -> LensSample {
-        LensSample {
-            addition: self.ramp.value_at(point.y),
-            zone: corridor_zone(&self.ramp, point.y, Zone::Distance),
-        }
+        self.corridor.sample(point, Zone::Distance)
     }
 }

@@ -2,8 +2,11 @@
 //! lenses: a raised-cosine ramp between two heights on the lens, with its
 //! gradient and its exact inverse (the height at which a given addition is
 //! reached). The shape is a model chosen for smoothness and a closed-form
-//! inverse, not any maker's design.
+//! inverse, not any maker's design. A [`Corridor`] pairs a ramp with the
+//! nasal inset its centre line follows, and gives the addition and zone at
+//! a lens point for both corridor families.
 
+use super::{corridor_zone, LensPoint, LensSample, Zone};
 use crate::core::units::{Dioptres, Millimetres};
 
 /// The rate at which the addition changes along the corridor, in dioptres per
@@ -144,5 +147,46 @@ impl Ramp {
             self.top_value.min(self.bottom_value),
             self.top_value.max(self.bottom_value),
         )
+    }
+}
+
+/// The corridor of a progressive or degressive lens: its power profile and
+/// the nasal inset, in millimetres, that its centre line reaches at the
+/// ramp's bottom, moving nasally with the ramp's progress.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct Corridor {
+    ramp: Ramp,
+    inset: f64,
+}
+
+impl Corridor {
+    /// A corridor following `ramp`, inset `inset` millimetres at its bottom.
+    /// Callers check the inset before building one.
+    pub(crate) fn new(ramp: Ramp, inset: f64) -> Corridor {
+        Corridor { ramp, inset }
+    }
+
+    /// The power profile along the corridor.
+    pub(crate) fn ramp(&self) -> &Ramp {
+        &self.ramp
+    }
+
+    /// The nasal inset at the ramp's bottom, in millimetres.
+    pub(crate) fn inset(&self) -> f64 {
+        self.inset
+    }
+
+    /// The centre line's nasal offset at height `y`, in millimetres.
+    pub(crate) fn x_at(&self, y: Millimetres) -> Millimetres {
+        Millimetres(self.inset * self.ramp.progress(y))
+    }
+
+    /// The addition and zone at a lens point, which depend on its height
+    /// only; `above` names the zone over the ramp.
+    pub(crate) fn sample(&self, point: LensPoint, above: Zone) -> LensSample {
+        LensSample {
+            addition: self.ramp.value_at(point.y),
+            zone: corridor_zone(&self.ramp, point.y, above),
+        }
     }
 }

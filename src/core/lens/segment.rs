@@ -4,6 +4,7 @@
 //! segment?" and "how wide is the segment at this height?".
 
 use super::error::{LensError, NamedBounds};
+use super::{HeightBand, LensPoint, VerticalExtent, Zone};
 use crate::core::units::Millimetres;
 
 /// Allowed segment widths, in millimetres. Straight-top segments are commonly
@@ -94,6 +95,37 @@ impl SegmentShape {
     pub fn contains(&self, x: f64, depth: f64) -> bool {
         let half = 0.5 * self.chord_at_depth(depth).0;
         depth >= 0.0 && half > 0.0 && (x - self.inset).abs() <= half
+    }
+
+    /// How far, in millimetres, `point` lies below a straight top at height
+    /// `top` (millimetres from the fitting point) when it is inside a segment
+    /// of this shape hanging from that top; `None` outside it.
+    pub(crate) fn depth_below(&self, top: f64, point: LensPoint) -> Option<f64> {
+        let depth = top - point.y.0;
+        self.contains(point.x.0, depth).then_some(depth)
+    }
+
+    /// Whether `point` is inside an inverted segment of this shape standing
+    /// on a straight bottom edge at height `bottom` (millimetres from the
+    /// fitting point).
+    pub(crate) fn covers_above(&self, bottom: f64, point: LensPoint) -> bool {
+        self.contains(point.x.0, point.y.0 - bottom)
+    }
+
+    /// The distance portion around a segment hanging from a straight top at
+    /// height `top`: from the top up to the lens top, and from the segment's
+    /// lowest point down to the lens bottom (heights in millimetres from the
+    /// fitting point).
+    pub(crate) fn distance_around(
+        &self,
+        top: Millimetres,
+        extent: VerticalExtent,
+    ) -> [HeightBand; 2] {
+        let bottom = top - self.depth();
+        [
+            HeightBand::new(top, extent.top(), Zone::Distance),
+            HeightBand::new(extent.bottom(), bottom, Zone::Distance),
+        ]
     }
 }
 

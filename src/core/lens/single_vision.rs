@@ -4,7 +4,7 @@
 
 use super::error::LensError;
 use super::limits::ADDITION;
-use super::{HeightBand, HeightBands, LensPoint, LensSample, VerticalExtent, Zone};
+use super::{BandSearch, HeightBand, LensPoint, LensSample, Zone};
 use crate::core::units::Dioptres;
 
 /// A single-vision lens with one addition over the distance power everywhere.
@@ -34,21 +34,17 @@ impl SingleVision {
         }
     }
 
-    /// The whole lens height when its addition is within `tolerance` of `wanted`.
-    pub(crate) fn bands_for(
-        &self,
-        wanted: f64,
-        tolerance: f64,
-        extent: VerticalExtent,
-    ) -> HeightBands {
-        let mut bands = HeightBands::default();
-        if (wanted - self.addition).abs() <= tolerance {
-            bands.push_clipped(
-                HeightBand::new(extent.bottom(), extent.top(), Zone::SingleVision),
-                extent,
-            );
-        }
-        bands
+    /// The whole lens height, offered to `search` with the lens's addition.
+    pub(crate) fn offer_bands(&self, search: &mut BandSearch) {
+        let extent = search.extent();
+        search.offer(
+            self.addition,
+            &[HeightBand::new(
+                extent.bottom(),
+                extent.top(),
+                Zone::SingleVision,
+            )],
+        );
     }
 
     /// The largest addition anywhere on the lens, in dioptres.

@@ -5,7 +5,7 @@
 use super::error::LensError;
 use super::limits::{ADDITION, BAND_HEIGHT, INTERMEDIATE_RATIO, SEGMENT_TOP};
 use super::segment::SegmentShape;
-use super::{HeightBand, HeightBands, LensPoint, LensSample, VerticalExtent, Zone};
+use super::{BandSearch, HeightBand, LensPoint, LensSample, Zone};
 use crate::core::units::{Dioptres, Millimetres};
 
 /// The usual height of a trifocal's intermediate band, in millimetres
@@ -74,51 +74,33 @@ impl Trifocal {
 
     /// The addition and zone at a lens point.
     pub fn evaluate(&self, point: LensPoint) -> LensSample {
-        let depth = self.top - point.y.0;
-        if !self.shape.contains(point.x.0, depth) {
-            LensSample {
-                addition: Dioptres(0.0),
-                zone: Zone::Distance,
-            }
-        } else if depth < self.band {
-            LensSample {
+        match self.shape.depth_below(self.top, point) {
+            None => LensSample::DISTANCE,
+            Some(depth) if depth < self.band => LensSample {
                 addition: self.intermediate_addition(),
                 zone: Zone::Intermediate,
-            }
-        } else {
-            LensSample {
+            },
+            Some(_) => LensSample {
                 addition: Dioptres(self.addition),
                 zone: Zone::Near,
-            }
+            },
         }
     }
 
     /// Heights, along the segment's centre line, of the distance portion,
-    /// intermediate band and near part, for whichever is within `tolerance`
-    /// of `wanted`.
-    pub(crate) fn bands_for(
-        &self,
-        wanted: f64,
-        tolerance: f64,
-        extent: VerticalExtent,
-    ) -> HeightBands {
-        let mut bands = HeightBands::default();
+    /// intermediate band and near part, offered to `search`.
+    pub(crate) fn offer_bands(&self, search: &mut BandSearch) {
         let top = Millimetres(self.top);
         let near_top = self.near_top();
         let bottom = top - self.shape.depth();
-        if wanted.abs() <= tolerance {
-            bands.push_clipped(HeightBand::new(top, extent.top(), Zone::Distance), extent);
-            bands.push_clipped(
-                HeightBand::new(extent.bottom(), bottom, Zone::Distance),
-                extent,
-            );
-        }
-        if (wanted - self.intermediate_addition().0).abs() <= tolerance {
-            bands.push_clipped(HeightBand::new(near_top, top, Zone::Intermediate), extent);
-        }
-        if (wanted - self.addition).abs() <= tolerance {
-            bands.push_clipped(HeightBand::new(bottom, near_top, Zone::Near), extent);
-        }
-        bands
+        search.offer(0.0, &self.shape.distance_around(top, search.extent()));
+        search.offer(
+            self.intermediate_addition().0,
+            &[HeightBand::new(near_top, top, Zone::Intermediate)],
+        );
+        search.offer(
+            self.addition,
+            &[HeightBand::new(bottom, near_top, Zone::Near)],
+        );
     }
 }
