@@ -7,9 +7,9 @@ use crate::core::astigmatism::{usable_width, ZoneWidth};
 use crate::core::lens::{LensDesign, LensPoint};
 use crate::core::units::{Dioptres, Millimetres};
 
-/// Half the lens width drawn, in millimetres: a 50 mm box width is a
-/// typical adult frame (common practice); the scenario records only heights.
-pub const HALF_WIDTH_MM: f64 = 25.0;
+/// Half the lens width drawn, in millimetres: the typical lens the planner
+/// also assumes, since the scenario records only heights.
+pub const HALF_WIDTH_MM: f64 = crate::core::gaze::TYPICAL_LENS_HALF_WIDTH_MM;
 
 /// Maps lens millimetres to SVG units.
 #[derive(Debug, Clone, Copy, PartialEq)]

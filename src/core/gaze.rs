@@ -19,8 +19,8 @@ mod centration;
 mod posture;
 
 pub use centration::{
-    head_turn_per_side, horizontal_prism, prentice, subtended_angle, vertical_imbalance,
-    vertical_prism, VerticalImbalance,
+    head_turn_per_side, horizontal_prism, keep_on_lens, prentice, subtended_angle,
+    vertical_imbalance, vertical_prism, VerticalImbalance, TYPICAL_LENS_HALF_WIDTH_MM,
 };
 pub use posture::{ComfortRange, Posture, PostureOutcome, HEAD_PITCH_LIMIT_DEG};
 

@@ -19,7 +19,8 @@ use crate::core::accommodation::{ocular_from_spectacle, AgeModel, UsableShare};
 use crate::core::clear_range::Viewer;
 use crate::core::depth_of_field::{self, task_half_depth, DEFAULT_BLUR_TO_DETAIL};
 use crate::core::gaze::{
-    subtended_angle, Eye, Fitting, FittingParams, TaskPosition, COR_BEHIND_CORNEA_MM,
+    keep_on_lens, subtended_angle, Eye, Fitting, FittingParams, TaskPosition, COR_BEHIND_CORNEA_MM,
+    TYPICAL_LENS_HALF_WIDTH_MM,
 };
 use crate::core::lens::VerticalExtent;
 use crate::core::prescription::SpheroCylinder;
@@ -82,6 +83,10 @@ impl Band {
     }
 }
 
+/// How far inside the lens edge, in millimetres, a line of sight must stay
+/// to count as seen through the lens (the bevel and frame rim; common practice).
+pub const SIDE_MARGIN_MM: f64 = 3.0;
+
 /// One task prepared for the solver.
 #[derive(Debug, Clone, PartialEq)]
 pub struct TaskPrep {
@@ -95,8 +100,12 @@ pub struct TaskPrep {
     pub comfort: Band,
     /// Local additions that bring the task into focus with the full amplitude.
     pub focus: Band,
-    /// Lens x (nasal positive, mm) of the right eye's line of sight, head upright.
+    /// Lens x (nasal positive, mm) of the right eye's line of sight, head
+    /// upright, or at the lens edge when the task lies beyond it.
     pub x: f64,
+    /// Head turn towards the task, in degrees, that a task beyond the lens
+    /// edge needs before its line of sight meets the lens (0 otherwise).
+    pub side_turn: f64,
     /// Lens height (mm) of the right eye's line of sight at each head pitch,
     /// from `-MAX_CHIN_DOWN_DEG` to `MAX_CHIN_UP_DEG` in 1 degree steps;
     /// falls as the chin rises.
@@ -454,15 +463,22 @@ fn prepare_task(
         Millimetres(t.distance_m * 1000.0 + c),
     )
     .map_err(PlanError::lens(field))?;
+    let cor_to_lens = upright.map_or(c, |c| c.cor_to_lens.0);
+    let (x, side_turn) = keep_on_lens(
+        Millimetres(upright.map_or(0.0, |c| c.point.x.0)),
+        Millimetres(cor_to_lens),
+        Millimetres(TYPICAL_LENS_HALF_WIDTH_MM - SIDE_MARGIN_MM),
+    );
     let prep = TaskPrep {
         hours: t.hours_per_day,
         distance: Metres(t.distance_m),
         half_depth,
         comfort: addition_band(viewer, l, f, -dof, usable + dof),
         focus: addition_band(viewer, l, f, -dof, amp + dof),
-        x: upright.map_or(0.0, |c| c.point.x.0),
+        x: x.0,
+        side_turn: side_turn.0,
         heights,
-        cor_to_lens: upright.map_or(c, |c| c.cor_to_lens.0),
+        cor_to_lens,
         width_deg: width.0,
     };
     Ok((prep, upright.map_or(Degrees(0.0), |c| c.elevation)))

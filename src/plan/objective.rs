@@ -99,16 +99,18 @@ fn at(design: &LensDesign, prep: &TaskPrep, y: f64, pitch: f64) -> TaskChoice {
     }
 }
 
-/// Charges the head turn the chosen point needs to sweep the task. A turn
-/// only counts where the zone serves the task at all.
+/// Charges the head turns the task needs: towards a task beyond the lens
+/// edge, always; and to sweep a task wider than the zone, where the zone
+/// serves the task at all.
 fn with_turn(design: &LensDesign, prep: &TaskPrep, mut c: TaskChoice) -> TaskChoice {
-    if c.verdict == Verdict::Blurred || prep.width_deg <= 0.0 {
-        return c;
-    }
-    if let Some(zone) = zone_angle(design, c.y, prep.cor_to_lens) {
-        c.turn = (prep.width_deg - zone).max(0.0);
-        c.value -= prep.hours * TURN_WEIGHT_PER_DEG * c.turn;
-    }
+    let sweep = if c.verdict == Verdict::Blurred || prep.width_deg <= 0.0 {
+        0.0
+    } else {
+        zone_angle(design, c.y, prep.cor_to_lens)
+            .map_or(0.0, |zone| (prep.width_deg - zone).max(0.0))
+    };
+    c.turn = prep.side_turn + sweep;
+    c.value -= prep.hours * TURN_WEIGHT_PER_DEG * c.turn;
     c
 }
 

@@ -93,6 +93,39 @@ pub fn subtended_angle(width: Millimetres, distance: Millimetres) -> Result<Degr
     Ok(Degrees::from_radians(2.0 * (w / (2.0 * d)).atan()))
 }
 
+/// Half the horizontal size of a typical adult spectacle lens, in
+/// millimetres (a box width of about 50 mm; common practice). Scenarios
+/// record lens heights only, so sideways limits use this.
+pub const TYPICAL_LENS_HALF_WIDTH_MM: f64 = 25.0;
+
+/// Where the line of sight can cross the lens when a task lies so far to the
+/// side that the eye alone would look past the lens edge at `half_width`
+/// (mm from the fitting point): the head turns towards the task until the
+/// line of sight meets the edge. Takes the lens x of the upright crossing
+/// and the centre of rotation to lens distance (mm); returns the x used and
+/// the head turn, atan(|x| / c) - atan(half_width / c) (0 when on the lens).
+///
+/// ```
+/// use clearspan::core::gaze::keep_on_lens;
+/// use clearspan::core::units::Millimetres;
+/// // Worked by hand: x = 54 mm at c = 27 mm is atan(2) = 63.435°; the edge
+/// // at 27 mm is atan(1) = 45°, so the head turns 18.435° and x becomes 27.
+/// let (x, turn) = keep_on_lens(Millimetres(54.0), Millimetres(27.0), Millimetres(27.0));
+/// assert!((x.0 - 27.0).abs() < 1e-12 && (turn.0 - 18.435).abs() < 1e-3);
+/// ```
+pub fn keep_on_lens(
+    x: Millimetres,
+    cor_to_lens: Millimetres,
+    half_width: Millimetres,
+) -> (Millimetres, Degrees) {
+    let (c, edge) = (cor_to_lens.0.max(1.0), half_width.0.abs());
+    if !x.0.is_finite() || x.0.abs() <= edge {
+        return (x, Degrees(0.0));
+    }
+    let turn = Degrees::from_radians((x.0.abs() / c).atan() - (edge / c).atan());
+    (Millimetres(edge.copysign(x.0)), turn)
+}
+
 /// How far (degrees) the head must turn to each side to bring the edges of a
 /// task spanning `task_angle` into a zone spanning `zone_angle` (both seen
 /// from the eye): half the excess, zero when the zone is wide enough.

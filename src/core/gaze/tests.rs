@@ -433,3 +433,20 @@ proptest! {
         }
     }
 }
+
+#[test]
+fn a_task_beyond_the_lens_edge_costs_a_head_turn() {
+    // On the lens nothing changes; beyond it the head turns by the angle
+    // between the eye's line of sight and the edge, both seen from the centre
+    // of rotation (tan rule, worked by hand): atan(48.5 / 27) - atan(22 / 27)
+    // = 60.896° - 39.174° = 21.722°.
+    let check = |x: f64, expected_x: f64, expected_turn: f64| {
+        let (used, turn) = keep_on_lens(Millimetres(x), Millimetres(27.0), Millimetres(22.0));
+        assert!((used.0 - expected_x).abs() < 1e-9, "x {x}: {used:?}");
+        assert!((turn.0 - expected_turn).abs() < 1e-3, "x {x}: {turn:?}");
+    };
+    check(10.0, 10.0, 0.0);
+    check(-22.0, -22.0, 0.0);
+    check(48.5, 22.0, 21.722);
+    check(-48.5, -22.0, 21.722);
+}
