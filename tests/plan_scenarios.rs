@@ -284,3 +284,42 @@ fn options_are_ranked_and_every_task_gets_a_plan() {
     assert_eq!(best.option, p.options[0].option);
     assert_eq!(best.vertex, None);
 }
+
+#[test]
+fn a_task_below_the_lens_is_seen_through_its_lower_rim_with_the_chin_lowered() {
+    // Fitting point 12 mm above the lens bottom (a shallow frame). With the
+    // head upright, a line of sight 35° down from the centre of rotation,
+    // about 27 mm behind the lens, meets the lens plane roughly
+    // 27 x tan 35° ≈ 19 mm below the fitting point (small-tilt estimate),
+    // past the rim at -12 mm: the task is seen just inside the rim with the
+    // chin lowered. At 60° down even the chin-down limit cannot bring the
+    // line of sight onto the lens: the plan says no posture reaches it,
+    // never a point off the lens.
+    let mut w = wearer(1.0, 0.25);
+    w.fitting_height_mm = 12.0;
+    w.lens_height_mm = 30.0;
+    let p = plan_of(
+        w,
+        vec![
+            task("bench gauge", 1.0, -35.0, 1.0),
+            task("floor gauge", 1.0, -60.0, 1.0),
+        ],
+        vec![sv(Some(0.0))],
+    );
+    let on_lens = |t: &TaskPlan| (-12.0..=18.0).contains(&t.lens_point.y.0);
+    let bench = &p.options[0].tasks[0];
+    assert!(on_lens(bench), "seen on the lens: {:?}", bench.lens_point);
+    assert!(
+        bench.posture.reachable && bench.posture.chin_up.0 < 0.0,
+        "chin lowered: {}",
+        bench.posture
+    );
+    let floor = &p.options[0].tasks[1];
+    assert!(
+        on_lens(floor),
+        "reported on the lens rim: {:?}",
+        floor.lens_point
+    );
+    assert!(!floor.posture.reachable, "{}", floor.posture);
+    assert_eq!(floor.verdict, Verdict::Blurred);
+}

@@ -114,10 +114,34 @@ fn with_turn(design: &LensDesign, prep: &TaskPrep, mut c: TaskChoice) -> TaskCho
     c
 }
 
+/// A task whose upright line of sight passes above or below the lens: the
+/// head pitches until the line of sight meets the lens just inside its rim.
+/// If no allowed pitch does, the task is not seen through the lens at all
+/// and counts as blurred.
+fn onto_lens(design: &LensDesign, prep: &TaskPrep, y0: f64, extent: VerticalExtent) -> TaskChoice {
+    let rim = y0.clamp(
+        extent.bottom().0 + ZONE_MARGIN_MM,
+        extent.top().0 - ZONE_MARGIN_MM,
+    );
+    match prep.pitch_for(rim) {
+        Some(pitch) => at(design, prep, rim, pitch),
+        None => TaskChoice {
+            verdict: Verdict::Blurred,
+            value: 0.0,
+            out_of_reach: true,
+            ..at(design, prep, rim, 0.0)
+        },
+    }
+}
+
 /// The best way to see one task through `design` within the frame `extent`.
 pub fn assess(design: &LensDesign, prep: &TaskPrep, extent: VerticalExtent) -> TaskChoice {
     let y0 = prep.natural_y();
-    let mut best = at(design, prep, y0, 0.0);
+    let mut best = if extent.contains(Millimetres(y0)) {
+        at(design, prep, y0, 0.0)
+    } else {
+        onto_lens(design, prep, y0, extent)
+    };
     if best.verdict == Verdict::Comfortable {
         return with_turn(design, prep, best);
     }
@@ -155,7 +179,7 @@ pub fn assess(design: &LensDesign, prep: &TaskPrep, extent: VerticalExtent) -> T
             }
         }
     }
-    best.out_of_reach = comfort_on_lens && !comfort_reached;
+    best.out_of_reach |= comfort_on_lens && !comfort_reached;
     with_turn(design, prep, best)
 }
 
