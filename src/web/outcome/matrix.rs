@@ -44,8 +44,7 @@ pub fn comparison(plan: &Plan) -> impl IntoView {
                 <th scope="col">
                     <button type="button" class="option-head" aria-pressed=pressed on:click=move |_| state.chosen_option.set(Some(index))>
                         <span class="rank">{format!("#{}", o.rank)}</span>
-                        " "
-                        {label}
+                        <span>{label}</span>
                     </button>
                     <span class="score">{format!("{:.1} h comfortable", o.score.comfortable_hours)}</span>
                 </th>
