@@ -188,16 +188,6 @@ impl SpheroCylinder {
     }
 }
 
-/// Writes a power with an explicit sign and two decimals, without unit.
-fn signed(power: Dioptres) -> String {
-    let v = if power.0.abs() < 0.005 { 0.0 } else { power.0 };
-    if v > 0.0 {
-        format!("+{v:.2}")
-    } else {
-        format!("{v:.2}")
-    }
-}
-
 impl fmt::Display for SpheroCylinder {
     /// Writes the prescription the way it is written on an order, rounded to
     /// 0.25 D and a whole degree: "+1.25 / -0.50 × 180", or "+1.25 DS" with no
@@ -205,14 +195,14 @@ impl fmt::Display for SpheroCylinder {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         let r = self.rounded(Dioptres(0.25));
         if r.cylinder.0.abs() < 0.005 {
-            return write!(f, "{} DS", signed(r.sphere));
+            return write!(f, "{} DS", r.sphere.signed());
         }
         let axis = if r.axis.0 < 0.5 { 180.0 } else { r.axis.0 };
         write!(
             f,
             "{} / {} × {axis:.0}",
-            signed(r.sphere),
-            signed(r.cylinder)
+            r.sphere.signed(),
+            r.cylinder.signed()
         )
     }
 }

@@ -44,6 +44,17 @@ impl Dioptres {
         Dioptres((self.0 / step).round() * step)
     }
 
+    /// The power as prescriptions write it, without unit: explicit sign and
+    /// two decimals ("+1.25", "-0.50", "0.00").
+    pub fn signed(self) -> String {
+        let v = if self.0.abs() < 0.005 { 0.0 } else { self.0 };
+        if v > 0.0 {
+            format!("+{v:.2}")
+        } else {
+            format!("{v:.2}")
+        }
+    }
+
     /// The absolute value of the power, in dioptres.
     pub fn abs(self) -> Dioptres {
         Dioptres(self.0.abs())
@@ -125,12 +136,7 @@ impl fmt::Display for Dioptres {
     /// Writes the power the way prescriptions are written: explicit sign,
     /// two decimals, "D" (for example "+1.25 D", "-0.50 D", "0.00 D").
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        let v = if self.0.abs() < 0.005 { 0.0 } else { self.0 };
-        if v > 0.0 {
-            write!(f, "+{v:.2} D")
-        } else {
-            write!(f, "{v:.2} D")
-        }
+        write!(f, "{} D", self.signed())
     }
 }
 

@@ -732,7 +732,7 @@ impl fmt::Display for ClearRange {
 impl fmt::Display for SpectaclePower {
     /// Prescription notation: "+1.25 / -0.50 x 90", or "+1.25 DS" without cylinder.
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        let sphere = signed(self.sphere);
+        let sphere = self.sphere.signed();
         if self.cylinder.0.abs() < 0.005 {
             write!(f, "{sphere} DS")
         } else {
@@ -742,15 +742,9 @@ impl fmt::Display for SpectaclePower {
             } else {
                 self.axis.0
             };
-            write!(f, "{sphere} / {} x {axis:.0}", signed(self.cylinder))
+            write!(f, "{sphere} / {} x {axis:.0}", self.cylinder.signed())
         }
     }
-}
-
-/// A power as a signed number with two decimals and no unit ("+1.25", "-0.50", "0.00").
-fn signed(d: Dioptres) -> String {
-    let text = d.to_string();
-    text.trim_end_matches(" D").to_string()
 }
 
 impl fmt::Display for LocalPower {
@@ -760,7 +754,7 @@ impl fmt::Display for LocalPower {
             "R {}  L {}  (add {})",
             self.right,
             self.left,
-            signed(self.addition)
+            self.addition.signed()
         )
     }
 }
@@ -787,12 +781,12 @@ impl fmt::Display for UnservedReason {
             UnservedReason::NeedsMorePlus { short_by } => write!(
                 f,
                 "even the closest option is {} short of the plus needed for comfort",
-                signed(*short_by).trim_start_matches('+')
+                short_by.signed().trim_start_matches('+')
             ),
             UnservedReason::NeedsLessPlus { excess } => write!(
                 f,
                 "even the closest option gives {} too much plus for comfort",
-                signed(*excess).trim_start_matches('+')
+                excess.signed().trim_start_matches('+')
             ),
             UnservedReason::PowerOutOfReach => f.write_str(
                 "the right power is on the lens only at a head posture beyond what is reasonable",

@@ -28,8 +28,7 @@ fn same_value(a: Option<f64>, b: Option<f64>) -> bool {
 /// explicit sign on powers (two decimals, as prescriptions are written).
 fn written(value: f64, decimals: usize, signed: bool) -> String {
     if signed {
-        let text = crate::core::units::Dioptres(value).to_string();
-        text.trim_end_matches(" D").to_string()
+        crate::core::units::Dioptres(value).signed()
     } else {
         trim_number(value, decimals)
     }

@@ -202,7 +202,8 @@ impl Shelf {
     /// Remembers the open entry and, when given, the unit, for the next visit.
     pub fn remember(&self, unit: Option<LengthUnit>) {
         let current = self.current.get_untracked().map(|id| id.to_string());
-        self.library.update(|lib| {
+        // Only the settings key changes, so nothing that lists scenarios needs to redraw.
+        self.library.update_untracked(|lib| {
             let mut settings = read_settings(lib);
             settings.current = current;
             if let Some(unit) = unit {
