@@ -13,6 +13,9 @@ import { freshPlanner, PlannerPage, SCENARIO_PREFIX } from "../support/planner-p
 const ROOT = resolve(import.meta.dirname, "../../..");
 const OFFICE_DEMO = "Demo — fictional office worker with two monitors";
 const AGE = "wearer-age_years";
+// The demo days shipped in scenarios/ and the saved-format version this build writes.
+const DEMO_COUNT = 7;
+const FORMAT_VERSION = 2;
 
 const app = appUnderTest();
 
@@ -42,7 +45,7 @@ test("a reload keeps the edited value and the open scenario", async () => {
   await waitForSaveState(page, "Saved on this device");
   const stored = await storedByName(planner, electronics);
   assert.equal(stored.entry.format, "clearspan-scenario-entry");
-  assert.equal(stored.entry.version, 1);
+  assert.equal(stored.entry.version, FORMAT_VERSION);
   assert.equal(stored.entry.scenario.wearer.age_years, 53);
 
   await planner.reload();
@@ -56,7 +59,7 @@ test("a reload keeps the edited value and the open scenario", async () => {
   const again = await storedByName(planner, electronics);
   assert.equal(again.key, stored.key);
   assert.equal(again.entry.scenario.wearer.age_years, 54);
-  assert.equal(Object.keys(await planner.storedScenarios()).length, 5);
+  assert.equal(Object.keys(await planner.storedScenarios()).length, DEMO_COUNT);
 
   assert.deepEqual(page.problems(), []);
   await context.close();
@@ -79,7 +82,7 @@ test("damaged and foreign stored items are set aside, the good scenarios still l
   const { context, page, planner } = await freshPlanner(app.browser(), app.url());
   await planner.open();
   const demos = await planner.shelfNames();
-  assert.equal(demos.length, 5);
+  assert.equal(demos.length, DEMO_COUNT);
   const damaged = { key: `${SCENARIO_PREFIX}zz-damaged-1`, raw: '{"format":"clearspan-scenario-entry","version":1,' };
   const foreign = {
     key: `${SCENARIO_PREFIX}zz-foreign-2`,
@@ -135,7 +138,7 @@ test("a bad import file is refused with a notice; a mixed file imports only the 
   const refusal = (await planner.notices()).find((n) => n.startsWith("Nothing was imported"));
   assert.match(refusal, /not valid JSON/);
   assert.deepEqual(await planner.shelfNames(), before);
-  assert.equal(Object.keys(await planner.storedScenarios()).length, 5);
+  assert.equal(Object.keys(await planner.storedScenarios()).length, DEMO_COUNT);
 
   const demo = JSON.parse(await readFile(join(ROOT, "scenarios", "office-two-monitors.json"), "utf8"));
   const good = structuredClone(demo.scenarios[0]);
@@ -213,7 +216,7 @@ test("full storage keeps the edit in the tab and offers an export", async () => 
   assert.equal(exported.format, "clearspan-scenario-export");
   const mine = exported.scenarios.find((s) => s.scenario.name === title);
   assert.equal(mine.scenario.wearer.age_years, 58, "the export carries the edit storage refused");
-  assert.equal(exported.scenarios.length, 5);
+  assert.equal(exported.scenarios.length, DEMO_COUNT);
 
   // With room again, the next edit reaches storage and the state says so.
   await page.evaluate(() => window.__freeStorageForTest());
@@ -328,10 +331,10 @@ test("erasing all local data removes every key of the app and nothing else", asy
   await page.evaluate(() => localStorage.setItem("another-app/preferences", "{\"dark\":true}"));
   const ownKeys = Object.keys(await planner.storage()).filter((k) => k.startsWith("clearspan/"));
   assert.ok(ownKeys.includes("clearspan/settings"));
-  assert.equal(ownKeys.filter((k) => k.startsWith(SCENARIO_PREFIX)).length, 5);
+  assert.equal(ownKeys.filter((k) => k.startsWith(SCENARIO_PREFIX)).length, DEMO_COUNT);
 
   await page.getByRole("button", { name: "Erase all local data…" }).click();
-  assert.equal(Object.keys(await planner.storedScenarios()).length, 5, "nothing is erased before confirming");
+  assert.equal(Object.keys(await planner.storedScenarios()).length, DEMO_COUNT, "nothing is erased before confirming");
   await planner.byTestId("confirm-erase").click();
   await page.waitForFunction(() =>
     [...document.querySelectorAll('[data-testid="notice"] p')].some((p) => p.textContent.startsWith("Erased all")),
