@@ -7,6 +7,7 @@
 
 mod collection;
 pub mod demos;
+mod field_path;
 pub mod format;
 pub mod migrate;
 mod naming;

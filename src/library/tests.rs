@@ -368,7 +368,7 @@ fn a_value_that_would_not_read_back_is_never_written() {
     let Err(LibraryError::NotStorable(errors)) = lib.save(&a, bad, 5) else {
         panic!("NaN must not be written as null")
     };
-    assert_eq!(errors[0].path, "scenario.tasks[0]");
+    assert_eq!(errors[0].path, "scenario.tasks[0].distance_m");
     contains(
         &LibraryError::NotStorable(errors).to_string(),
         "cannot be saved until a value is corrected",
