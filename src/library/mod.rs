@@ -28,8 +28,8 @@ pub use format::{
 pub use migrate::{migrate_entry, migrate_export, DocumentItem, ExportDocument, FormatError};
 pub use naming::unique_name;
 pub use read::{
-    check_nesting, parse_limited, read_document, read_document_bytes, read_entry, ReadError,
-    MAX_DOCUMENT_BYTES, MAX_NESTING,
+    check_nesting, document_text, parse_limited, read_document, read_document_bytes, read_entry,
+    ReadError, MAX_DOCUMENT_BYTES, MAX_NESTING,
 };
 pub use store::{KeyValueStore, MemoryStore, SharedMemoryStore, StoreError};
 pub use sync::Reloaded;
