@@ -5,6 +5,7 @@
 //! reached only through the [`KeyValueStore`] trait, which the browser
 //! adapter implements over local storage; nothing here knows the browser.
 
+mod bare;
 mod collection;
 pub mod demos;
 mod field_path;
@@ -15,7 +16,9 @@ pub mod read;
 pub mod store;
 mod sync;
 mod transfer;
+mod unknown;
 
+pub use bare::{read_bare_scenario, BareScenario};
 pub use collection::{
     id_for_key, key_for, Conflict, EntryProblem, Library, LibraryError, LoadReport, Persisted,
     SetAside, Summary, Theirs, APP_PREFIX, SCENARIO_PREFIX,
@@ -34,7 +37,8 @@ pub use read::{
 pub use store::{KeyValueStore, MemoryStore, SharedMemoryStore, StoreError};
 pub use sync::Reloaded;
 pub use transfer::{
-    parse_import, parse_import_bytes, ImportBatch, ImportReport, Imported, RejectedItem,
+    parse_import, parse_import_bytes, parse_import_value, ImportBatch, ImportReport, Imported,
+    RejectedItem,
 };
 
 #[cfg(test)]
