@@ -30,7 +30,11 @@ fn task(i: usize) -> Task {
         flags: TaskFlags {
             driving: i == 19,
             overhead: i == 18,
-            needs_safety_eyewear: i == 17,
+            moving_machinery: false,
+            hazards: Hazards {
+                impact: i == 17,
+                ..Hazards::default()
+            },
         },
     }
 }
@@ -43,6 +47,7 @@ fn scenario() -> ValidScenario {
     };
     let s = Scenario {
         name: "Benchmark: fictional 20-task day".to_string(),
+        settings: PlanSettings::default(),
         wearer: Wearer {
             age_years: 52.0,
             measured_amplitude: None,
@@ -50,11 +55,13 @@ fn scenario() -> ValidScenario {
                 sphere_d: -1.25,
                 cylinder_d: -0.5,
                 axis_deg: 170.0,
+                prism: Default::default(),
             },
             left: Prescription {
                 sphere_d: -1.0,
                 cylinder_d: -0.25,
                 axis_deg: 10.0,
+                prism: Default::default(),
             },
             prescribed_addition_d: Some(1.75),
             correction: Correction::Spectacles { vertex_mm: 13.0 },

@@ -43,7 +43,7 @@ const BARE: &str = r#"{
   },
   "tasks": [{"name": "book", "distance_m": DISTANCE, "vertical": {"kind": "gaze_angle", "degrees": -25},
              "sideways_m": 0, "width_m": 0.2, "detail_mm": 0.5, "hours_per_day": 2,
-             "flags": {"driving": false, "overhead": false, "needs_safety_eyewear": false}}],
+             "flags": {"driving": false, "overhead": false}}],
   "options": [{"label": "reader", "family": {"family": "single_vision", "addition_d": null}}]
 }"#;
 

@@ -1,7 +1,11 @@
 //! Property tests of the planner on random (valid) wearers and tasks: no
-//! NaN or infinity anywhere in a plan, and more addition never leaves a task
+//! NaN or infinity anywhere in a plan; more addition never leaves a task
 //! further short of plus (the signed power missing for comfort falls as the
-//! addition rises, by the monotony of A = K - L'e in the local power).
+//! addition rises, by the monotony of A = K - L'e in the local power); and
+//! the safety rules: a driving task is never comfortable with more than
+//! 0.25 D of defocus (common practice), a pair over contact lenses is
+//! ordered plano at distance, and on a driving day the top-ranked option is
+//! fit for driving whenever any option is.
 
 mod plan_support;
 
@@ -11,7 +15,12 @@ use plan_support::*;
 use proptest::prelude::*;
 
 /// JSON keys whose value may be null because the field is an `Option`.
-const OPTIONAL_KEYS: [&str; 8] = [
+const OPTIONAL_KEYS: [&str; 13] = [
+    "driving",
+    "driving_vision",
+    "right_prism",
+    "left_prism",
+    "optical_centre_height",
     "share_of_amplitude",
     "zone_angle",
     "closest_option",
@@ -40,8 +49,8 @@ prop_compose! {
         lux in 1.0..5000.0f64, detail in any::<bool>(), tilt in -5.0..20.0f64, fh in 12.0..28.0f64,
     ) -> Wearer {
         let mut w = wearer(amp, dof);
-        w.right = Prescription { sphere_d: sphere, cylinder_d: cyl, axis_deg: 90.0 };
-        w.left = Prescription { sphere_d: sphere + aniso, cylinder_d: 0.0, axis_deg: 0.0 };
+        w.right = Prescription { sphere_d: sphere, cylinder_d: cyl, axis_deg: 90.0 , prism: Default::default()};
+        w.left = Prescription { sphere_d: sphere + aniso, cylinder_d: 0.0, axis_deg: 0.0 , prism: Default::default()};
         w.correction = Correction::Spectacles { vertex_mm: vertex };
         w.age_years = age;
         if !measured { w.measured_amplitude = None; }
@@ -96,5 +105,71 @@ proptest! {
         };
         let (less, more) = (short(add), short(add + 0.25));
         prop_assert!(more <= less + 1e-9, "add {add}: {less} then {more}");
+    }
+}
+
+/// A random day that includes driving: the road ahead at 6 to 60 m and a
+/// mirror's view above it, plus random other tasks.
+fn driving_day(road_m: f64, mirror_deg: f64, mut others: Vec<Task>) -> Vec<Task> {
+    let mut road = task("road", road_m, 0.0, 2.0);
+    road.flags.driving = true;
+    let mut mirror = task("mirror", 8.0, mirror_deg, 0.3);
+    mirror.flags.driving = true;
+    others.insert(0, mirror);
+    others.insert(0, road);
+    others
+}
+
+proptest! {
+    #![proptest_config(ProptestConfig::with_cases(32))]
+
+    #[test]
+    fn driving_is_never_comfortable_beyond_a_quarter_dioptre(
+        w in any_wearer(), road in 6.0..60.0f64, mirror in 0.0..12.0f64,
+        others in proptest::collection::vec(any_task(), 0..4),
+    ) {
+        let p = plan_of(w, driving_day(road, mirror, others), all_families_open());
+        for o in &p.options {
+            for t in o.tasks.iter().filter(|t| t.driving_vision.is_some()) {
+                if t.verdict == Verdict::Comfortable {
+                    prop_assert!(
+                        t.blur.defocus.0 <= 0.25 + 1e-6,
+                        "{} through {}: {:?}", t.task.name, o.option.label, t.blur
+                    );
+                }
+            }
+        }
+    }
+
+    #[test]
+    fn over_contact_lenses_the_distance_part_is_plano(
+        w in any_wearer(), tasks in proptest::collection::vec(any_task(), 1..5),
+    ) {
+        let mut w = w;
+        w.correction = Correction::ContactLenses;
+        let p = plan_of(w, tasks, all_families_open());
+        let order = p.order.expect("options exist");
+        prop_assert!(order.over_contact_lenses);
+        let made = match order.design {
+            FamilyChoice::SingleVision { addition_d } => addition_d.unwrap_or(0.0),
+            _ => 0.0,
+        };
+        for eye in [order.right, order.left] {
+            prop_assert!((eye.sphere.0 - made).abs() < 1e-9, "{eye:?}");
+            prop_assert!(eye.cylinder.0.abs() < 1e-9, "{eye:?}");
+        }
+        prop_assert!(p.cautions.iter().any(|c| c.kind == CautionKind::OverContactLenses));
+    }
+
+    #[test]
+    fn on_a_driving_day_the_first_option_is_fit_whenever_one_is(
+        w in any_wearer(), road in 6.0..60.0f64, mirror in 0.0..12.0f64,
+        others in proptest::collection::vec(any_task(), 0..4),
+    ) {
+        let p = plan_of(w, driving_day(road, mirror, others), all_families_open());
+        let fit = |o: &OptionPlan| o.driving.as_ref().is_some_and(DrivingFitness::is_fit);
+        if p.options.iter().any(fit) {
+            prop_assert!(fit(&p.options[0]), "{}", p.options[0].option.label);
+        }
     }
 }

@@ -32,6 +32,7 @@ fn day() -> Vec<Task> {
 fn valid(w: Wearer) -> ValidScenario {
     validate(Scenario {
         name: "brute force".to_string(),
+        settings: PlanSettings::default(),
         wearer: w,
         tasks: day(),
         options: all_families_open(),

@@ -29,12 +29,24 @@ use super::vergence::{
 const MAX_AMPLITUDE_D: f64 = 25.0;
 
 /// One eye as the planner sees it: its distance correction, its ocular
-/// amplitude of accommodation and the share usable for sustained work.
+/// amplitude of accommodation, the share usable for sustained work, and
+/// whether the amplitude already contains the eye's depth of focus.
+///
+/// **Depth of field counted once.** A subjective amplitude (a push-up or
+/// minus-lens measurement, or an age norm built from them such as
+/// Hofstetter's lines from Duane's push-up data) is read to the first
+/// noticeable blur, so it already includes the eye's depth of focus at the
+/// near end. For such a viewer the near end of every range is the amplitude
+/// itself, and depth of field widens only the far end; for an objective
+/// amplitude (Anderson et al. 2008, autorefractor) it widens both ends
+/// (Atchison & Smith, Optics of the Human Eye, on subjective and objective
+/// amplitudes; from memory).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Viewer {
     eye: CorrectedEye,
     amplitude: Dioptres,
     usable: UsableShare,
+    includes_depth_of_focus: bool,
 }
 
 impl Viewer {
@@ -57,7 +69,33 @@ impl Viewer {
             eye,
             amplitude: Dioptres(amplitude),
             usable,
+            includes_depth_of_focus: false,
         })
+    }
+
+    /// The same viewer, its amplitude marked as subjective: it already
+    /// contains the depth of focus at the near end.
+    pub fn with_subjective_amplitude(self) -> Viewer {
+        Viewer {
+            includes_depth_of_focus: true,
+            ..self
+        }
+    }
+
+    /// Whether the amplitude already contains the depth of focus.
+    pub fn includes_depth_of_focus(&self) -> bool {
+        self.includes_depth_of_focus
+    }
+
+    /// How far beyond the (usable) amplitude the near end of a range reaches
+    /// for a half depth of field `half_depth`: 0 when the amplitude already
+    /// contains it, else `half_depth`.
+    pub fn near_end_allowance(&self, half_depth: Dioptres) -> Dioptres {
+        if self.includes_depth_of_focus {
+            Dioptres(0.0)
+        } else {
+            half_depth
+        }
     }
 
     /// The corrected eye.
@@ -190,16 +228,31 @@ pub fn range_of_clear_vision(
     local_power: Dioptres,
     half_depth: Dioptres,
 ) -> Result<ZoneRanges, OpticsError> {
+    ranges_with_allowances(viewer, local_power, half_depth, half_depth)
+}
+
+/// Like [`range_of_clear_vision`], with one half depth of field for the
+/// comfortable range and another for the in-focus range (a task judged by
+/// a standard that tolerates more defocus for brief viewing than for
+/// sustained work). The near ends follow [`Viewer::near_end_allowance`].
+pub fn ranges_with_allowances(
+    viewer: &Viewer,
+    local_power: Dioptres,
+    comfortable: Dioptres,
+    in_focus: Dioptres,
+) -> Result<ZoneRanges, OpticsError> {
     let p = check_power("local lens power", local_power)?.0;
-    let dof = check_half_depth(half_depth)?;
+    let comfort_dof = check_half_depth(comfortable)?;
+    let focus_dof = check_half_depth(in_focus)?;
     let amp = viewer.amplitude.0;
+    let near = |dof: f64| viewer.near_end_allowance(Dioptres(dof)).0;
     Ok(ZoneRanges {
-        in_focus: solve(&viewer.eye, p, -dof, amp + dof),
+        in_focus: solve(&viewer.eye, p, -focus_dof, amp + near(focus_dof)),
         comfortable: solve(
             &viewer.eye,
             p,
-            -dof,
-            viewer.usable.of(viewer.amplitude).0 + dof,
+            -comfort_dof,
+            viewer.usable.of(viewer.amplitude).0 + near(comfort_dof),
         ),
     })
 }
@@ -270,6 +323,7 @@ pub fn evaluate_task(
     half_depth: Dioptres,
 ) -> Result<TaskFocus, OpticsError> {
     let dof = check_half_depth(half_depth)?;
+    let near = viewer.near_end_allowance(Dioptres(dof)).0;
     let a = viewer
         .eye
         .accommodation_for_vergence(object_vergence(distance)?, local_power)?
@@ -285,11 +339,11 @@ pub fn evaluate_task(
     Ok(TaskFocus {
         accommodation: Dioptres(a),
         share_of_amplitude: share,
-        residual_defocus: Dioptres(residual(a, -dof, amp + dof)),
+        residual_defocus: Dioptres(residual(a, -dof, amp + near)),
         residual_for_comfort: Dioptres(residual(
             a,
             -dof,
-            viewer.usable.of(viewer.amplitude).0 + dof,
+            viewer.usable.of(viewer.amplitude).0 + near,
         )),
     })
 }

@@ -3,6 +3,7 @@
 //! gaze geometry. Every formula of the product lives in one file here.
 
 pub mod accommodation;
+pub mod acuity;
 pub mod astigmatism;
 pub mod bounds;
 pub mod clear_range;
@@ -10,6 +11,7 @@ pub mod depth_of_field;
 pub mod error;
 pub mod gaze;
 pub mod lens;
+pub mod magnification;
 pub mod prescription;
 pub mod pupil;
 pub mod schematic_eye;

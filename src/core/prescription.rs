@@ -68,6 +68,13 @@ impl SpheroCylinder {
         })
     }
 
+    /// A plano lens: no power in any meridian.
+    pub const PLANO: SpheroCylinder = SpheroCylinder {
+        sphere: Dioptres(0.0),
+        cylinder: Dioptres(0.0),
+        axis: Degrees(0.0),
+    };
+
     /// A spherical power (no cylinder).
     pub fn spherical(power: Dioptres) -> Result<SpheroCylinder, OpticsError> {
         SpheroCylinder::new(power, Dioptres(0.0), Degrees(0.0))

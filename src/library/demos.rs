@@ -27,6 +27,8 @@ pub const DEMO_FILES: &[DemoFile] = &[
     demo!("delivery-driver.json"),
     demo!("overhead-electrician.json"),
     demo!("laboratory-technician.json"),
+    demo!("contact-lens-screen.json"),
+    demo!("van-driver-overhead.json"),
 ];
 
 #[cfg(test)]
@@ -96,13 +98,13 @@ mod tests {
         assert!(flags("delivery-driver.json").iter().any(|f| f.driving));
         assert!(flags("electronics-bench.json")
             .iter()
-            .any(|f| f.needs_safety_eyewear));
+            .any(|f| f.hazards.impact));
         let overhead = flags("overhead-electrician.json");
-        assert!(overhead
-            .iter()
-            .any(|f| f.overhead && f.needs_safety_eyewear));
+        assert!(overhead.iter().any(|f| f.overhead && f.hazards.impact));
         assert!(flags("laboratory-technician.json")
             .iter()
-            .any(|f| f.needs_safety_eyewear));
+            .any(|f| f.hazards.splash_or_aerosol));
+        let van = flags("van-driver-overhead.json");
+        assert!(van.iter().any(|f| f.driving) && van.iter().any(|f| f.overhead));
     }
 }

@@ -15,6 +15,11 @@
 //!                     "scenario": { .. } }, .. ] }
 //! ```
 //!
+//! Version 2 (current) keeps that layout; inside the scenario it adds
+//! `settings` (driving acuity, vertical prism limit), a `prism` in each eye's
+//! prescription, and in each task's `flags` a `moving_machinery` flag and a
+//! `hazards` object in place of `needs_safety_eyewear`.
+//!
 //! A stored entry does not hold its own id: the storage key names it, so a
 //! copied value can never claim to be another entry.
 
@@ -27,14 +32,14 @@ pub const ENTRY_FORMAT: &str = "clearspan-scenario-entry";
 /// Format tag of an export file holding one or many scenarios.
 pub const EXPORT_FORMAT: &str = "clearspan-scenario-export";
 /// The version this build writes.
-pub const CURRENT_VERSION: u32 = 1;
+pub const CURRENT_VERSION: u32 = 2;
 /// Every format version ever shipped, oldest first.
 ///
 /// Invariant: every version listed here still loads. Each has the fixtures
 /// `tests/fixtures/saved/entry-v{N}.json` and `tests/fixtures/saved/export-v{N}.json`,
 /// which a native test loads through the migration. A new version is appended
 /// (never replaces an old one), gets its own fixtures, and the old fixtures stay.
-pub const SHIPPED_VERSIONS: &[u32] = &[1];
+pub const SHIPPED_VERSIONS: &[u32] = &[1, 2];
 
 /// A stable, storage-safe identifier of a library entry (lowercase letters,
 /// digits and `-`), made from the creation time and a counter, never random.

@@ -3,9 +3,12 @@
 //! wrong format tag, a version from the future, a field of the wrong type).
 //! Every field problem is addressed by its path in the document.
 //!
-//! Version 1 is the current version, so its decoder produces the current
-//! types directly; a later version adds its own decoder and turns version-1
-//! documents into its types here, so every shipped version keeps loading.
+//! Version 2 is the current version. Version 1 differs only inside the
+//! scenario: it had no prescribed prism, no plan settings and one task flag
+//! `needs_safety_eyewear` where version 2 names the hazards; its `driving`
+//! flag meant "driving or moving machinery" and stays `driving`, the stricter
+//! reading. [`upgrade_v1_scenario`] rewrites a version-1 scenario into the
+//! version-2 shape before it is decoded, so every shipped version keeps loading.
 
 use super::field_path::{decode_at, join, problem};
 use super::format::{
@@ -133,33 +136,29 @@ pub struct ExportDocument {
 /// Migrates one stored entry (its parsed JSON) to the current stored body.
 pub fn migrate_entry(value: &Value) -> Result<StoredEntry, FormatError> {
     let (obj, _, version) = envelope(value, &[ENTRY_FORMAT])?;
-    match version {
-        1 => entry_v1(obj, "").map_err(FormatError::Fields),
-        found => Err(FormatError::UnknownVersion { found }),
-    }
+    entry_body(obj, "", version).map_err(FormatError::Fields)
 }
 
 /// Migrates an export file, or a single stored entry, to the current export
 /// types. The envelope must be right; each scenario is then decoded on its own.
 pub fn migrate_export(value: &Value) -> Result<ExportDocument, FormatError> {
     let (obj, format, version) = envelope(value, &[EXPORT_FORMAT, ENTRY_FORMAT])?;
-    match (format, version) {
-        (ENTRY_FORMAT, 1) => Ok(ExportDocument {
+    if format == ENTRY_FORMAT {
+        return Ok(ExportDocument {
             exported_ms: None,
             items: vec![DocumentItem {
                 path: String::new(),
                 name: scenario_name(obj),
-                item: entry_v1(obj, "").map(|e| ExportItem {
+                item: entry_body(obj, "", version).map(|e| ExportItem {
                     note: e.note,
                     created_ms: Some(e.created_ms),
                     changed_ms: Some(e.changed_ms),
                     scenario: e.scenario,
                 }),
             }],
-        }),
-        (_, 1) => export_v1(obj),
-        (_, found) => Err(FormatError::UnknownVersion { found }),
+        });
     }
+    export_body(obj, version)
 }
 
 /// Checks the format tag and version; returns the object, its tag and its
@@ -200,14 +199,18 @@ fn envelope<'v>(
     Ok((obj, format, version))
 }
 
-/// Decodes a version-1 entry body (the envelope fields are ignored).
-fn entry_v1(obj: &Map<String, Value>, path: &str) -> Result<StoredEntry, Vec<FieldError>> {
+/// Decodes an entry body of a shipped `version` (the envelope fields are ignored).
+fn entry_body(
+    obj: &Map<String, Value>,
+    path: &str,
+    version: u64,
+) -> Result<StoredEntry, Vec<FieldError>> {
     let mut errors = Vec::new();
     let revision = required::<u64>(obj, path, "revision", &mut errors);
     let created_ms = required::<u64>(obj, path, "created_ms", &mut errors);
     let changed_ms = required::<u64>(obj, path, "changed_ms", &mut errors);
     let note = optional::<String>(obj, path, "note", &mut errors);
-    let scenario = scenario_field(obj, path, &mut errors);
+    let scenario = scenario_field(obj, path, version, &mut errors);
     match (revision, created_ms, changed_ms, note, scenario) {
         (Some(revision), Some(created_ms), Some(changed_ms), Some(note), Some(scenario))
             if errors.is_empty() =>
@@ -224,8 +227,8 @@ fn entry_v1(obj: &Map<String, Value>, path: &str) -> Result<StoredEntry, Vec<Fie
     }
 }
 
-/// Decodes a version-1 export file.
-fn export_v1(obj: &Map<String, Value>) -> Result<ExportDocument, FormatError> {
+/// Decodes an export file of a shipped `version`.
+fn export_body(obj: &Map<String, Value>, version: u64) -> Result<ExportDocument, FormatError> {
     let mut errors = Vec::new();
     let exported_ms = optional::<u64>(obj, "", "exported_ms", &mut errors).flatten();
     let items = match obj.get("scenarios") {
@@ -251,7 +254,7 @@ fn export_v1(obj: &Map<String, Value>) -> Result<ExportDocument, FormatError> {
         .map(|(i, v)| {
             let path = format!("scenarios[{i}]");
             let item = match v.as_object() {
-                Some(o) => export_item_v1(o, &path),
+                Some(o) => export_item(o, &path, version),
                 None => Err(vec![problem(
                     &path,
                     format!("must be an object holding a scenario, found {}", kind(v)),
@@ -267,12 +270,16 @@ fn export_v1(obj: &Map<String, Value>) -> Result<ExportDocument, FormatError> {
     Ok(ExportDocument { exported_ms, items })
 }
 
-fn export_item_v1(obj: &Map<String, Value>, path: &str) -> Result<ExportItem, Vec<FieldError>> {
+fn export_item(
+    obj: &Map<String, Value>,
+    path: &str,
+    version: u64,
+) -> Result<ExportItem, Vec<FieldError>> {
     let mut errors = Vec::new();
     let note = optional::<String>(obj, path, "note", &mut errors);
     let created_ms = optional::<u64>(obj, path, "created_ms", &mut errors);
     let changed_ms = optional::<u64>(obj, path, "changed_ms", &mut errors);
-    let scenario = scenario_field(obj, path, &mut errors);
+    let scenario = scenario_field(obj, path, version, &mut errors);
     match (note, created_ms, changed_ms, scenario) {
         (Some(note), Some(created_ms), Some(changed_ms), Some(scenario)) if errors.is_empty() => {
             Ok(ExportItem {
@@ -301,13 +308,16 @@ fn scenario_name(obj: &Map<String, Value>) -> Option<String> {
 fn scenario_field(
     obj: &Map<String, Value>,
     path: &str,
+    version: u64,
     errors: &mut Vec<FieldError>,
 ) -> Option<Scenario> {
     let path = join(path, "scenario");
-    let Some(value) = obj.get("scenario") else {
+    let Some(stored) = obj.get("scenario") else {
         errors.push(problem(&path, "is missing".to_string()));
         return None;
     };
+    let upgraded = (version == 1).then(|| upgrade_v1_scenario(stored));
+    let value = upgraded.as_ref().unwrap_or(stored);
     match Scenario::deserialize(value) {
         Ok(s) => Some(s),
         Err(whole) => {
@@ -333,6 +343,33 @@ fn scenario_field(
             None
         }
     }
+}
+
+/// A version-1 scenario rewritten in the version-2 shape: each task's
+/// `needs_safety_eyewear` flag (whose caution spoke of impact-rated eyewear)
+/// becomes the impact hazard. Prism and plan settings take their defaults
+/// (none, and the default limits). Anything unexpected is left for the
+/// decoder to report.
+pub fn upgrade_v1_scenario(scenario: &Value) -> Value {
+    let mut out = scenario.clone();
+    let tasks = out.get_mut("tasks").and_then(Value::as_array_mut);
+    for task in tasks.into_iter().flatten() {
+        let Some(flags) = task.get_mut("flags").and_then(Value::as_object_mut) else {
+            continue;
+        };
+        if let Some(safety) = flags.remove("needs_safety_eyewear") {
+            flags.insert(
+                "hazards".to_string(),
+                serde_json::json!({
+                    "impact": safety,
+                    "splash_or_aerosol": false,
+                    "dust": false,
+                    "optical_radiation": false
+                }),
+            );
+        }
+    }
+    out
 }
 
 /// Decodes a required field, recording a problem if it is missing or wrong.

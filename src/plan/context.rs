@@ -9,6 +9,19 @@
 //! equivalents: accommodation is yoked (both eyes accommodate by the same
 //! amount), so one accommodative demand must serve both eyes; where the eyes
 //! differ by 1 D or more a caution says so.
+//!
+//! **Contact lenses.** A wearer in contact lenses is corrected for distance
+//! by them, and they move with the eye. Every option is then a pair worn
+//! over the contact lenses at a nominal vertex distance: its distance part
+//! is plano, the eye behind it is treated as corrected (emmetropic), and
+//! only the over-pair's own powers (equal in both eyes) give prism.
+//!
+//! **Driving.** A driving task is not judged by its detail size but by the
+//! vision standard for driving: it is comfortable only within
+//! [`DRIVING_COMFORT_D`] of defocus, and in focus only while the acuity the
+//! defocus leaves (Smith's relation in [`crate::core::acuity`]) meets the
+//! standard of the plan settings with one chart line to spare. Its head
+//! stays upright: the road and mirrors are watched with the eyes.
 
 use super::error::PlanError;
 use super::outcome::{
@@ -16,6 +29,7 @@ use super::outcome::{
     RefractionBasis, RefractionUsed, TaskContext, TaskRef, Verdict,
 };
 use crate::core::accommodation::{ocular_from_spectacle, AgeModel, UsableShare};
+use crate::core::acuity::defocus_for_decimal_acuity;
 use crate::core::clear_range::Viewer;
 use crate::core::depth_of_field::{self, task_half_depth, DEFAULT_BLUR_TO_DETAIL};
 use crate::core::gaze::{
@@ -28,8 +42,8 @@ use crate::core::pupil::{watson_yellott, AdaptedEyes, Luminance, WATSON_YELLOTT_
 use crate::core::units::{Degrees, Dioptres, Metres, Millimetres};
 use crate::core::vergence::{object_vergence, CorrectedEye};
 use crate::scenario::{
-    BlurTolerance, Correction, Prescription, PupilSource, ReferencePlane, Scenario, Task,
-    ValidScenario,
+    BlurTolerance, Correction, PlanSettings, Prescription, PupilSource, ReferencePlane, Scenario,
+    Task, ValidScenario,
 };
 
 /// Vertex distance assumed for the lens geometry of contact-lens wearers,
@@ -53,6 +67,16 @@ pub const ADAPTING_FIELD_DEG: f64 = 60.0;
 /// Half depth of field used for the zone ranges when no task says
 /// otherwise, in dioptres (±0.25 D, the strict clinical tolerance; common practice).
 pub const DEFAULT_ZONE_HALF_DEPTH_D: f64 = 0.25;
+/// Defocus a driving task tolerates for a comfortable verdict, in dioptres
+/// (about ±0.25 D at the road; common practice).
+pub const DRIVING_COMFORT_D: f64 = 0.25;
+/// Margin kept above the driving acuity standard, in logMAR: one chart line,
+/// because the acuity model is an average and individual acuity with the
+/// same defocus varies by about a line (a product choice).
+pub const DRIVING_MARGIN_LOGMAR: f64 = 0.1;
+/// Nearest distance at which a driving task counts as the road or what a
+/// mirror shows, in metres (a product choice: the dashboard is nearer).
+pub const ROAD_DISTANCE_M: f64 = 2.0;
 /// Addition bands are kept within ±20 D so they stay finite when a criterion
 /// has no limit on one side.
 const BAND_LIMIT_D: f64 = 20.0;
@@ -94,8 +118,12 @@ pub struct TaskPrep {
     pub hours: f64,
     /// Viewing distance from the spectacle plane.
     pub distance: Metres,
-    /// Half depth of field allowed, in dioptres.
+    /// Half depth of field allowed for a comfortable verdict, in dioptres.
     pub half_depth: Dioptres,
+    /// Half depth of field allowed for an in-focus verdict, in dioptres: the
+    /// same as `half_depth` except for driving tasks, where the driving
+    /// acuity standard sets it.
+    pub focus_depth: Dioptres,
     /// Local additions that make the task comfortable.
     pub comfort: Band,
     /// Local additions that bring the task into focus with the full amplitude.
@@ -114,6 +142,17 @@ pub struct TaskPrep {
     pub cor_to_lens: f64,
     /// Angle the task's width spans at the eye, in degrees.
     pub width_deg: f64,
+    /// The task is part of driving: judged by the driving standard, head upright.
+    pub driving: bool,
+    /// The task is the road or a mirror's view: a driving task at
+    /// [`ROAD_DISTANCE_M`] or more, which must be seen through the distance power.
+    pub road: bool,
+    /// Vertical prism difference between the eyes per millimetre of lens
+    /// height away from the optical centres, in prism dioptres per mm
+    /// (Prentice's rule: the difference of the vertical powers / 10).
+    pub prism_per_mm: f64,
+    /// Vertical prism difference above which the task is tiring, in prism dioptres.
+    pub prism_limit: f64,
 }
 
 impl TaskPrep {
@@ -122,8 +161,8 @@ impl TaskPrep {
         self.heights[MAX_CHIN_DOWN_DEG as usize]
     }
 
-    /// The verdict for a local addition `add` (dioptres).
-    pub fn verdict(&self, add: f64) -> Verdict {
+    /// The focus verdict for a local addition `add` (dioptres).
+    pub fn focus_verdict(&self, add: f64) -> Verdict {
         if self.comfort.contains(add) {
             Verdict::Comfortable
         } else if self.focus.contains(add) {
@@ -131,6 +170,18 @@ impl TaskPrep {
         } else {
             Verdict::Blurred
         }
+    }
+
+    /// Whether the vertical prism difference `from_centre` millimetres above
+    /// or below the optical centres exceeds the limit.
+    pub fn prism_over_limit(&self, from_centre: f64) -> bool {
+        self.prism_at(from_centre) > self.prism_limit + EDGE_SLACK_D
+    }
+
+    /// Vertical prism difference between the eyes, in prism dioptres, at
+    /// `from_centre` millimetres above or below the optical centres.
+    pub fn prism_at(&self, from_centre: f64) -> f64 {
+        (from_centre * self.prism_per_mm).abs()
     }
 
     /// The head pitch (degrees, chin up positive) at which the line of
@@ -156,12 +207,17 @@ impl TaskPrep {
 pub struct Context {
     /// The corrected eye (mean spherical equivalent) with its amplitude.
     pub viewer: Viewer,
-    /// The distance power used for vergence, in dioptres (mean spherical equivalent).
+    /// The distance power of the options used for vergence, in dioptres
+    /// (mean spherical equivalent; 0 over contact lenses).
     pub distance_power: Dioptres,
-    /// Right-eye prescription.
+    /// Right-eye distance power of the options (plano over contact lenses).
     pub right: SpheroCylinder,
-    /// Left-eye prescription.
+    /// Left-eye distance power of the options (plano over contact lenses).
     pub left: SpheroCylinder,
+    /// The options are worn over contact lenses.
+    pub over_contact_lenses: bool,
+    /// The limits the plan judges against.
+    pub settings: PlanSettings,
     /// Pupil diameter.
     pub pupil: Millimetres,
     /// Fitting geometry.
@@ -198,21 +254,32 @@ impl Context {
     pub fn new(valid: &ValidScenario) -> Result<Context, PlanError> {
         let s: &Scenario = valid.get();
         let w = &s.wearer;
-        let right = rx(&w.right, "wearer.right")?;
-        let left = rx(&w.left, "wearer.left")?;
-        let mean = Dioptres(0.5 * (right.spherical_equivalent().0 + left.spherical_equivalent().0));
-        let (vertex_mm, geometry_vertex_mm) = match w.correction {
-            Correction::Spectacles { vertex_mm } => (vertex_mm, vertex_mm),
-            Correction::ContactLenses => (0.0, NOMINAL_VERTEX_MM),
+        let worn_right = rx(&w.right, "wearer.right")?;
+        let worn_left = rx(&w.left, "wearer.left")?;
+        let over_contact_lenses = w.correction == Correction::ContactLenses;
+        let (right, left, vertex_mm) = match w.correction {
+            Correction::Spectacles { vertex_mm } => (worn_right, worn_left, vertex_mm),
+            Correction::ContactLenses => (
+                SpheroCylinder::PLANO,
+                SpheroCylinder::PLANO,
+                NOMINAL_VERTEX_MM,
+            ),
         };
+        let mean = Dioptres(0.5 * (right.spherical_equivalent().0 + left.spherical_equivalent().0));
         let eye = CorrectedEye::new(mean, Millimetres(vertex_mm).to_m())
             .map_err(PlanError::optics("wearer.correction"))?;
+        let prism_per_mm = (right.vertical_power().0 - left.vertical_power().0) / 10.0;
         let mut clamped = Vec::new();
 
         let (amplitude, ocular) = amplitude_of(w, &eye, &mut clamped)?;
         let usable = UsableShare::new(w.usable_fraction)
             .map_err(PlanError::optics("wearer.usable_fraction"))?;
-        let viewer = Viewer::new(eye, ocular, usable).map_err(PlanError::optics("wearer"))?;
+        // Every amplitude the planner takes (Hofstetter's push-up norm, a
+        // push-up or minus-lens measurement) is subjective: it already holds
+        // the depth of focus at the near end.
+        let viewer = Viewer::new(eye, ocular, usable)
+            .map_err(PlanError::optics("wearer"))?
+            .with_subjective_amplitude();
         let amplitude = AmplitudeUsed {
             ocular,
             usable_fraction: w.usable_fraction,
@@ -231,7 +298,7 @@ impl Context {
         let fitting = Fitting::new(FittingParams {
             pd_right: Millimetres(w.pd_right_mm),
             pd_left: Millimetres(w.pd_left_mm),
-            vertex: Millimetres(geometry_vertex_mm),
+            vertex: Millimetres(vertex_mm),
             cor_behind_cornea: Millimetres(COR_BEHIND_CORNEA_MM),
             pantoscopic_tilt: Degrees(w.pantoscopic_tilt_deg),
             face_form: Degrees(0.0),
@@ -253,16 +320,35 @@ impl Context {
         };
         let mut tasks = Vec::with_capacity(s.tasks.len());
         let mut contexts = Vec::with_capacity(s.tasks.len());
+        let driving_limit = driving_defocus(s.settings.driving_acuity_decimal, pupil);
         for (i, t) in s.tasks.iter().enumerate() {
             let field = format!("tasks[{i}]");
-            let half_depth = task_half_depth(
-                tolerance,
-                pupil,
-                Millimetres(t.detail_mm),
-                Metres(t.distance_m),
-            )
-            .map_err(PlanError::optics(field.clone()))?;
-            let (prep, elevation) = prepare_task(t, &viewer, mean, half_depth, &fitting, &field)?;
+            let (half_depth, focus_depth, task_basis) = if t.flags.driving {
+                (
+                    Dioptres(DRIVING_COMFORT_D.min(driving_limit.0)),
+                    driving_limit,
+                    HalfDepthBasis::DrivingStandard,
+                )
+            } else {
+                let d = task_half_depth(
+                    tolerance,
+                    pupil,
+                    Millimetres(t.detail_mm),
+                    Metres(t.distance_m),
+                )
+                .map_err(PlanError::optics(field.clone()))?;
+                (d, d, basis)
+            };
+            let (mut prep, elevation) = prepare_task(
+                t,
+                &viewer,
+                mean,
+                (half_depth, focus_depth),
+                &fitting,
+                &field,
+            )?;
+            prep.prism_per_mm = prism_per_mm;
+            prep.prism_limit = s.settings.vertical_imbalance_limit_pd;
             contexts.push(TaskContext {
                 task: TaskRef {
                     index: i,
@@ -272,7 +358,7 @@ impl Context {
                 hours_per_day: t.hours_per_day,
                 gaze_elevation: elevation,
                 half_depth,
-                half_depth_basis: basis,
+                half_depth_basis: task_basis,
                 width_angle: Degrees(prep.width_deg),
             });
             tasks.push(prep);
@@ -288,10 +374,14 @@ impl Context {
             ),
         };
         let refraction = RefractionUsed {
-            right_equivalent: right.spherical_equivalent(),
-            left_equivalent: left.spherical_equivalent(),
+            right_equivalent: worn_right.spherical_equivalent(),
+            left_equivalent: worn_left.spherical_equivalent(),
             used: mean,
-            basis: RefractionBasis::MeanOfBothEyes,
+            basis: if over_contact_lenses {
+                RefractionBasis::OverContactLenses
+            } else {
+                RefractionBasis::MeanOfBothEyes
+            },
             vertex: Millimetres(vertex_mm),
         };
         Ok(Context {
@@ -299,6 +389,8 @@ impl Context {
             distance_power: mean,
             right,
             left,
+            over_contact_lenses,
+            settings: s.settings,
             pupil,
             fitting,
             extent,
@@ -311,6 +403,13 @@ impl Context {
             clamped,
         })
     }
+}
+
+/// The largest defocus, in dioptres, that leaves the driving acuity
+/// `standard` (decimal) with [`DRIVING_MARGIN_LOGMAR`] to spare through `pupil`.
+fn driving_defocus(standard: f64, pupil: Millimetres) -> Dioptres {
+    let required = (standard * 10f64.powf(DRIVING_MARGIN_LOGMAR)).min(1.0);
+    defocus_for_decimal_acuity(required, pupil).unwrap_or(Dioptres(0.0))
 }
 
 /// The amplitude as stated (measured, or Hofstetter's minimum for the age)
@@ -350,8 +449,17 @@ fn amplitude_of(
             )
         }
     };
+    // An age norm describes the eyes of (near-)emmetropic subjects: it is
+    // referred to the eye through a plano lens at the same vertex, never
+    // through the wearer's own lens, which acts only on each task's demand.
+    // A measurement was taken through the wearer's own correction.
+    let through = match source {
+        AmplitudeSource::AgeModel { .. } => CorrectedEye::new(Dioptres(0.0), eye.vertex())
+            .map_err(PlanError::optics("wearer.correction"))?,
+        AmplitudeSource::Measured { .. } => *eye,
+    };
     let ocular = match plane {
-        ReferencePlane::Spectacle => ocular_from_spectacle(eye, stated)
+        ReferencePlane::Spectacle => ocular_from_spectacle(&through, stated)
             .map_err(PlanError::optics("wearer.measured_amplitude"))?,
         ReferencePlane::Ocular => stated,
     };
@@ -431,7 +539,7 @@ fn prepare_task(
     t: &Task,
     viewer: &Viewer,
     distance_power: Dioptres,
-    half_depth: Dioptres,
+    (half_depth, focus_depth): (Dioptres, Dioptres),
     fitting: &Fitting,
     field: &str,
 ) -> Result<(TaskPrep, Degrees), PlanError> {
@@ -473,13 +581,30 @@ fn prepare_task(
         hours: t.hours_per_day,
         distance: Metres(t.distance_m),
         half_depth,
-        comfort: addition_band(viewer, l, f, -dof, usable + dof),
-        focus: addition_band(viewer, l, f, -dof, amp + dof),
+        focus_depth,
+        comfort: addition_band(
+            viewer,
+            l,
+            f,
+            -dof,
+            usable + viewer.near_end_allowance(half_depth).0,
+        ),
+        focus: addition_band(
+            viewer,
+            l,
+            f,
+            -focus_depth.0,
+            amp + viewer.near_end_allowance(focus_depth).0,
+        ),
         x: x.0,
         side_turn: side_turn.0,
         heights,
         cor_to_lens,
         width_deg: width.0,
+        driving: t.flags.driving,
+        road: t.flags.driving && t.distance_m >= ROAD_DISTANCE_M,
+        prism_per_mm: 0.0,
+        prism_limit: f64::INFINITY,
     };
     Ok((prep, upright.map_or(Degrees(0.0), |c| c.elevation)))
 }

@@ -9,12 +9,13 @@
 //! [`solver`] chooses each option's open parameters on the manufactured
 //! grids by the objective in [`objective`]; [`report`] writes out each
 //! option; the options are ranked by their objective (designs not fit for
-//! driving last when the day includes driving); [`cautions`] adds the
-//! warnings; [`text`] renders the plan for the command line.
+//! driving, judged by [`driving`], last when the day includes driving);
+//! [`cautions`] adds the warnings; [`text`] renders the plan for the
+//! command line.
 
-pub mod acuity;
 pub mod cautions;
 pub mod context;
+pub mod driving;
 pub mod error;
 pub mod objective;
 pub mod outcome;
@@ -25,7 +26,7 @@ pub mod text;
 pub use error::PlanError;
 pub use outcome::*;
 
-use crate::core::units::{Degrees, Millimetres};
+use crate::core::units::{Degrees, Dioptres, Millimetres};
 use crate::scenario::{Correction, FamilyChoice, ValidScenario};
 use context::Context;
 use objective::score;
@@ -45,14 +46,17 @@ pub fn plan(scenario: &ValidScenario) -> Result<Plan, PlanError> {
         let solution =
             solver::solve(&o.family, &ctx.tasks, ctx.extent).map_err(PlanError::lens(field))?;
         let sc = score(&solution.design, &ctx.tasks, ctx.extent, Some(&mut choices));
+        let centre = objective::optical_centre(&solution.design, &ctx.tasks, ctx.extent);
         let tasks = choices
             .iter()
             .enumerate()
-            .map(|(t, c)| report::task_plan(&ctx, &solution.design, t, c))
+            .map(|(t, c)| report::task_plan(&ctx, &solution.design, t, c, centre))
             .collect::<Result<Vec<_>, _>>()?;
         let zones = report::fixed_zones(&solution.design)
             .into_iter()
-            .map(|(z, add)| report::zone_range(&ctx, z, add, ctx.zone_half_depth))
+            .map(|(z, add)| {
+                report::zone_range(&ctx, z, add, (ctx.zone_half_depth, ctx.zone_half_depth))
+            })
             .collect::<Result<Vec<_>, _>>()?;
         options.push(OptionPlan {
             rank: 0,
@@ -72,13 +76,14 @@ pub fn plan(scenario: &ValidScenario) -> Result<Plan, PlanError> {
             score: sc,
             zones,
             tasks,
+            driving: driving::fitness(&solution.design, &ctx.tasks, &ctx.contexts),
+            optical_centre_height: Millimetres(centre),
         });
     }
     // Ranking: by the objective, except that when the day includes driving
-    // an occupational or near-biased design never ranks above one that is
-    // fit for driving, however well it scores on the other tasks.
-    let drives = s.tasks.iter().any(|t| t.flags.driving);
-    let unfit = |o: &OptionPlan| drives && cautions::near_biased(&o.design);
+    // a design unfit for driving never ranks above one that is fit for it,
+    // however well it scores on the other tasks.
+    let unfit = |o: &OptionPlan| o.driving.as_ref().is_some_and(|d| !d.is_fit());
     options.sort_by(|a, b| {
         unfit(a)
             .cmp(&unfit(b))
@@ -165,13 +170,28 @@ fn order_summary(s: &crate::scenario::Scenario, ctx: &Context, best: &OptionPlan
         .iter()
         .map(|t| t.distance)
         .min_by(|a, b| a.0.total_cmp(&b.0));
+    // A single-vision lens is ordered as the power to make; the others as
+    // the distance power with their addition.
+    let single_vision = matches!(best.design, FamilyChoice::SingleVision { .. });
+    let made_add = Dioptres(if single_vision {
+        addition.unwrap_or(0.0)
+    } else {
+        0.0
+    });
+    let prism = |p: &crate::scenario::Prism| {
+        let any = p.horizontal_pd > 0.0 || p.vertical_pd > 0.0;
+        (any && !ctx.over_contact_lenses).then_some(*p)
+    };
     OrderSummary {
         option: best.option.clone(),
         design: best.design,
-        right: report::with_addition(&ctx.right, crate::core::units::Dioptres(0.0)),
-        left: report::with_addition(&ctx.left, crate::core::units::Dioptres(0.0)),
-        addition: addition.map(crate::core::units::Dioptres),
-        degression: degression.map(crate::core::units::Dioptres),
+        over_contact_lenses: ctx.over_contact_lenses,
+        right: report::with_addition(&ctx.right, made_add),
+        left: report::with_addition(&ctx.left, made_add),
+        right_prism: prism(&w.right.prism),
+        left_prism: prism(&w.left.prism),
+        addition: addition.filter(|_| !single_vision).map(Dioptres),
+        degression: degression.map(Dioptres),
         fitting_height: Millimetres(w.fitting_height_mm),
         pd_right: Millimetres(w.pd_right_mm),
         pd_left: Millimetres(w.pd_left_mm),
@@ -181,5 +201,8 @@ fn order_summary(s: &crate::scenario::Scenario, ctx: &Context, best: &OptionPlan
             Correction::ContactLenses => None,
         },
         pantoscopic_tilt: Degrees(w.pantoscopic_tilt_deg),
+        optical_centre_height: single_vision.then_some(Millimetres(
+            w.fitting_height_mm + best.optical_centre_height.0,
+        )),
     }
 }

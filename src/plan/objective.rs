@@ -3,7 +3,8 @@
 //! (upright when the upright lens point already suits it, else the smallest
 //! chin lift or drop that reaches a zone of the right power), and counts
 //!
-//! `hours x (1 if comfortable, TIRING_WEIGHT if in focus but tiring, 0 if blurred)
+//! `hours x (1 if comfortable, PRISM_LIMITED_WEIGHT if comfortable in focus
+//!  but beyond the vertical prism limit, TIRING_WEIGHT if in focus but tiring, 0 if blurred)
 //!  - hours x (POSTURE_WEIGHT_PER_DEG x |head pitch| + TURN_WEIGHT_PER_DEG x head turn)`.
 //!
 //! The design then loses `ADDITION_WEIGHT_PER_D` per dioptre of its largest
@@ -25,6 +26,10 @@ use crate::core::units::Millimetres;
 
 /// Weight of an hour in focus but tiring, relative to a comfortable hour.
 pub const TIRING_WEIGHT: f64 = 0.5;
+/// Weight of an hour whose focus is comfortable but whose vertical prism
+/// difference exceeds the limit: tiring, yet better than a tiring focus, so
+/// that the planner still chooses the power that focuses the task.
+pub const PRISM_LIMITED_WEIGHT: f64 = 0.75;
 /// Deduction per degree of head pitch, in hours per hour of the task.
 pub const POSTURE_WEIGHT_PER_DEG: f64 = 0.01;
 /// Deduction per degree of head turn, in hours per hour of the task: less
@@ -82,11 +87,40 @@ pub fn zone_angle(design: &LensDesign, y: f64, cor_to_lens: f64) -> Option<f64> 
     }
 }
 
-/// The task seen at lens height `y` with head pitch `pitch`, before any head turn.
-fn at(design: &LensDesign, prep: &TaskPrep, y: f64, pitch: f64) -> TaskChoice {
+/// The height of the optical centres of `design` relative to the fitting
+/// point, in millimetres, for the prism the eyes meet. Multifocal and
+/// corridor lenses have their prism reference at the fitting point (0). A
+/// single-vision task lens is made with its optical centres at the upright
+/// lens point of the task it serves longest (comfortable or in focus), since
+/// that is how such lenses are centred; at the fitting point when it serves none.
+pub fn optical_centre(design: &LensDesign, tasks: &[TaskPrep], extent: VerticalExtent) -> f64 {
+    let LensDesign::SingleVision(sv) = design else {
+        return 0.0;
+    };
+    let add = sv.addition().0;
+    tasks
+        .iter()
+        .filter(|t| t.focus.contains(add))
+        .max_by(|a, b| a.hours.total_cmp(&b.hours))
+        .map_or(0.0, |t| {
+            t.natural_y().clamp(
+                extent.bottom().0 + ZONE_MARGIN_MM,
+                extent.top().0 - ZONE_MARGIN_MM,
+            )
+        })
+}
+
+/// The task seen at lens height `y` with head pitch `pitch`, before any
+/// head turn, through a design whose optical centres sit at height `centre`.
+fn at(design: &LensDesign, prep: &TaskPrep, y: f64, pitch: f64, centre: f64) -> TaskChoice {
     let addition = design.addition_at(LensPoint::new(prep.x, y)).0;
-    let verdict = prep.verdict(addition);
-    let value = prep.hours * (verdict_weight(verdict) - POSTURE_WEIGHT_PER_DEG * pitch.abs());
+    let focus = prep.focus_verdict(addition);
+    let (verdict, weight) = if focus == Verdict::Comfortable && prep.prism_over_limit(y - centre) {
+        (Verdict::InFocusButTiring, PRISM_LIMITED_WEIGHT)
+    } else {
+        (focus, verdict_weight(focus))
+    };
+    let value = prep.hours * (weight - POSTURE_WEIGHT_PER_DEG * pitch.abs());
     TaskChoice {
         x: prep.x,
         y,
@@ -118,31 +152,44 @@ fn with_turn(design: &LensDesign, prep: &TaskPrep, mut c: TaskChoice) -> TaskCho
 /// head pitches until the line of sight meets the lens just inside its rim.
 /// If no allowed pitch does, the task is not seen through the lens at all
 /// and counts as blurred.
-fn onto_lens(design: &LensDesign, prep: &TaskPrep, y0: f64, extent: VerticalExtent) -> TaskChoice {
+fn onto_lens(
+    design: &LensDesign,
+    prep: &TaskPrep,
+    y0: f64,
+    extent: VerticalExtent,
+    centre: f64,
+) -> TaskChoice {
     let rim = y0.clamp(
         extent.bottom().0 + ZONE_MARGIN_MM,
         extent.top().0 - ZONE_MARGIN_MM,
     );
     match prep.pitch_for(rim) {
-        Some(pitch) => at(design, prep, rim, pitch),
+        Some(pitch) => at(design, prep, rim, pitch, centre),
         None => TaskChoice {
             verdict: Verdict::Blurred,
             value: 0.0,
             out_of_reach: true,
-            ..at(design, prep, rim, 0.0)
+            ..at(design, prep, rim, 0.0, centre)
         },
     }
 }
 
-/// The best way to see one task through `design` within the frame `extent`.
-pub fn assess(design: &LensDesign, prep: &TaskPrep, extent: VerticalExtent) -> TaskChoice {
+/// The best way to see one task through `design` within the frame
+/// `extent`, its optical centres at height `centre`. A driving task is seen
+/// with the head upright: the road and mirrors are watched with the eyes.
+pub fn assess(
+    design: &LensDesign,
+    prep: &TaskPrep,
+    extent: VerticalExtent,
+    centre: f64,
+) -> TaskChoice {
     let y0 = prep.natural_y();
     let mut best = if extent.contains(Millimetres(y0)) {
-        at(design, prep, y0, 0.0)
+        at(design, prep, y0, 0.0, centre)
     } else {
-        onto_lens(design, prep, y0, extent)
+        onto_lens(design, prep, y0, extent, centre)
     };
-    if best.verdict == Verdict::Comfortable {
+    if best.verdict == Verdict::Comfortable || prep.driving {
         return with_turn(design, prep, best);
     }
     let mut comfort_on_lens = false;
@@ -170,7 +217,7 @@ pub fn assess(design: &LensDesign, prep: &TaskPrep, extent: VerticalExtent) -> T
             let Some(pitch) = prep.pitch_for(y) else {
                 continue;
             };
-            let candidate = at(design, prep, y, pitch);
+            let candidate = at(design, prep, y, pitch, centre);
             if candidate.verdict == Verdict::Comfortable {
                 comfort_reached = true;
             }
@@ -195,8 +242,9 @@ pub fn total_above(
     floor: f64,
 ) -> Option<f64> {
     let mut total = -ADDITION_WEIGHT_PER_D * design.max_addition().0;
+    let centre = optical_centre(design, tasks, extent);
     for (prep, rest) in tasks.iter().zip(hours_after) {
-        total += assess(design, prep, extent).value;
+        total += assess(design, prep, extent, centre).value;
         if total + rest <= floor {
             return None;
         }
@@ -220,8 +268,9 @@ pub fn score(
         posture_penalty: 0.0,
         addition_penalty: ADDITION_WEIGHT_PER_D * design.max_addition().0,
     };
+    let centre = optical_centre(design, tasks, extent);
     for (i, prep) in tasks.iter().enumerate() {
-        let c = assess(design, prep, extent);
+        let c = assess(design, prep, extent, centre);
         match c.verdict {
             Verdict::Comfortable => s.comfortable_hours += prep.hours,
             Verdict::InFocusButTiring => s.tiring_hours += prep.hours,

@@ -119,7 +119,8 @@ pub struct RefractionUsed {
     pub used: Dioptres,
     /// How `used` was formed.
     pub basis: RefractionBasis,
-    /// Vertex distance used, in millimetres (0 for contact lenses).
+    /// Vertex distance of the options, in millimetres (over contact lenses,
+    /// the nominal vertex distance of the over-pair).
     pub vertex: Millimetres,
 }
 
@@ -131,6 +132,10 @@ pub enum RefractionBasis {
     /// (both eyes accommodate by the same amount), so one demand must serve
     /// both; a difference between the eyes is reported as a caution.
     MeanOfBothEyes,
+    /// The wearer's contact lenses correct the distance vision; the options
+    /// are pairs worn over them, plano at distance (`used` is 0), and the
+    /// equivalents are those of the contact lenses.
+    OverContactLenses,
 }
 
 /// The pupil diameter used for depth of field and blur.
@@ -187,6 +192,9 @@ pub enum HalfDepthBasis {
     /// Derived from the task's critical detail and the pupil (blur disc no
     /// larger than the detail).
     FromDetail,
+    /// A driving task: the defocus a comfortable view of the road allows,
+    /// whatever the detail (the in-focus limit follows the driving acuity standard).
+    DrivingStandard,
 }
 
 // ---------------------------------------------------------------- per option
@@ -211,6 +219,54 @@ pub struct OptionPlan {
     pub zones: Vec<ZoneRangePlan>,
     /// How each task fares through this option, in task input order.
     pub tasks: Vec<TaskPlan>,
+    /// Whether the design may be worn for driving; `None` when the day has no driving task.
+    pub driving: Option<DrivingFitness>,
+    /// Height of the optical centres above (positive) or below the fitting
+    /// point, in millimetres: the point single-vision task lenses are made
+    /// centred on, 0 for multifocal and corridor designs.
+    pub optical_centre_height: Millimetres,
+}
+
+/// Whether a design may be worn for driving.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+#[serde(rename_all = "snake_case", tag = "kind")]
+pub enum DrivingFitness {
+    /// No plus power where the road and mirrors are seen.
+    Fit,
+    /// Not for driving, for these reasons.
+    Unfit {
+        /// Every reason found.
+        reasons: Vec<DrivingUnfit>,
+    },
+}
+
+impl DrivingFitness {
+    /// Whether the design is fit for driving.
+    pub fn is_fit(&self) -> bool {
+        matches!(self, DrivingFitness::Fit)
+    }
+}
+
+/// Why a design is not fit for driving.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+#[serde(rename_all = "snake_case", tag = "kind")]
+pub enum DrivingUnfit {
+    /// An occupational (degressive) lens: intermediate power at the top.
+    OccupationalDesign,
+    /// A plus segment at the top of the lens, where mirrors and signs are seen.
+    UpperSegment,
+    /// A single-vision lens with an addition: the road is seen through it.
+    NearSingleVision {
+        /// The lens's addition, in dioptres.
+        addition: Dioptres,
+    },
+    /// A road or mirror task meets plus power at or just below its line of sight.
+    PlusWhereRoadIsSeen {
+        /// The task.
+        task: TaskRef,
+        /// The largest addition met there, in dioptres.
+        addition: Dioptres,
+    },
 }
 
 /// One parameter of a lens family after solving.
@@ -304,6 +360,13 @@ pub enum ChoiceNote {
     },
     /// The neighbouring value scores the same; the planner keeps the lower value.
     NeighbourEqual {
+        /// The parameter.
+        parameter: ParameterKind,
+        /// The neighbouring value tried.
+        neighbour: ParameterValue,
+    },
+    /// The neighbouring value would make the design unfit for driving.
+    NeighbourNotForDriving {
         /// The parameter.
         parameter: ParameterKind,
         /// The neighbouring value tried.
@@ -414,6 +477,23 @@ pub struct TaskPlan {
     pub field: FieldFit,
     /// Centration and convergence at the task distance.
     pub near_vision: Centration,
+    /// Against the driving vision standard, for a driving task.
+    pub driving_vision: Option<DrivingVision>,
+    /// The vertical prism difference at the lens point exceeds the limit of
+    /// the plan settings, which lowers a comfortable focus to tiring.
+    pub prism_over_limit: bool,
+}
+
+/// A driving task's vision against the driving standard.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+pub struct DrivingVision {
+    /// Estimated decimal acuity left by the defocus at the lens point, for
+    /// an eye that sees 1.0 (6/6) when fully corrected (Smith 1991).
+    pub acuity_decimal: f64,
+    /// The standard of the plan settings, decimal.
+    pub standard_decimal: f64,
+    /// Whether the estimate meets the standard with one line to spare.
+    pub meets_standard: bool,
 }
 
 /// A point on the lens in millimetres from the fitting point.
@@ -586,11 +666,15 @@ pub enum CautionKind {
     /// A planning aid only: a licensed eye-care practitioner confirms powers
     /// and designs under local rules. Always present.
     PlanningAid,
-    /// An occupational or near-biased design with a driving or machinery task.
+    /// The options are pairs worn over contact lenses.
+    OverContactLenses,
+    /// A design unfit for driving on a day that includes driving.
     NotForDriving,
-    /// A task needs certified impact-rated safety eyewear.
+    /// A task watches or operates moving machinery.
+    MovingMachinery,
+    /// A task exposes the eyes to a hazard, so rated protective eyewear applies.
     SafetyEyewear,
-    /// The eyes' spherical equivalents differ markedly.
+    /// The eyes' spectacle powers differ markedly: image size and prism.
     Anisometropia,
     /// Unequal vertical powers give a vertical prism difference at the reading level.
     VerticalImbalance,
@@ -609,11 +693,20 @@ pub struct OrderSummary {
     pub option: OptionRef,
     /// The resolved design.
     pub design: FamilyChoice,
-    /// Right-eye distance power.
+    /// The pair is worn over contact lenses: its distance part is plano.
+    pub over_contact_lenses: bool,
+    /// Right-eye power to order: the distance power of a multifocal or
+    /// corridor lens, the power to make of a single-vision lens.
     pub right: SpectaclePower,
-    /// Left-eye distance power.
+    /// Left-eye power to order, as `right`.
     pub left: SpectaclePower,
-    /// Near addition (progressive, segment and single-vision task lenses), in dioptres.
+    /// Prism prescribed for the right eye, ground into the lens; `None` when
+    /// none is prescribed or the pair is worn over contact lenses.
+    pub right_prism: Option<crate::scenario::Prism>,
+    /// Prism prescribed for the left eye, as `right_prism`.
+    pub left_prism: Option<crate::scenario::Prism>,
+    /// Near addition of multifocal and corridor lenses, in dioptres; `None`
+    /// for single-vision lenses, whose powers already include it.
     pub addition: Option<Dioptres>,
     /// Degression of an occupational lens, in dioptres.
     pub degression: Option<Dioptres>,
@@ -629,6 +722,9 @@ pub struct OrderSummary {
     pub vertex: Option<Millimetres>,
     /// Pantoscopic tilt, in degrees.
     pub pantoscopic_tilt: Degrees,
+    /// Height of the optical centres of a single-vision lens above the
+    /// lowest point of the lens, in millimetres; `None` for other designs.
+    pub optical_centre_height: Option<Millimetres>,
 }
 
 // ---------------------------------------------------------------- words
@@ -697,6 +793,13 @@ impl fmt::Display for ChoiceNote {
             } => write!(
                 f,
                 "{parameter} {neighbour} would serve the tasks equally; the lower value is kept"
+            ),
+            ChoiceNote::NeighbourNotForDriving {
+                parameter,
+                neighbour,
+            } => write!(
+                f,
+                "{parameter} {neighbour} would put plus power where the road or mirrors are seen"
             ),
             ChoiceNote::EndOfMadeRange { parameter, end } => write!(
                 f,
@@ -799,8 +902,10 @@ impl fmt::Display for CautionKind {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         f.write_str(match self {
             CautionKind::PlanningAid => "planning aid",
+            CautionKind::OverContactLenses => "over contact lenses",
             CautionKind::NotForDriving => "not for driving",
-            CautionKind::SafetyEyewear => "safety eyewear",
+            CautionKind::MovingMachinery => "moving machinery",
+            CautionKind::SafetyEyewear => "protective eyewear",
             CautionKind::Anisometropia => "anisometropia",
             CautionKind::VerticalImbalance => "vertical imbalance",
             CautionKind::HighPower => "high power",

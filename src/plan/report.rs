@@ -4,15 +4,16 @@
 //! residual blur and acuity loss, range of clear vision at that point, head
 //! posture, field and centration; and the ranges of the design's zones.
 
-use super::acuity::{acuity_loss_logmar, blur_disc_arcmin};
 use super::context::Context;
 use super::error::PlanError;
 use super::objective::{zone_angle, TaskChoice};
 use super::outcome::{
-    Centration, ClearRange, DefocusDirection, FarEnd, FieldFit, HeadPosture, LensPointMm,
-    LocalPower, ResidualBlur, SpectaclePower, TaskPlan, ZoneKind, ZoneRangePlan,
+    Centration, ClearRange, DefocusDirection, DrivingVision, FarEnd, FieldFit, HeadPosture,
+    LensPointMm, LocalPower, ResidualBlur, SpectaclePower, TaskPlan, Verdict, ZoneKind,
+    ZoneRangePlan,
 };
-use crate::core::clear_range::{evaluate_task, range_of_clear_vision, FarLimit, ZoneRange};
+use crate::core::acuity::{acuity_loss_logmar, blur_disc_arcmin, decimal_acuity};
+use crate::core::clear_range::{evaluate_task, ranges_with_allowances, FarLimit, ZoneRange};
 use crate::core::gaze::{vertical_imbalance, Eye};
 use crate::core::lens::{LensDesign, LensPoint};
 use crate::core::prescription::SpheroCylinder;
@@ -60,15 +61,22 @@ fn clear(range: ZoneRange) -> ClearRange {
     }
 }
 
-/// The ranges of clear vision of a zone of addition `addition` with half depth `dof`.
+/// The ranges of clear vision of a zone of addition `addition`, with half
+/// depth `comfortable` for the comfortable range and `in_focus` for the
+/// in-focus range.
 pub fn zone_range(
     ctx: &Context,
     zone: ZoneKind,
     addition: Dioptres,
-    dof: Dioptres,
+    (comfortable, in_focus): (Dioptres, Dioptres),
 ) -> Result<ZoneRangePlan, PlanError> {
-    let r = range_of_clear_vision(&ctx.viewer, ctx.distance_power + addition, dof)
-        .map_err(PlanError::optics("zone range"))?;
+    let r = ranges_with_allowances(
+        &ctx.viewer,
+        ctx.distance_power + addition,
+        comfortable,
+        in_focus,
+    )
+    .map_err(PlanError::optics("zone range"))?;
     Ok(ZoneRangePlan {
         zone,
         addition,
@@ -86,12 +94,14 @@ pub fn with_addition(rx: &SpheroCylinder, addition: Dioptres) -> SpectaclePower 
     }
 }
 
-/// The report of task `i` seen as `choice` through `design`.
+/// The report of task `i` seen as `choice` through `design`, whose optical
+/// centres sit `centre` millimetres above the fitting point.
 pub fn task_plan(
     ctx: &Context,
     design: &LensDesign,
     i: usize,
     choice: &TaskChoice,
+    centre: f64,
 ) -> Result<TaskPlan, PlanError> {
     let (Some(prep), Some(tc)) = (ctx.tasks.get(i), ctx.contexts.get(i)) else {
         return Err(PlanError::Optics {
@@ -129,12 +139,22 @@ pub fn task_plan(
             .map_err(gaze)
     })?;
     let inset = both_eyes(|eye| ctx.fitting.near_inset(eye, prep.distance).map_err(gaze))?;
-    // Both lines of sight are taken at the right eye's height, the optical
-    // centres at the fitting points; a line of sight beyond the lens's edge
+    // Both lines of sight are taken at the right eye's height, measured from
+    // the design's optical centres; a line of sight beyond the lens's edge
     // meets no prism, so the height is limited to the lens.
-    let y = Millimetres(choice.y.clamp(ctx.extent.bottom().0, ctx.extent.top().0));
+    let y = Millimetres(choice.y.clamp(ctx.extent.bottom().0, ctx.extent.top().0) - centre);
     let imbalance = vertical_imbalance(y, ctx.right.vertical_power(), y, ctx.left.vertical_power())
         .map_err(gaze)?;
+    let standard = ctx.settings.driving_acuity_decimal;
+    let driving_vision = prep.driving.then(|| {
+        let acuity = decimal_acuity(Dioptres(defocus), ctx.pupil);
+        DrivingVision {
+            acuity_decimal: acuity,
+            standard_decimal: standard,
+            meets_standard: choice.verdict >= Verdict::InFocusButTiring,
+        }
+    });
+    let prism_over_limit = prep.prism_over_limit(y.0);
     Ok(TaskPlan {
         task: tc.task.clone(),
         lens_point: LensPointMm {
@@ -162,7 +182,7 @@ pub fn task_plan(
             blur_disc_arcmin: blur_disc,
             acuity_loss_logmar: acuity_loss_logmar(Dioptres(defocus), ctx.pupil),
         },
-        range_here: zone_range(ctx, sample.zone, add, prep.half_depth)?,
+        range_here: zone_range(ctx, sample.zone, add, (prep.half_depth, prep.focus_depth))?,
         posture: HeadPosture {
             chin_up: Degrees(choice.pitch),
             reachable: !choice.out_of_reach,
@@ -178,6 +198,8 @@ pub fn task_plan(
             convergence,
             vertical_imbalance: PrismDioptres(imbalance.difference.0.abs()),
         },
+        driving_vision,
+        prism_over_limit,
     })
 }
 

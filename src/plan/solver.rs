@@ -1,7 +1,8 @@
 //! The solver: for one lens option, every manufactured combination of the
 //! parameters the user left open (on the lens catalogue's grids, 0.25 D for
 //! powers), scored by the objective; the best is kept, lower values winning
-//! ties. The neighbours of the chosen values on each open grid are then
+//! ties. On a day that includes driving, a design fit for driving always
+//! beats one that is not, whatever their scores. The neighbours of the chosen values on each open grid are then
 //! tried once more to explain the choice in words.
 //!
 //! The search is exhaustive: at most a few hundred designs per option, each
@@ -9,6 +10,7 @@
 //! allocating.
 
 use super::context::TaskPrep;
+use super::driving;
 use super::objective::{score, total_above, TaskChoice};
 use super::outcome::{
     ChoiceNote, ParameterKind, ParameterSource, ParameterValue, PenaltyKind, RangeEnd,
@@ -44,6 +46,8 @@ pub struct Solution {
     pub values: [f64; 3],
     /// Its objective.
     pub score: Score,
+    /// Whether it is fit for driving (always true on a day without driving).
+    pub fit_for_driving: bool,
 }
 
 /// The best design of `choice` for `tasks`: exhaustive over the open grids.
@@ -75,15 +79,19 @@ pub fn solve(
                 continue;
             }
         };
-        let floor = best
-            .as_ref()
-            .map_or(f64::NEG_INFINITY, |b| b.score.total + 1e-12);
+        let fit = driving::is_fit(&design, tasks);
+        let floor = match &best {
+            Some(b) if b.fit_for_driving && !fit => continue,
+            Some(b) if b.fit_for_driving == fit => b.score.total + 1e-12,
+            _ => f64::NEG_INFINITY,
+        };
         if total_above(&design, tasks, &hours_after, extent, floor).is_some_and(|t| t > floor) {
             best = Some(Solution {
                 choice: resolved,
                 design,
                 values,
                 score: score(&design, tasks, extent, None),
+                fit_for_driving: fit,
             });
         }
     }
@@ -149,6 +157,13 @@ pub fn explain(
             let Ok(design) = LensDesign::from_choice(&with_values(original, values)) else {
                 continue;
             };
+            if solution.fit_for_driving && !driving::is_fit(&design, tasks) {
+                notes.push(ChoiceNote::NeighbourNotForDriving {
+                    parameter: a.kind,
+                    neighbour: typed(a.kind, nv),
+                });
+                continue;
+            }
             let s = score(&design, tasks, extent, Some(&mut other));
             notes.push(compare(a, nv, &base, &s, &chosen, &other, contexts));
         }

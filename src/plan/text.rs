@@ -39,6 +39,22 @@ pub fn amplitude_line(a: &AmplitudeUsed) -> String {
     )
 }
 
+/// The refraction the vergence used, as one line.
+pub fn refraction_line(r: &RefractionUsed) -> String {
+    match r.basis {
+        RefractionBasis::MeanOfBothEyes => format!(
+            "Refraction: {} used for vergence, the mean of both eyes' spherical equivalents \
+             (R {}, L {}); vertex {:.0} mm",
+            r.used, r.right_equivalent, r.left_equivalent, r.vertex.0
+        ),
+        RefractionBasis::OverContactLenses => format!(
+            "Refraction: corrected by contact lenses (spherical equivalents R {}, L {}); the \
+             options are worn over them, plano at distance, at a vertex of {:.0} mm",
+            r.right_equivalent, r.left_equivalent, r.vertex.0
+        ),
+    }
+}
+
 /// The pupil diameter used and where it came from, as one line.
 pub fn pupil_line(p: &PupilUsed) -> String {
     match p.source {
@@ -140,12 +156,7 @@ pub fn render(plan: &Plan) -> String {
     let mut out = String::new();
     let _ = writeln!(out, "Plan for \"{}\"", plan.scenario_name);
     let _ = writeln!(out, "{}", amplitude_line(&plan.amplitude));
-    let r = &plan.refraction;
-    let _ = writeln!(
-        out,
-        "Refraction: {} used for vergence, the mean of both eyes' spherical equivalents (R {}, L {}); vertex {:.0} mm",
-        r.used, r.right_equivalent, r.left_equivalent, r.vertex.0
-    );
+    let _ = writeln!(out, "{}", refraction_line(&plan.refraction));
     let _ = writeln!(out, "{}", pupil_line(&plan.pupil));
     let _ = writeln!(
         out,
@@ -187,9 +198,43 @@ pub fn render(plan: &Plan) -> String {
     out
 }
 
-/// The lines of a lab order: powers, addition or degression, and fitting data.
+/// A prescribed prism in prescription notation ("1.50 Δ base in, 0.50 Δ base up").
+fn prism_words(p: &crate::scenario::Prism) -> String {
+    use crate::scenario::{HorizontalBase, VerticalBase};
+    let mut parts = Vec::new();
+    if p.horizontal_pd > 0.0 {
+        let base = match p.horizontal_base {
+            HorizontalBase::In => "in",
+            HorizontalBase::Out => "out",
+        };
+        parts.push(format!("{:.2} Δ base {base}", p.horizontal_pd));
+    }
+    if p.vertical_pd > 0.0 {
+        let base = match p.vertical_base {
+            VerticalBase::Up => "up",
+            VerticalBase::Down => "down",
+        };
+        parts.push(format!("{:.2} Δ base {base}", p.vertical_pd));
+    }
+    parts.join(", ")
+}
+
+/// The lines of a lab order: powers, prism, addition or degression, and fitting data.
 pub fn order_lines(o: &OrderSummary) -> Vec<String> {
-    let mut lines = vec![format!("R {}   L {}", o.right, o.left)];
+    let mut lines = Vec::new();
+    if o.over_contact_lenses {
+        lines.push(
+            "FOR WEAR OVER CONTACT LENSES: plano at distance; the powers below are the \
+             over-pair's own"
+                .to_string(),
+        );
+    }
+    lines.push(format!("R {}   L {}", o.right, o.left));
+    for (eye, prism) in [("R", &o.right_prism), ("L", &o.left_prism)] {
+        if let Some(p) = prism {
+            lines.push(format!("prism {eye} {}", prism_words(p)));
+        }
+    }
     if let Some(a) = o.addition {
         let name = if o.degression.is_some() {
             "near addition"
@@ -210,12 +255,17 @@ pub fn order_lines(o: &OrderSummary) -> Vec<String> {
             ", near PD {:.1} mm at the nearest task",
             n.0
         )),
-        o.vertex
-            .map_or("contact lenses (no vertex)".to_string(), |v| format!(
-                "vertex {:.0} mm",
-                v.0
-            )),
+        o.vertex.map_or(
+            "vertex as fitted over the contact lenses".to_string(),
+            |v| { format!("vertex {:.0} mm", v.0) }
+        ),
         o.pantoscopic_tilt.0
     ));
+    if let Some(h) = o.optical_centre_height {
+        lines.push(format!(
+            "optical centres {:.1} mm above the lowest point of the lens",
+            h.0
+        ));
+    }
     lines
 }

@@ -14,6 +14,7 @@ impl Wearer {
             sphere_d: 0.0,
             cylinder_d: 0.0,
             axis_deg: 0.0,
+            prism: Prism::default(),
         };
         Wearer {
             age_years,
@@ -90,6 +91,7 @@ impl Scenario {
     pub fn untitled() -> Scenario {
         Scenario {
             name: "Untitled scenario".to_string(),
+            settings: PlanSettings::default(),
             wearer: Wearer::typical(50.0),
             tasks: vec![Task::desk_screen("Screen")],
             options: LensOption::starter_set(),

@@ -11,12 +11,37 @@ use serde::{Deserialize, Serialize};
 pub struct Scenario {
     /// A name the user gives the case (a wearer's initials, a workstation).
     pub name: String,
+    /// The limits the plan judges against (local driving rules, prism tolerance).
+    #[serde(default)]
+    pub settings: PlanSettings,
     /// The person who will wear the lenses.
     pub wearer: Wearer,
     /// The tasks of the working day, in the order the user entered them.
     pub tasks: Vec<Task>,
     /// The lens options to compare.
     pub options: Vec<LensOption>,
+}
+
+/// Limits a plan is judged against that local rules or the practitioner may
+/// set differently from the defaults.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct PlanSettings {
+    /// Smallest binocular visual acuity that driving must leave, as a decimal
+    /// acuity (0.5, about 6/12 or 20/40, is the EU minimum for ordinary
+    /// licences: Directive 2006/126/EC, Annex III).
+    pub driving_acuity_decimal: f64,
+    /// Vertical prism difference between the eyes above which a sustained
+    /// task counts as tiring, in prism dioptres (about 1 Δ; common practice).
+    pub vertical_imbalance_limit_pd: f64,
+}
+
+impl Default for PlanSettings {
+    fn default() -> PlanSettings {
+        PlanSettings {
+            driving_acuity_decimal: 0.5,
+            vertical_imbalance_limit_pd: 1.0,
+        }
+    }
 }
 
 /// The wearer's eyes, prescription and fitting data.
@@ -26,9 +51,11 @@ pub struct Wearer {
     pub age_years: f64,
     /// A measured amplitude of accommodation, which takes precedence over age.
     pub measured_amplitude: Option<MeasuredAmplitude>,
-    /// Distance prescription of the right eye, at the spectacle plane.
+    /// Distance prescription of the right eye: the spectacle prescription at
+    /// the vertex distance of `correction` when spectacles are worn, the
+    /// contact lens power (at the cornea) when contact lenses are.
     pub right: Prescription,
-    /// Distance prescription of the left eye, at the spectacle plane.
+    /// Distance prescription of the left eye, at the same plane as `right`.
     pub left: Prescription,
     /// Near addition found at the eye examination, in dioptres, if any.
     pub prescribed_addition_d: Option<f64>,
@@ -92,6 +119,45 @@ pub struct Prescription {
     pub cylinder_d: f64,
     /// Cylinder axis, in degrees (0 to 180, TABO convention).
     pub axis_deg: f64,
+    /// Prism prescribed for this eye (none when absent).
+    #[serde(default)]
+    pub prism: Prism,
+}
+
+/// A prescribed prism for one eye, split into its horizontal and vertical
+/// parts with their base directions, as prescriptions write it.
+#[derive(Debug, Clone, Copy, PartialEq, Default, Serialize, Deserialize)]
+pub struct Prism {
+    /// Horizontal prism, in prism dioptres (0 for none).
+    pub horizontal_pd: f64,
+    /// Base direction of the horizontal prism.
+    pub horizontal_base: HorizontalBase,
+    /// Vertical prism, in prism dioptres (0 for none).
+    pub vertical_pd: f64,
+    /// Base direction of the vertical prism.
+    pub vertical_base: VerticalBase,
+}
+
+/// Base direction of a horizontal prism.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case")]
+pub enum HorizontalBase {
+    /// Base towards the nose.
+    #[default]
+    In,
+    /// Base towards the temple.
+    Out,
+}
+
+/// Base direction of a vertical prism.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case")]
+pub enum VerticalBase {
+    /// Base up.
+    #[default]
+    Up,
+    /// Base down.
+    Down,
 }
 
 /// How the distance correction is worn.
@@ -176,12 +242,38 @@ pub enum VerticalPosition {
 /// Safety-relevant facts about a task.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
 pub struct TaskFlags {
-    /// The task is driving or operating moving machinery.
+    /// The task is part of driving a road vehicle (the road, mirrors,
+    /// dashboard): judged against the driving vision standard.
     pub driving: bool,
+    /// The task is watching or operating moving machinery at a working
+    /// distance (a lathe, a press): its own distance must be clear.
+    #[serde(default)]
+    pub moving_machinery: bool,
     /// The task sits overhead.
     pub overhead: bool,
-    /// The task exposes the eyes to impact or splash, so safety-rated eyewear applies.
-    pub needs_safety_eyewear: bool,
+    /// What the task exposes the eyes to, so that protective eyewear applies.
+    #[serde(default)]
+    pub hazards: Hazards,
+}
+
+/// The eye hazards of a task; each calls for eyewear rated against it.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+pub struct Hazards {
+    /// Flying particles or fragments (grinding, cutting, hammering).
+    pub impact: bool,
+    /// Liquid splashes or aerosols (chemicals, body fluids).
+    pub splash_or_aerosol: bool,
+    /// Dust or fine particles.
+    pub dust: bool,
+    /// Optical radiation: welding arcs, lasers, ultraviolet lamps.
+    pub optical_radiation: bool,
+}
+
+impl Hazards {
+    /// Whether the task has any eye hazard.
+    pub fn any(&self) -> bool {
+        self.impact || self.splash_or_aerosol || self.dust || self.optical_radiation
+    }
 }
 
 /// A lens option the user wants compared.

@@ -124,6 +124,17 @@ const PROGRESSION: Bounds = Bounds::new(10.0, 24.0, "mm");
 const NEAR_ADDITION: Bounds = Bounds::new(0.5, 4.0, "D");
 const DEGRESSION: Bounds = Bounds::new(0.5, 2.5, "D");
 const UPPER_BOTTOM: Bounds = Bounds::new(3.0, 25.0, "mm");
+/// Prescribed prism per component and eye (ground-in prisms rarely exceed
+/// 10 Δ; a product choice leaving room for unusual prescriptions).
+const PRISM: Bounds = Bounds::new(0.0, 20.0, "Δ");
+/// Driving acuity standards in use lie between 0.1 and 1.0 decimal.
+const DRIVING_ACUITY: Bounds = Bounds::new(0.1, 1.0, "");
+const IMBALANCE_LIMIT: Bounds = Bounds::new(0.25, 5.0, "Δ");
+/// The largest difference between the eyes' spherical equivalents accepted,
+/// in dioptres. Anisometropia beyond about 20 D (a unilateral aphakic eye
+/// beside a high myope) is exceedingly rare, while a sign typed wrongly is
+/// common, so a larger difference is refused with a message (a product choice).
+pub const MAX_ANISOMETROPIA_D: f64 = 20.0;
 
 /// Collects field errors while walking a scenario.
 struct Checker {
@@ -172,6 +183,29 @@ impl Checker {
         self.number(&format!("{path}.sphere_d"), rx.sphere_d, &SPHERE);
         self.number(&format!("{path}.cylinder_d"), rx.cylinder_d, &CYLINDER);
         self.number(&format!("{path}.axis_deg"), rx.axis_deg, &AXIS);
+        self.number(
+            &format!("{path}.prism.horizontal_pd"),
+            rx.prism.horizontal_pd,
+            &PRISM,
+        );
+        self.number(
+            &format!("{path}.prism.vertical_pd"),
+            rx.prism.vertical_pd,
+            &PRISM,
+        );
+    }
+
+    fn settings(&mut self, s: &PlanSettings) {
+        self.number(
+            "settings.driving_acuity_decimal",
+            s.driving_acuity_decimal,
+            &DRIVING_ACUITY,
+        );
+        self.number(
+            "settings.vertical_imbalance_limit_pd",
+            s.vertical_imbalance_limit_pd,
+            &IMBALANCE_LIMIT,
+        );
     }
 
     fn wearer(&mut self, w: &Wearer) {
@@ -181,6 +215,16 @@ impl Checker {
         }
         self.prescription("wearer.right", &w.right);
         self.prescription("wearer.left", &w.left);
+        let equivalent = |rx: &Prescription| rx.sphere_d + 0.5 * rx.cylinder_d;
+        if (equivalent(&w.right) - equivalent(&w.left)).abs() > MAX_ANISOMETROPIA_D {
+            self.fail(
+                "wearer.left.sphere_d",
+                Problem::Inconsistent(
+                    "differs from the right eye by more than 20 D, which no eye-care \
+                     practitioner would expect; check the signs of both prescriptions",
+                ),
+            );
+        }
         self.optional(
             "wearer.prescribed_addition_d",
             w.prescribed_addition_d,
@@ -330,6 +374,7 @@ impl Checker {
 pub fn validate(scenario: Scenario) -> Result<ValidScenario, Vec<FieldError>> {
     let mut c = Checker { errors: Vec::new() };
     c.name("name", &scenario.name, false);
+    c.settings(&scenario.settings);
     c.wearer(&scenario.wearer);
     if scenario.tasks.len() > MAX_TASKS {
         c.fail(
@@ -350,6 +395,15 @@ pub fn validate(scenario: Scenario) -> Result<ValidScenario, Vec<FieldError>> {
         c.fail(
             "tasks",
             Problem::Inconsistent("hours per day add up to more than 24"),
+        );
+    }
+    if each_sane && !scenario.tasks.is_empty() && total_hours <= 0.0 {
+        c.fail(
+            "tasks",
+            Problem::Inconsistent(
+                "every task takes 0 hours a day, so nothing can be weighed; give each task \
+                 the hours it takes",
+            ),
         );
     }
     if scenario.options.len() > MAX_OPTIONS {
@@ -416,6 +470,32 @@ mod tests {
             },
             "options[1].degression_d",
         );
+    }
+
+    #[test]
+    fn implausible_combinations_are_refused() {
+        // R -30 / L +30: a 60 D difference is a typing error, not a wearer.
+        let paths = problems_after(|s| {
+            s.wearer.right.sphere_d = -30.0;
+            s.wearer.left.sphere_d = 30.0;
+        });
+        assert_eq!(paths, ["wearer.left.sphere_d"]);
+        // 12 D of anisometropia (a unilateral aphakic eye, common practice) is accepted.
+        assert!(problems_after(|s| {
+            s.wearer.right.sphere_d = 12.0;
+            s.wearer.left.sphere_d = 0.0;
+        })
+        .is_empty());
+        let paths = problems_after(|s| {
+            for t in &mut s.tasks {
+                t.hours_per_day = 0.0;
+            }
+        });
+        assert_eq!(paths, ["tasks"]);
+        let paths = problems_after(|s| s.wearer.right.prism.vertical_pd = 40.0);
+        assert_eq!(paths, ["wearer.right.prism.vertical_pd"]);
+        let paths = problems_after(|s| s.settings.driving_acuity_decimal = 2.0);
+        assert_eq!(paths, ["settings.driving_acuity_decimal"]);
     }
 
     #[test]

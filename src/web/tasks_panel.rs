@@ -230,10 +230,17 @@ fn task_card(i: usize) -> impl IntoView {
                 {TASK_NUMBERS[1..].iter().map(|n| task_number(i, n)).collect_view()}
             </div>
             <div class="flags">
-                {flag_field(i, "Driving or moving machinery", |f| &mut f.driving)}
+                {flag_field(i, "Driving (road, mirrors, dashboard)", |f| &mut f.driving)}
+                {flag_field(i, "Moving machinery", |f| &mut f.moving_machinery)}
                 {flag_field(i, "Overhead", |f| &mut f.overhead)}
-                {flag_field(i, "Needs safety eyewear", |f| &mut f.needs_safety_eyewear)}
             </div>
+            <fieldset class="flags">
+                <legend>"Eye hazards"</legend>
+                {flag_field(i, "Impact", |f| &mut f.hazards.impact)}
+                {flag_field(i, "Splash or aerosol", |f| &mut f.hazards.splash_or_aerosol)}
+                {flag_field(i, "Dust", |f| &mut f.hazards.dust)}
+                {flag_field(i, "Optical radiation", |f| &mut f.hazards.optical_radiation)}
+            </fieldset>
         </li>
     }
 }

@@ -5,8 +5,8 @@ use super::bind::{scenario_number, Shown};
 use super::fields::ChoiceField;
 use super::state::use_app_state;
 use crate::scenario::{
-    AmplitudeMethod, BlurTolerance, Correction, MeasuredAmplitude, Prescription, PupilSource,
-    ReferencePlane, Scenario,
+    AmplitudeMethod, BlurTolerance, Correction, HorizontalBase, MeasuredAmplitude, Prescription,
+    PupilSource, ReferencePlane, Scenario, VerticalBase,
 };
 use leptos::prelude::*;
 
@@ -44,7 +44,80 @@ fn eye_fields(
                 move |s, v| pick_mut(s).axis_deg = v.unwrap_or(0.0),
                 false,
             )}
+            {prism_fields(eye, key, pick, pick_mut)}
         </fieldset>
+    }
+}
+
+/// The prescribed prism of one eye: horizontal and vertical amounts with their bases.
+fn prism_fields(
+    eye: &'static str,
+    key: String,
+    pick: fn(&Scenario) -> &Prescription,
+    pick_mut: fn(&mut Scenario) -> &mut Prescription,
+) -> impl IntoView {
+    let state = use_app_state();
+    let horizontal_base = Signal::derive(move || {
+        state
+            .scenario
+            .with(|s| match pick(s).prism.horizontal_base {
+                HorizontalBase::In => "in",
+                HorizontalBase::Out => "out",
+            })
+    });
+    let vertical_base = Signal::derive(move || {
+        state.scenario.with(|s| match pick(s).prism.vertical_base {
+            VerticalBase::Up => "up",
+            VerticalBase::Down => "down",
+        })
+    });
+    let on_horizontal = Callback::new(move |v: String| {
+        state.edit(|s| {
+            pick_mut(s).prism.horizontal_base = if v == "out" {
+                HorizontalBase::Out
+            } else {
+                HorizontalBase::In
+            }
+        })
+    });
+    let on_vertical = Callback::new(move |v: String| {
+        state.edit(|s| {
+            pick_mut(s).prism.vertical_base = if v == "down" {
+                VerticalBase::Down
+            } else {
+                VerticalBase::Up
+            }
+        })
+    });
+    view! {
+        {scenario_number(
+            "Horizontal prism",
+            format!("wearer.{key}.prism.horizontal_pd"),
+            Shown::As("Δ"),
+            move |s| Some(pick(s).prism.horizontal_pd),
+            move |s, v| pick_mut(s).prism.horizontal_pd = v.unwrap_or(0.0),
+            false,
+        )}
+        <ChoiceField
+            label=format!("{eye} horizontal base")
+            choices=vec![("in", "Base in"), ("out", "Base out")]
+            value=horizontal_base
+            on_change=on_horizontal
+        />
+        {scenario_number(
+            "Vertical prism",
+            format!("wearer.{key}.prism.vertical_pd"),
+            Shown::As("Δ"),
+            move |s| Some(pick(s).prism.vertical_pd),
+            move |s, v| pick_mut(s).prism.vertical_pd = v.unwrap_or(0.0),
+            false,
+        )}
+        <ChoiceField
+            label=format!("{eye} vertical base")
+            choices=vec![("up", "Base up"), ("down", "Base down")]
+            value=vertical_base
+            on_change=on_vertical
+        />
     }
 }
 
@@ -370,6 +443,25 @@ pub fn WearerPanel() -> impl IntoView {
                 )}
                 {pupil_and_blur_fields()}
             </div>
+            <fieldset class="grid">
+                <legend>"Limits the plan is judged against"</legend>
+                {scenario_number(
+                    "Driving acuity standard (decimal)",
+                    "settings.driving_acuity_decimal".into(),
+                    Shown::As(""),
+                    |s| Some(s.settings.driving_acuity_decimal),
+                    |s, v| s.settings.driving_acuity_decimal = v.unwrap_or(0.0),
+                    false,
+                )}
+                {scenario_number(
+                    "Vertical prism limit",
+                    "settings.vertical_imbalance_limit_pd".into(),
+                    Shown::As("Δ"),
+                    |s| Some(s.settings.vertical_imbalance_limit_pd),
+                    |s, v| s.settings.vertical_imbalance_limit_pd = v.unwrap_or(0.0),
+                    false,
+                )}
+            </fieldset>
         </section>
     }
 }

@@ -6,9 +6,10 @@
 use clearspan::plan::{plan, Plan};
 use clearspan::scenario::*;
 
-/// An emmetrope with contact lenses (vertex 0, so vergence is plain
-/// addition), a measured ocular amplitude, half usable, a clinical half depth
-/// of field and a measured 4 mm pupil.
+/// An emmetrope in plano spectacles idealised at vertex 0 (so vergence is
+/// plain addition), a measured ocular amplitude (subjective: it holds the
+/// depth of focus at the near end), half usable, a clinical half depth of
+/// field and a measured 4 mm pupil.
 pub fn wearer(amplitude_d: f64, half_depth_d: f64) -> Wearer {
     Wearer {
         age_years: 50.0,
@@ -20,7 +21,7 @@ pub fn wearer(amplitude_d: f64, half_depth_d: f64) -> Wearer {
         right: rx(0.0),
         left: rx(0.0),
         prescribed_addition_d: None,
-        correction: Correction::ContactLenses,
+        correction: Correction::Spectacles { vertex_mm: 0.0 },
         pd_right_mm: 32.0,
         pd_left_mm: 32.0,
         fitting_height_mm: 22.0,
@@ -38,6 +39,7 @@ pub fn rx(sphere: f64) -> Prescription {
         sphere_d: sphere,
         cylinder_d: 0.0,
         axis_deg: 0.0,
+        prism: Default::default(),
     }
 }
 
@@ -67,6 +69,7 @@ pub fn option(label: &str, family: FamilyChoice) -> LensOption {
 pub fn plan_of(wearer: Wearer, tasks: Vec<Task>, options: Vec<LensOption>) -> Plan {
     let s = Scenario {
         name: "test".to_string(),
+        settings: PlanSettings::default(),
         wearer,
         tasks,
         options,

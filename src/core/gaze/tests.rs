@@ -328,6 +328,7 @@ fn a_scenario_wearer_gives_a_fitting() {
         sphere_d: 1.0,
         cylinder_d: 0.0,
         axis_deg: 0.0,
+        prism: Default::default(),
     };
     // Demo wearer (fictional values within the usual ranges).
     let wearer = Wearer {

@@ -54,6 +54,48 @@ fn version_1_fixture_keeps_its_values() {
 }
 
 #[test]
+fn version_1_safety_flag_becomes_the_impact_hazard() {
+    // Version 1's one flag "needs safety eyewear" was worded as impact-rated
+    // eyewear; version 2 names the hazard. Prism and settings take defaults.
+    let v1: Value = serde_json::from_str(&fixture("export-v1.json")).expect("fixture is JSON");
+    let flagged = |doc: &Value| -> Vec<bool> {
+        doc["scenarios"][0]["scenario"]["tasks"]
+            .as_array()
+            .map(|ts| {
+                ts.iter()
+                    .map(|t| t["flags"]["needs_safety_eyewear"] == json!(true))
+                    .collect()
+            })
+            .unwrap_or_default()
+    };
+    let doc = read_document(&fixture("export-v1.json")).expect("fixture loads");
+    let item = doc.items[0].item.as_ref().expect("decodes");
+    let impact: Vec<bool> = item
+        .scenario
+        .tasks
+        .iter()
+        .map(|t| t.flags.hazards.impact)
+        .collect();
+    assert_eq!(impact, flagged(&v1));
+    assert_eq!(item.scenario.wearer.right.prism, Default::default());
+    assert_eq!(item.scenario.settings, Default::default());
+}
+
+#[test]
+fn version_2_fixture_keeps_its_prism_hazards_and_settings() {
+    let entry = read_entry(&fixture("entry-v2.json")).expect("fixture loads");
+    let s = &entry.scenario;
+    assert_eq!(s.wearer.left.prism.vertical_pd, 1.5);
+    assert_eq!(
+        s.wearer.left.prism.vertical_base,
+        crate::scenario::VerticalBase::Down
+    );
+    assert_eq!(s.settings.driving_acuity_decimal, 0.6);
+    assert!(s.tasks.iter().any(|t| t.flags.hazards.dust));
+    assert!(s.tasks.iter().any(|t| t.flags.moving_machinery));
+}
+
+#[test]
 fn written_entries_read_back_unchanged() {
     let body = read_entry(&fixture("entry-v1.json")).expect("fixture loads");
     let entry = body
@@ -133,9 +175,9 @@ fn foreign_and_unreadable_envelopes_are_refused_with_reasons() {
         "must be a whole number",
     );
     check_refused(
-        entry(json!(ENTRY_FORMAT), json!(2)),
-        FormatError::FutureVersion { found: 2 },
-        "written by a newer clearspan (format version 2); this one reads format versions up to 1",
+        entry(json!(ENTRY_FORMAT), json!(3)),
+        FormatError::FutureVersion { found: 3 },
+        "written by a newer clearspan (format version 3); this one reads format versions up to 2",
     );
 }
 
