@@ -35,10 +35,11 @@ mod tests {
     use super::*;
     use serde_json::json;
 
-    const ENTRY_V1: &str = include_str!("../../tests/fixtures/saved/entry-v1.json");
+    /// A bare file holds a scenario in the current shape: the newest fixture.
+    const ENTRY_V2: &str = include_str!("../../tests/fixtures/saved/entry-v2.json");
 
     fn bare() -> Value {
-        let entry: Value = serde_json::from_str(ENTRY_V1).expect("fixture is JSON");
+        let entry: Value = serde_json::from_str(ENTRY_V2).expect("fixture is JSON");
         entry["scenario"].clone()
     }
 

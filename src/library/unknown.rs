@@ -72,7 +72,29 @@ fn shown_key(key: &str) -> String {
 /// `items`, in document order (`None` for a scenario that was not taken;
 /// its fields are not looked into, it is refused anyway).
 pub(super) fn in_document(document: &Value, items: &[Option<&ExportItem>]) -> Vec<String> {
-    unknown_fields(document, &written_back(document, items), "")
+    let current = in_current_shape(document);
+    unknown_fields(&current, &written_back(document, items), "")
+}
+
+/// `document` with every scenario of an older format version rewritten in
+/// the current shape by the migration, so that a field the old version had
+/// and the current one renamed is not reported as unknown.
+fn in_current_shape(document: &Value) -> Value {
+    let mut doc = document.clone();
+    if doc.get("version").and_then(Value::as_u64) != Some(1) {
+        return doc;
+    }
+    let upgrade = |slot: &mut Value| *slot = super::migrate::upgrade_v1_scenario(slot);
+    if let Some(scenario) = doc.get_mut("scenario") {
+        upgrade(scenario);
+    }
+    let items = doc.get_mut("scenarios").and_then(Value::as_array_mut);
+    for item in items.into_iter().flatten() {
+        if let Some(scenario) = item.get_mut("scenario") {
+            upgrade(scenario);
+        }
+    }
+    doc
 }
 
 /// What this build would write for `document`: a stored entry's envelope
