@@ -150,9 +150,46 @@ pub fn file_name_for(name: &str) -> String {
     format!("clearspan-{stem}.json")
 }
 
+/// `text` with every control character replaced by a visible stand-in, so a
+/// user's name can be written to a terminal without moving the cursor,
+/// changing colours or starting a new line: the C0 controls (U+0000 to
+/// U+001F) and delete become their control pictures (U+2400 to U+241F and
+/// U+2421, such as ␛ for escape and ␊ for a line feed), the C1 controls
+/// (U+0080 to U+009F, which have no pictures) the replacement character �.
+/// Each character stays one character, so a length checked on the name
+/// still holds.
+///
+/// ```
+/// use clearspan::display::printable;
+/// assert_eq!(printable("a\u{1b}[2Jb\n"), "a␛[2Jb␊");
+/// ```
+pub fn printable(text: &str) -> String {
+    text.chars()
+        .map(|c| match u32::from(c) {
+            code @ 0x00..=0x1f => {
+                char::from_u32(0x2400 + code).unwrap_or(char::REPLACEMENT_CHARACTER)
+            }
+            0x7f => '\u{2421}',
+            0x80..=0x9f => char::REPLACEMENT_CHARACTER,
+            _ => c,
+        })
+        .collect()
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn control_characters_become_visible_one_for_one() {
+        // Stand-ins from the Unicode Control Pictures block (U+2400 to U+243F).
+        let raw = "Bench\u{0}\t\r\n\u{7}\u{7f}\u{9b}31m é";
+        let shown = printable(raw);
+        assert_eq!(shown, "Bench␀␉␍␊␇␡\u{fffd}31m é");
+        assert_eq!(shown.chars().count(), raw.chars().count());
+        assert!(!shown.chars().any(char::is_control));
+        assert_eq!(printable("Plain name (2)"), "Plain name (2)");
+    }
 
     #[test]
     fn inches_and_centimetres_convert_exactly() {

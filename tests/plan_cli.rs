@@ -1,6 +1,9 @@
 //! The command line: plans every demo file in `scenarios/` (when present),
 //! prints JSON with `--json`, and refuses bad files with a message naming
-//! the field and the problem and a non-zero exit status.
+//! the field and the problem and a non-zero exit status: unknown and
+//! wrong-typed fields by their full path, oversized and endless input,
+//! unknown options and files with nothing to plan. Names are written to the
+//! terminal without their control characters.
 
 use std::path::{Path, PathBuf};
 use std::process::Command;
@@ -89,4 +92,150 @@ fn every_demo_file_plans() {
         }
     }
     assert!(planned >= 5, "only {planned} demo files planned");
+}
+
+/// `scenario` (JSON text) in a version-1 export envelope.
+fn export_of(scenario: &str) -> String {
+    format!(
+        r#"{{"format": "clearspan-scenario-export", "version": 1, "scenarios": [{{"scenario": {scenario}}}]}}"#
+    )
+}
+
+/// Runs `plan` on a temporary file holding `text`; returns (ok, stdout, stderr).
+fn plan_text(name: &str, text: &str, extra: &[&str]) -> (bool, String, String) {
+    let path = temp_file(name, text);
+    let p = path.to_string_lossy().into_owned();
+    let mut args = vec!["plan", p.as_str()];
+    args.extend_from_slice(extra);
+    let result = run(&args);
+    let _ = std::fs::remove_file(path);
+    result
+}
+
+fn good() -> String {
+    BARE.replace("DISTANCE", "0.4")
+}
+
+#[test]
+fn a_misspelt_field_is_refused_here_and_imported_with_a_warning() {
+    let typo = good().replace(
+        r#""measured_amplitude": null"#,
+        r#""measured_amplitud": {"dioptres": 2.5, "method": "push_up", "plane": "spectacle"}"#,
+    );
+    let (ok, _, err) = plan_text("typo-bare.json", &typo, &[]);
+    assert!(!ok);
+    assert!(
+        err.contains("wearer.measured_amplitud: clearspan does not know this field"),
+        "{err}"
+    );
+    let file = export_of(&typo);
+    let (ok, _, err) = plan_text("typo-export.json", &file, &[]);
+    assert!(!ok);
+    assert!(
+        err.contains("scenarios[0].scenario.wearer.measured_amplitud"),
+        "{err}"
+    );
+    // The browser's import takes the same file and says what it ignored.
+    let batch = clearspan::library::parse_import(&file).expect("reads");
+    assert_eq!(batch.accepted.len(), 1);
+    assert_eq!(batch.accepted[0].scenario.wearer.measured_amplitude, None);
+    assert_eq!(
+        batch.unknown_fields,
+        ["scenarios[0].scenario.wearer.measured_amplitud"]
+    );
+}
+
+#[test]
+fn a_field_of_the_wrong_type_is_named_by_its_own_path() {
+    let (ok, _, err) = plan_text("type-bare.json", &BARE.replace("DISTANCE", "\"far\""), &[]);
+    assert!(!ok);
+    assert!(
+        err.contains("tasks[0].distance_m: invalid type: string \"far\", expected f64"),
+        "{err}"
+    );
+    let tagged = good().replace(r#""vertex_mm": 12"#, r#""vertex_mm": "12""#);
+    let (ok, _, err) = plan_text("type-export.json", &export_of(&tagged), &[]);
+    assert!(!ok);
+    assert!(
+        err.contains("scenarios[0].scenario.wearer.correction.vertex_mm: invalid type"),
+        "{err}"
+    );
+}
+
+#[test]
+fn a_byte_order_mark_is_accepted() {
+    let (ok, out, err) = plan_text("bom.json", &format!("\u{feff}{}", good()), &[]);
+    assert!(ok, "{err}");
+    assert!(out.contains("Plan for \"Fictional test reader\""), "{out}");
+    let (ok, _, err) = plan_text(
+        "bom-export.json",
+        &format!("\u{feff}{}", export_of(&good())),
+        &[],
+    );
+    assert!(ok, "{err}");
+}
+
+#[test]
+fn oversized_and_endless_input_is_refused_without_reading_it_whole() {
+    let big = format!("{}{}", good(), " ".repeat(2 * 1024 * 1024));
+    let (ok, _, err) = plan_text("big.json", &big, &[]);
+    assert!(!ok);
+    assert!(
+        err.contains("2.0 MiB, more than the 2 MiB allowed"),
+        "{err}"
+    );
+    // A device that never ends: only the limit and one byte are read.
+    if Path::new("/dev/zero").exists() {
+        let (ok, _, err) = run(&["plan", "/dev/zero"]);
+        assert!(!ok);
+        assert!(err.contains("goes on past the 2 MiB allowed"), "{err}");
+    }
+}
+
+#[test]
+fn control_characters_in_names_are_shown_not_obeyed() {
+    let named = good()
+        .replace("Fictional test reader", r"Red\u001b[31m reader\nline two")
+        .replace(r#""name": "book""#, r#""name": "bell\u0007book""#);
+    let (ok, out, err) = plan_text("control.json", &named, &[]);
+    assert!(ok, "{err}");
+    assert!(
+        out.contains("Plan for \"Red␛[31m reader␊line two\""),
+        "{out}"
+    );
+    assert!(out.contains("bell␇book"), "{out}");
+    assert!(!out.chars().any(|c| c.is_control() && c != '\n'), "{out:?}");
+    // JSON keeps the names as written; JSON escapes them itself.
+    let (ok, out, err) = plan_text("control-json.json", &named, &["--json"]);
+    assert!(ok, "{err}");
+    let json: serde_json::Value = serde_json::from_str(&out).expect("valid JSON");
+    assert_eq!(json[0]["scenario_name"], "Red\u{1b}[31m reader\nline two");
+    // Text quoted from the file in an error message is not obeyed either.
+    let bad = good().replace("single_vision", r"single\u001b[2Jvision");
+    let (ok, _, err) = plan_text("control-error.json", &bad, &[]);
+    assert!(!ok);
+    assert!(err.contains("single␛[2Jvision"), "{err}");
+    assert!(!err.chars().any(|c| c.is_control() && c != '\n'), "{err:?}");
+}
+
+#[test]
+fn unknown_options_are_refused_with_the_usage_line() {
+    let (ok, _, err) = plan_text("option.json", &good(), &["--jsno"]);
+    assert!(!ok);
+    assert!(err.contains("unknown option \"--jsno\""), "{err}");
+    assert!(
+        err.contains("usage: clearspan plan FILE.json [--json]"),
+        "{err}"
+    );
+    let (ok, _, err) = run(&["plan", "-j", "x.json"]);
+    assert!(!ok && err.contains("unknown option \"-j\""), "{err}");
+}
+
+#[test]
+fn an_export_without_scenarios_says_there_is_nothing_to_plan() {
+    let empty = r#"{"format": "clearspan-scenario-export", "version": 1, "scenarios": []}"#;
+    let (ok, out, err) = plan_text("empty.json", empty, &[]);
+    assert!(!ok);
+    assert!(out.is_empty(), "{out}");
+    assert!(err.contains("the file holds no scenarios"), "{err}");
 }

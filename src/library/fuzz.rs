@@ -2,6 +2,7 @@
 //! import reader and the migration: they must never panic, and every
 //! refusal must carry a non-empty message.
 
+use super::bare::read_bare_scenario;
 use super::migrate::{migrate_entry, migrate_export};
 use super::read::read_entry;
 use super::transfer::{parse_import, parse_import_bytes, ImportBatch};
@@ -43,6 +44,7 @@ fn json() -> impl Strategy<Value = Value> {
 fn check_outcome(result: Result<ImportBatch, ReadError>) {
     match result {
         Ok(batch) => {
+            assert!(batch.unknown_fields.iter().all(|p| !p.is_empty()));
             for item in &batch.rejected {
                 assert!(!item.problems.is_empty());
                 for p in &item.problems {
@@ -65,6 +67,10 @@ proptest! {
         }
         if let Err(e) = migrate_export(&value) {
             prop_assert!(!e.to_string().is_empty());
+        }
+        match read_bare_scenario(&value) {
+            Ok(bare) => prop_assert!(bare.unknown_fields.iter().all(|p| !p.is_empty())),
+            Err(e) => prop_assert!(!e.path.is_empty() && !e.problem.to_string().is_empty()),
         }
         let text = value.to_string();
         check_outcome(parse_import(&text));

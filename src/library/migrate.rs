@@ -10,10 +10,11 @@
 //! reading. [`upgrade_v1_scenario`] rewrites a version-1 scenario into the
 //! version-2 shape before it is decoded, so every shipped version keeps loading.
 
+use super::field_path::{decode_at, join, problem};
 use super::format::{
     ExportItem, StoredEntry, CURRENT_VERSION, ENTRY_FORMAT, EXPORT_FORMAT, SHIPPED_VERSIONS,
 };
-use crate::scenario::{FieldError, LensOption, Problem, Scenario, Task, Wearer};
+use crate::scenario::{FieldError, LensOption, Scenario, Task, Wearer};
 use serde::de::DeserializeOwned;
 use serde::Deserialize;
 use serde_json::{Map, Value};
@@ -423,36 +424,18 @@ fn list<T: DeserializeOwned>(
     }
 }
 
+/// Decodes `value`, found at `path`; a problem names the innermost field at fault.
 fn decode<T: DeserializeOwned>(
     value: &Value,
     path: &str,
     errors: &mut Vec<FieldError>,
 ) -> Option<T> {
-    match T::deserialize(value) {
+    match decode_at(value, path) {
         Ok(v) => Some(v),
         Err(e) => {
-            errors.push(problem(path, e.to_string()));
+            errors.push(e);
             None
         }
-    }
-}
-
-fn problem(path: &str, message: String) -> FieldError {
-    FieldError {
-        path: if path.is_empty() {
-            "(document)".to_string()
-        } else {
-            path.to_string()
-        },
-        problem: Problem::Unreadable(message),
-    }
-}
-
-fn join(path: &str, field: &str) -> String {
-    if path.is_empty() {
-        field.to_string()
-    } else {
-        format!("{path}.{field}")
     }
 }
 

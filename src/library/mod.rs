@@ -5,8 +5,10 @@
 //! reached only through the [`KeyValueStore`] trait, which the browser
 //! adapter implements over local storage; nothing here knows the browser.
 
+mod bare;
 mod collection;
 pub mod demos;
+mod field_path;
 pub mod format;
 pub mod migrate;
 mod naming;
@@ -14,7 +16,9 @@ pub mod read;
 pub mod store;
 mod sync;
 mod transfer;
+mod unknown;
 
+pub use bare::{read_bare_scenario, BareScenario};
 pub use collection::{
     id_for_key, key_for, Conflict, EntryProblem, Library, LibraryError, LoadReport, Persisted,
     SetAside, Summary, Theirs, APP_PREFIX, SCENARIO_PREFIX,
@@ -27,13 +31,14 @@ pub use format::{
 pub use migrate::{migrate_entry, migrate_export, DocumentItem, ExportDocument, FormatError};
 pub use naming::unique_name;
 pub use read::{
-    check_nesting, parse_limited, read_document, read_document_bytes, read_entry, ReadError,
-    MAX_DOCUMENT_BYTES, MAX_NESTING,
+    check_nesting, document_text, parse_limited, read_document, read_document_bytes, read_entry,
+    ReadError, MAX_DOCUMENT_BYTES, MAX_NESTING,
 };
 pub use store::{KeyValueStore, MemoryStore, SharedMemoryStore, StoreError};
 pub use sync::Reloaded;
 pub use transfer::{
-    parse_import, parse_import_bytes, ImportBatch, ImportReport, Imported, RejectedItem,
+    parse_import, parse_import_bytes, parse_import_value, ImportBatch, ImportReport, Imported,
+    RejectedItem,
 };
 
 #[cfg(test)]

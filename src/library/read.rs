@@ -116,11 +116,17 @@ pub fn check_nesting(bytes: &[u8]) -> Result<(), ReadError> {
     Ok(())
 }
 
-/// Parses untrusted text into JSON after the size and nesting checks.
+/// The UTF-8 byte-order mark some editors put at the start of a text file.
+const BYTE_ORDER_MARK: char = '\u{feff}';
+
+/// Parses untrusted text into JSON after the size and nesting checks. A
+/// byte-order mark at the start is passed over, as browsers do when they
+/// decode a file.
 pub fn parse_limited(text: &str) -> Result<Value, ReadError> {
     if text.len() > MAX_DOCUMENT_BYTES {
         return Err(ReadError::TooLarge { bytes: text.len() });
     }
+    let text = text.strip_prefix(BYTE_ORDER_MARK).unwrap_or(text);
     if text.trim().is_empty() {
         return Err(ReadError::Empty);
     }
@@ -140,13 +146,17 @@ pub fn read_document(text: &str) -> Result<ExportDocument, ReadError> {
     Ok(migrate_export(&parse_limited(text)?)?)
 }
 
-/// Reads an export file from raw bytes, checking size before decoding them as UTF-8.
-pub fn read_document_bytes(bytes: &[u8]) -> Result<ExportDocument, ReadError> {
+/// A file's raw bytes as text, checking the size before decoding them as UTF-8.
+pub fn document_text(bytes: &[u8]) -> Result<&str, ReadError> {
     if bytes.len() > MAX_DOCUMENT_BYTES {
         return Err(ReadError::TooLarge { bytes: bytes.len() });
     }
-    let text = std::str::from_utf8(bytes).map_err(|_| ReadError::NotText)?;
-    read_document(text)
+    std::str::from_utf8(bytes).map_err(|_| ReadError::NotText)
+}
+
+/// Reads an export file from raw bytes (see [`document_text`]).
+pub fn read_document_bytes(bytes: &[u8]) -> Result<ExportDocument, ReadError> {
+    read_document(document_text(bytes)?)
 }
 
 #[cfg(test)]
@@ -202,6 +212,21 @@ mod tests {
         );
         let err = read_document_bytes(big.as_bytes()).unwrap_err();
         assert!(matches!(err, ReadError::TooLarge { .. }));
+    }
+
+    #[test]
+    fn a_byte_order_mark_at_the_start_is_passed_over() {
+        // EF BB BF: U+FEFF, the byte-order mark, in UTF-8 (Unicode Standard, 23.8 "Specials").
+        let with_mark = b"\xEF\xBB\xBF{\"format\": \"clearspan-scenario-export\", \"version\": 1, \"scenarios\": []}";
+        let doc = read_document_bytes(with_mark).expect("the mark is passed over");
+        assert!(doc.items.is_empty());
+        assert_eq!(parse_limited("\u{feff}[1]"), Ok(serde_json::json!([1])));
+        // Only at the start: elsewhere it is not white space to JSON.
+        assert!(matches!(
+            parse_limited("[1]\u{feff}"),
+            Err(ReadError::NotJson { .. })
+        ));
+        assert_eq!(parse_limited("\u{feff}"), Err(ReadError::Empty));
     }
 
     #[test]

@@ -5,6 +5,7 @@
 
 use super::*;
 use crate::scenario::Scenario;
+use serde_json::{json, Value};
 use std::cell::RefCell;
 use std::rc::Rc;
 
@@ -368,7 +369,7 @@ fn a_value_that_would_not_read_back_is_never_written() {
     let Err(LibraryError::NotStorable(errors)) = lib.save(&a, bad, 5) else {
         panic!("NaN must not be written as null")
     };
-    assert_eq!(errors[0].path, "scenario.tasks[0]");
+    assert_eq!(errors[0].path, "scenario.tasks[0].distance_m");
     contains(
         &LibraryError::NotStorable(errors).to_string(),
         "cannot be saved until a value is corrected",
@@ -570,4 +571,64 @@ fn undo_of_a_delete_that_storage_refused_does_not_conflict_with_itself() {
     let (restored, result) = lib.undo_delete().expect("undo");
     assert_eq!((restored, result), (a.clone(), Ok(Persisted::Stored)));
     assert_eq!(lib.save(&a, sample("A again"), 9), Ok(Persisted::Stored));
+}
+
+#[test]
+fn a_misspelt_field_is_imported_with_a_warning_naming_its_path() {
+    // Written here from the starting scenario, so no fixture hides the typo.
+    let item = ExportItem {
+        note: String::new(),
+        created_ms: None,
+        changed_ms: None,
+        scenario: Scenario::untitled(),
+    };
+    let text = encode_export(&[item], 1).expect("encodes");
+    let mut file: Value = serde_json::from_str(&text).expect("JSON");
+    let wearer = &mut file["scenarios"][0]["scenario"]["wearer"];
+    if let Some(w) = wearer.as_object_mut() {
+        w.remove("measured_amplitude");
+    }
+    wearer["measured_amplitud"] =
+        json!({"dioptres": 2.5, "method": "push_up", "plane": "spectacle"});
+    let batch = parse_import(&file.to_string()).expect("reads");
+    assert_eq!(batch.accepted.len(), 1);
+    assert_eq!(batch.accepted[0].scenario.wearer.measured_amplitude, None);
+    assert_eq!(
+        batch.unknown_fields,
+        ["scenarios[0].scenario.wearer.measured_amplitud"]
+    );
+    let (mut lib, _) = Library::open(MemoryStore::new());
+    let report = lib.import(batch, 2);
+    assert_eq!(report.messages(), ["Imported \"Untitled scenario\""]);
+    assert_eq!(
+        report.unknown_fields_notice().as_deref(),
+        Some(
+            "1 field in the file is not part of clearspan's format, so it was ignored \
+             (a misspelling?): scenarios[0].scenario.wearer.measured_amplitud."
+        )
+    );
+}
+
+#[test]
+fn the_unknown_field_notice_names_the_first_few_and_counts_the_rest() {
+    let report = |count: usize| ImportReport {
+        added: Vec::new(),
+        rejected: Vec::new(),
+        unknown_fields: (0..count).map(|i| format!("f{i}")).collect(),
+    };
+    assert_eq!(report(0).unknown_fields_notice(), None);
+    assert_eq!(
+        report(5).unknown_fields_notice().as_deref(),
+        Some(
+            "5 fields in the file are not part of clearspan's format, so they were ignored \
+             (misspellings?): f0, f1, f2, f3, f4."
+        )
+    );
+    assert_eq!(
+        report(7).unknown_fields_notice().as_deref(),
+        Some(
+            "7 fields in the file are not part of clearspan's format, so they were ignored \
+             (misspellings?): f0, f1, f2, f3, f4 and 2 more."
+        )
+    );
 }

@@ -1,15 +1,18 @@
 //! Files in and out: export of one, some or all scenarios as one JSON file,
 //! and import of untrusted files. Import reads with the size and nesting
 //! caps, migrates, runs the scenario validation on each scenario, and takes
-//! the good ones even when others are bad; a name already in the library is
-//! never overwritten but gets the next free "… (2)".
+//! the good ones even when others are bad; fields it does not know are
+//! listed so the user can be told. A name already in the library is never
+//! overwritten but gets the next free "… (2)".
 
 use super::collection::{Library, LibraryError, Persisted};
 use super::format::{encode_export, EntryId, ExportItem};
-use super::migrate::ExportDocument;
-use super::read::{read_document, read_document_bytes, ReadError};
+use super::migrate::{migrate_export, ExportDocument};
+use super::read::{document_text, parse_limited, ReadError};
 use super::store::KeyValueStore;
+use super::unknown;
 use crate::scenario::{validate, FieldError, Problem};
+use serde_json::Value;
 use std::fmt;
 
 /// A scenario of an import file that was not taken, with every problem found.
@@ -43,28 +46,44 @@ pub struct ImportBatch {
     pub accepted: Vec<ExportItem>,
     /// Scenarios that did not, with their problems.
     pub rejected: Vec<RejectedItem>,
+    /// Paths of the fields clearspan does not know, in the envelope and in
+    /// the accepted scenarios (for example
+    /// `scenarios[0].scenario.wearer.measured_amplitud`), in file order.
+    /// They were ignored; a misspelt field leaves its value unset.
+    pub unknown_fields: Vec<String>,
 }
 
-/// Reads an import file's text: caps, JSON, format, version, types, validation.
+/// Reads an import file's text: caps, JSON, format, version, types,
+/// validation, unknown fields.
 pub fn parse_import(text: &str) -> Result<ImportBatch, ReadError> {
-    Ok(check_items(read_document(text)?))
+    parse_import_value(&parse_limited(text)?)
 }
 
 /// Like [`parse_import`], from the file's raw bytes.
 pub fn parse_import_bytes(bytes: &[u8]) -> Result<ImportBatch, ReadError> {
-    Ok(check_items(read_document_bytes(bytes)?))
+    parse_import(document_text(bytes)?)
 }
 
-/// Runs the scenario validation on every decoded item of `doc`.
-fn check_items(doc: ExportDocument) -> ImportBatch {
+/// Like [`parse_import`], from a document already parsed by [`parse_limited`].
+pub fn parse_import_value(document: &Value) -> Result<ImportBatch, ReadError> {
+    Ok(check_items(document, migrate_export(document)?))
+}
+
+/// Runs the scenario validation on every decoded item of `doc`, and looks
+/// for unknown fields in the `document` it was decoded from.
+fn check_items(document: &Value, doc: ExportDocument) -> ImportBatch {
     let mut batch = ImportBatch {
         accepted: Vec::new(),
         rejected: Vec::new(),
+        unknown_fields: Vec::new(),
     };
+    // Where each scenario of the file went in `accepted`, if it was taken.
+    let mut taken: Vec<Option<usize>> = Vec::new();
     for (i, item) in doc.items.into_iter().enumerate() {
         let problems = match item.item {
             Ok(decoded) => match validate(decoded.scenario.clone()) {
                 Ok(_) => {
+                    taken.push(Some(batch.accepted.len()));
                     batch.accepted.push(decoded);
                     continue;
                 }
@@ -85,12 +104,18 @@ fn check_items(doc: ExportDocument) -> ImportBatch {
             },
             Err(errors) => errors,
         };
+        taken.push(None);
         batch.rejected.push(RejectedItem {
             number: i + 1,
             name: item.name,
             problems,
         });
     }
+    let items: Vec<Option<&ExportItem>> = taken
+        .iter()
+        .map(|t| t.and_then(|a| batch.accepted.get(a)))
+        .collect();
+    batch.unknown_fields = unknown::in_document(document, &items);
     batch
 }
 
@@ -132,7 +157,12 @@ pub struct ImportReport {
     pub added: Vec<Imported>,
     /// Scenarios not taken.
     pub rejected: Vec<RejectedItem>,
+    /// Paths of the fields that were ignored because clearspan does not know them.
+    pub unknown_fields: Vec<String>,
 }
+
+/// How many unknown fields a notice names before it only counts the rest.
+const NAMED_UNKNOWN_FIELDS: usize = 5;
 
 impl ImportReport {
     /// One plain-language line per scenario of the file.
@@ -143,6 +173,39 @@ impl ImportReport {
             lines.push("The file holds no scenarios.".to_string());
         }
         lines
+    }
+
+    /// One warning naming the fields that were ignored, or `None` when there
+    /// were none: their number and the first few paths.
+    pub fn unknown_fields_notice(&self) -> Option<String> {
+        let count = self.unknown_fields.len();
+        let (head, guess) = match count {
+            0 => return None,
+            1 => (
+                "1 field in the file is not part of clearspan's format, so it was ignored"
+                    .to_string(),
+                "a misspelling?",
+            ),
+            n => (
+                format!(
+                    "{n} fields in the file are not part of clearspan's format, so they were \
+                     ignored"
+                ),
+                "misspellings?",
+            ),
+        };
+        let named: Vec<&str> = self
+            .unknown_fields
+            .iter()
+            .take(NAMED_UNKNOWN_FIELDS)
+            .map(String::as_str)
+            .collect();
+        let named = named.join(", ");
+        let rest = match count.saturating_sub(NAMED_UNKNOWN_FIELDS) {
+            0 => String::new(),
+            more => format!(" and {more} more"),
+        };
+        Some(format!("{head} ({guess}): {named}{rest}."))
     }
 }
 
@@ -173,6 +236,7 @@ impl<S: KeyValueStore> Library<S> {
         ImportReport {
             added,
             rejected: batch.rejected,
+            unknown_fields: batch.unknown_fields,
         }
     }
 

@@ -251,6 +251,9 @@ pub fn ShelfPanel() -> impl IntoView {
                         for line in report.messages() {
                             shelf.tell(line, warning, None);
                         }
+                        if let Some(notice) = report.unknown_fields_notice() {
+                            shelf.tell(notice, true, None);
+                        }
                         if let Some(first) = report.added.first() {
                             open_entry(state, first.id.clone());
                         }

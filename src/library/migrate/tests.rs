@@ -192,7 +192,14 @@ fn entry_field_problems_name_their_paths() {
         panic!("field problems expected")
     };
     let paths: Vec<&str> = errors.iter().map(|e| e.path.as_str()).collect();
-    assert_eq!(paths, ["revision", "scenario.wearer", "scenario.tasks[1]"]);
+    assert_eq!(
+        paths,
+        [
+            "revision",
+            "scenario.wearer",
+            "scenario.tasks[1].distance_m"
+        ]
+    );
     assert!(
         errors[0].problem.to_string().contains("-1"),
         "{}",
@@ -228,7 +235,10 @@ fn one_broken_scenario_in_an_export_leaves_the_others_readable() {
     let doc = migrate_export(&value).expect("the envelope is fine");
     assert_eq!(doc.items.len(), 3);
     let first = doc.items[0].item.as_ref().expect_err("broken option");
-    assert_eq!(first[0].path, "scenarios[0].scenario.options[0]");
+    assert_eq!(
+        first[0].path,
+        "scenarios[0].scenario.options[0].family.family"
+    );
     assert!(
         first[0]
             .problem
