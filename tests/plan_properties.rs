@@ -15,7 +15,14 @@ use plan_support::*;
 use proptest::prelude::*;
 
 /// JSON keys whose value may be null because the field is an `Option`.
-const OPTIONAL_KEYS: [&str; 13] = [
+const OPTIONAL_KEYS: [&str; 20] = [
+    "prescribed_addition",
+    "segment_top_height",
+    "upper_segment_bottom_height",
+    "intermediate_percent",
+    "progression_length",
+    "minimum_fitting_height",
+    "near_inset_per_eye",
     "driving",
     "driving_vision",
     "right_prism",

@@ -47,6 +47,7 @@ pub struct Viewer {
     amplitude: Dioptres,
     usable: UsableShare,
     includes_depth_of_focus: bool,
+    rounding_tolerance: Dioptres,
 }
 
 impl Viewer {
@@ -70,7 +71,19 @@ impl Viewer {
             amplitude: Dioptres(amplitude),
             usable,
             includes_depth_of_focus: false,
+            rounding_tolerance: Dioptres(0.0),
         })
+    }
+
+    /// The same viewer accepting `tolerance` dioptres of accommodation
+    /// beyond the (usable) amplitude at the near end: the shortfall of plus
+    /// that rounding an addition to the nearest 0.25 D step leaves (at most
+    /// 0.125 D; 0 when additions are rounded up).
+    pub fn with_rounding_tolerance(self, tolerance: Dioptres) -> Viewer {
+        Viewer {
+            rounding_tolerance: Dioptres(tolerance.0.clamp(0.0, 0.125)),
+            ..self
+        }
     }
 
     /// The same viewer, its amplitude marked as subjective: it already
@@ -88,14 +101,15 @@ impl Viewer {
     }
 
     /// How far beyond the (usable) amplitude the near end of a range reaches
-    /// for a half depth of field `half_depth`: 0 when the amplitude already
-    /// contains it, else `half_depth`.
+    /// for a half depth of field `half_depth`: the rounding tolerance, plus
+    /// `half_depth` unless the amplitude already contains it.
     pub fn near_end_allowance(&self, half_depth: Dioptres) -> Dioptres {
-        if self.includes_depth_of_focus {
-            Dioptres(0.0)
+        let depth = if self.includes_depth_of_focus {
+            0.0
         } else {
-            half_depth
-        }
+            half_depth.0
+        };
+        Dioptres(depth + self.rounding_tolerance.0)
     }
 
     /// The corrected eye.

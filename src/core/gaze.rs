@@ -25,7 +25,7 @@ pub use centration::{
 pub use posture::{ComfortRange, Posture, PostureOutcome, HEAD_PITCH_LIMIT_DEG};
 
 use crate::core::lens::{LensError, LensPoint, NamedBounds, VerticalExtent};
-use crate::core::units::{Degrees, Metres, Millimetres, PrismDioptres};
+use crate::core::units::{Degrees, Dioptres, Metres, Millimetres, PrismDioptres};
 use crate::scenario::{Correction, Task, VerticalPosition, Wearer};
 use nalgebra::{Point3, Rotation3, Vector3};
 
@@ -342,18 +342,58 @@ impl Fitting {
     /// assert!((near.0 - 59.953).abs() < 1e-3);
     /// ```
     pub fn near_pd(&self, distance: Metres) -> Result<Millimetres, LensError> {
-        let l = DISTANCE.check(distance.0)? * 1000.0;
+        self.near_pd_through(distance, [Dioptres(0.0); 2])
+    }
+
+    /// Near PD for a task `distance` metres away seen through lenses whose
+    /// horizontal powers are `powers` (right, left), in millimetres: the
+    /// distance PD less both eyes' [`Fitting::near_inset_through`].
+    pub fn near_pd_through(
+        &self,
+        distance: Metres,
+        [right, left]: [Dioptres; 2],
+    ) -> Result<Millimetres, LensError> {
         let pd = self.params.pd_right.0 + self.params.pd_left.0;
-        Ok(Millimetres(pd * l / (l + self.lens_to_cor().0)))
+        let r = self.near_inset_through(Eye::Right, distance, right)?;
+        let l = self.near_inset_through(Eye::Left, distance, left)?;
+        Ok(Millimetres(pd - r.0 - l.0))
     }
 
     /// Inset of `eye`'s near centration for a task `distance` metres away,
     /// in millimetres: `PD_mono x c / (l + c)`, so the two insets add up to
     /// the difference between the distance and near PDs.
     pub fn near_inset(&self, eye: Eye, distance: Metres) -> Result<Millimetres, LensError> {
+        self.near_inset_through(eye, distance, Dioptres(0.0))
+    }
+
+    /// Inset of `eye`'s near visual point for a task straight ahead at
+    /// `distance` metres, seen through a lens of horizontal power `power`
+    /// centred for distance, in millimetres. The ray from the task to the
+    /// eye's centre of rotation is bent at the lens by Prentice's rule, so
+    ///
+    /// `i = PD_mono x c / (l + c - F c l)`
+    ///
+    /// (l the task distance and c the lens to centre of rotation, in metres
+    /// for the product F c l): plus lenses need more inset and minus lenses
+    /// less than the plano `PD_mono x c / (l + c)` (the near centration
+    /// through powered lenses of Jalie, Principles of Ophthalmic Lenses;
+    /// from memory). An error when the lens is so strong that no ray
+    /// reaches the eye (far beyond ophthalmic powers).
+    pub fn near_inset_through(
+        &self,
+        eye: Eye,
+        distance: Metres,
+        power: Dioptres,
+    ) -> Result<Millimetres, LensError> {
         let l = DISTANCE.check(distance.0)? * 1000.0;
         let c = self.lens_to_cor().0;
-        Ok(Millimetres(self.monocular_pd(eye).0 * c / (l + c)))
+        let denominator = l + c - power.0 * c * l / 1000.0;
+        if denominator <= 0.0 {
+            return Err(LensError::TaskUnreachable {
+                reason: "the lens is too strong for any ray from the task to reach the eye",
+            });
+        }
+        Ok(Millimetres(self.monocular_pd(eye).0 * c / denominator))
     }
 
     /// Convergence demand of `eye` for a task straight ahead at `distance`
@@ -378,10 +418,22 @@ impl Fitting {
         eye: Eye,
         distance: Metres,
     ) -> Result<PrismDioptres, LensError> {
-        let l = DISTANCE.check(distance.0)? * 1000.0;
-        Ok(PrismDioptres(
-            100.0 * self.monocular_pd(eye).0 / (l + self.lens_to_cor().0),
-        ))
+        self.convergence_through(eye, distance, Dioptres(0.0))
+    }
+
+    /// Convergence of `eye` for a task straight ahead at `distance` metres
+    /// seen through a lens of horizontal power `power` centred for distance,
+    /// in prism dioptres: 100 x the slope of the ray into the centre of
+    /// rotation, `100 x i / c` with `i` from [`Fitting::near_inset_through`]
+    /// (with no power, `100 x PD_mono / (l + c)`).
+    pub fn convergence_through(
+        &self,
+        eye: Eye,
+        distance: Metres,
+        power: Dioptres,
+    ) -> Result<PrismDioptres, LensError> {
+        let inset = self.near_inset_through(eye, distance, power)?;
+        Ok(PrismDioptres(100.0 * inset.0 / self.lens_to_cor().0))
     }
 }
 

@@ -101,6 +101,17 @@ impl Band {
         add >= self.lo - EDGE_SLACK_D && add <= self.hi + EDGE_SLACK_D
     }
 
+    /// How far `add` lies outside the band, in dioptres (0 inside it).
+    pub fn distance_to(&self, add: f64) -> f64 {
+        if add < self.lo {
+            self.lo - add
+        } else if add > self.hi {
+            add - self.hi
+        } else {
+            0.0
+        }
+    }
+
     /// Whether the band holds any addition.
     pub fn is_empty(&self) -> bool {
         self.lo > self.hi
@@ -279,7 +290,8 @@ impl Context {
         // the depth of focus at the near end.
         let viewer = Viewer::new(eye, ocular, usable)
             .map_err(PlanError::optics("wearer"))?
-            .with_subjective_amplitude();
+            .with_subjective_amplitude()
+            .with_rounding_tolerance(Dioptres(s.settings.addition_rounding.tolerated_shortfall()));
         let amplitude = AmplitudeUsed {
             ocular,
             usable_fraction: w.usable_fraction,

@@ -22,11 +22,12 @@ pub mod outcome;
 pub mod report;
 pub mod solver;
 pub mod text;
+pub mod tolerances;
 
 pub use error::PlanError;
 pub use outcome::*;
 
-use crate::core::units::{Degrees, Dioptres, Millimetres};
+use crate::core::units::{Degrees, Dioptres, Metres, Millimetres};
 use crate::scenario::{Correction, FamilyChoice, ValidScenario};
 use context::Context;
 use objective::score;
@@ -41,10 +42,13 @@ pub fn plan(scenario: &ValidScenario) -> Result<Plan, PlanError> {
     let ctx = Context::new(scenario)?;
     let mut options = Vec::with_capacity(s.options.len());
     let mut choices = vec![objective::TaskChoice::default(); ctx.tasks.len()];
+    let prescribed = s.wearer.prescribed_addition_d;
+    let from_prescription = prescribed.filter(|_| s.settings.use_prescribed_addition);
     for (i, o) in s.options.iter().enumerate() {
         let field = format!("options[{i}]");
+        let family = from_prescription.map_or(o.family, |add| with_near_addition(&o.family, add));
         let solution =
-            solver::solve(&o.family, &ctx.tasks, ctx.extent).map_err(PlanError::lens(field))?;
+            solver::solve(&family, &ctx.tasks, ctx.extent).map_err(PlanError::lens(field))?;
         let sc = score(&solution.design, &ctx.tasks, ctx.extent, Some(&mut choices));
         let centre = objective::optical_centre(&solution.design, &ctx.tasks, ctx.extent);
         let tasks = choices
@@ -65,18 +69,17 @@ pub fn plan(scenario: &ValidScenario) -> Result<Plan, PlanError> {
                 label: o.label.clone(),
             },
             design: solution.choice,
-            parameters: solver::resolved_parameters(&o.family, solution.values),
-            explanation: solver::explain(
-                &o.family,
-                &solution,
-                &ctx.tasks,
-                &ctx.contexts,
-                ctx.extent,
-            ),
+            parameters: solver::resolved_parameters(&o.family, &family, solution.values),
+            explanation: solver::explain(&family, &solution, &ctx.tasks, &ctx.contexts, ctx.extent),
             score: sc,
             zones,
             tasks,
             driving: driving::fitness(&solution.design, &ctx.tasks, &ctx.contexts),
+            prescribed_addition: prescribed.map(|p| AdditionComparison {
+                prescribed: Dioptres(p),
+                planned: near_addition(&solution.choice),
+                difference: near_addition(&solution.choice) - Dioptres(p),
+            }),
             optical_centre_height: Millimetres(centre),
         });
     }
@@ -110,6 +113,44 @@ pub fn plan(scenario: &ValidScenario) -> Result<Plan, PlanError> {
     })
 }
 
+/// `family` with its open near addition fixed to `add` (the prescribed
+/// addition); single-vision task lenses keep theirs open, since their power
+/// is chosen for the task, not for reading.
+fn with_near_addition(family: &FamilyChoice, add: f64) -> FamilyChoice {
+    let mut f = *family;
+    match &mut f {
+        FamilyChoice::SingleVision { .. } => {}
+        FamilyChoice::Bifocal { addition_d, .. }
+        | FamilyChoice::Trifocal { addition_d, .. }
+        | FamilyChoice::Progressive { addition_d, .. }
+        | FamilyChoice::DoubleSegment { addition_d, .. } => {
+            addition_d.get_or_insert(add);
+        }
+        FamilyChoice::Degressive {
+            near_addition_d, ..
+        } => {
+            near_addition_d.get_or_insert(add);
+        }
+    }
+    f
+}
+
+/// The near addition of a resolved design (the whole power over the
+/// distance power of a single-vision lens), in dioptres.
+fn near_addition(design: &FamilyChoice) -> Dioptres {
+    let add = match *design {
+        FamilyChoice::SingleVision { addition_d }
+        | FamilyChoice::Bifocal { addition_d, .. }
+        | FamilyChoice::Trifocal { addition_d, .. }
+        | FamilyChoice::Progressive { addition_d, .. }
+        | FamilyChoice::DoubleSegment { addition_d, .. } => addition_d,
+        FamilyChoice::Degressive {
+            near_addition_d, ..
+        } => near_addition_d,
+    };
+    Dioptres(add.unwrap_or(0.0))
+}
+
 /// Tasks no option makes comfortable, with the option that came closest.
 fn unserved(ctx: &Context, options: &[OptionPlan]) -> Vec<UnservedTask> {
     let mut out = Vec::new();
@@ -126,6 +167,7 @@ fn unserved(ctx: &Context, options: &[OptionPlan]) -> Vec<UnservedTask> {
                         .total_cmp(&a.blur.short_of_comfort.0.abs()),
                 )
             });
+        let remedies = closest.map_or(Vec::new(), |(_, t)| remedies(ctx, i, tc, t));
         let (best_verdict, closest_option, reason) = match closest {
             None => (Verdict::Blurred, None, UnservedReason::NoOptions),
             Some((_, t)) if t.verdict == Verdict::Comfortable => continue,
@@ -146,7 +188,43 @@ fn unserved(ctx: &Context, options: &[OptionPlan]) -> Vec<UnservedTask> {
             best_verdict,
             closest_option,
             reason,
+            remedies,
         });
+    }
+    out
+}
+
+/// The strongest addition any lens in the catalogue makes, in dioptres.
+const STRONGEST_MADE_D: f64 = 4.0;
+
+/// What would serve task `i` (context `tc`), seen as `seen` through the
+/// option that came closest.
+fn remedies(ctx: &Context, i: usize, tc: &TaskContext, seen: &TaskPlan) -> Vec<Remedy> {
+    let mut out = Vec::new();
+    if tc.gaze_elevation.0 > 0.0 && (!seen.posture.reachable || seen.posture.chin_up.0 > 0.5) {
+        out.push(Remedy::UpperSegmentOrSeparatePair);
+    }
+    let needed = ctx.tasks.get(i).map(|p| p.comfort.lo).unwrap_or(0.0);
+    if seen.blur.short_of_comfort.0 > 0.0 && needed > seen.local_power.addition.0 {
+        let rounded = (needed * 4.0 - 1e-9).ceil() / 4.0;
+        let beyond_made = rounded > STRONGEST_MADE_D;
+        out.push(Remedy::Addition {
+            needed: Dioptres(rounded),
+            beyond_made,
+        });
+        if beyond_made {
+            out.push(Remedy::Magnifier);
+        }
+    }
+    if let ClearRange::Clear { near, far } = seen.range_here.comfortable {
+        let far_m = match far {
+            FarEnd::Finite(m) => m.0,
+            FarEnd::Infinite => f64::INFINITY,
+        };
+        let to = tc.distance.0.clamp(near.0, far_m);
+        if (to - tc.distance.0).abs() > 0.005 {
+            out.push(Remedy::MoveTask { to: Metres(to) });
+        }
     }
     out
 }
@@ -178,11 +256,38 @@ fn order_summary(s: &crate::scenario::Scenario, ctx: &Context, best: &OptionPlan
     } else {
         0.0
     });
+    let height = |above_fitting_point: Option<f64>| {
+        above_fitting_point.map(|mm| Millimetres(w.fitting_height_mm + mm))
+    };
+    let (segment_top, upper_bottom, ratio, progression) = match best.design {
+        FamilyChoice::Bifocal { segment_top_mm, .. } => (segment_top_mm, None, None, None),
+        FamilyChoice::Trifocal {
+            segment_top_mm,
+            intermediate_ratio,
+            ..
+        } => (segment_top_mm, None, intermediate_ratio, None),
+        FamilyChoice::DoubleSegment {
+            lower_top_mm,
+            upper_bottom_mm,
+            ..
+        } => (lower_top_mm, upper_bottom_mm, None, None),
+        FamilyChoice::Progressive {
+            progression_length_mm,
+            ..
+        } => (None, None, None, progression_length_mm),
+        _ => (None, None, None, None),
+    };
+    let nearest_task = best
+        .tasks
+        .iter()
+        .zip(&ctx.tasks)
+        .min_by(|(_, a), (_, b)| a.distance.0.total_cmp(&b.distance.0))
+        .map(|(t, _)| t);
     let prism = |p: &crate::scenario::Prism| {
         let any = p.horizontal_pd > 0.0 || p.vertical_pd > 0.0;
         (any && !ctx.over_contact_lenses).then_some(*p)
     };
-    OrderSummary {
+    let mut order = OrderSummary {
         option: best.option.clone(),
         design: best.design,
         over_contact_lenses: ctx.over_contact_lenses,
@@ -204,5 +309,16 @@ fn order_summary(s: &crate::scenario::Scenario, ctx: &Context, best: &OptionPlan
         optical_centre_height: single_vision.then_some(Millimetres(
             w.fitting_height_mm + best.optical_centre_height.0,
         )),
-    }
+        lens_height: Millimetres(w.lens_height_mm),
+        segment_top_height: height(segment_top),
+        upper_segment_bottom_height: height(upper_bottom),
+        intermediate_percent: ratio.map(|r| r * 100.0),
+        progression_length: progression.map(Millimetres),
+        minimum_fitting_height: progression
+            .map(|pl| Millimetres(pl + crate::core::lens::NEAR_ZONE_BELOW_NRP_MM)),
+        near_inset_per_eye: nearest_task.map(|t| t.near_vision.inset_per_eye),
+        tolerances: Vec::new(),
+    };
+    order.tolerances = tolerances::for_order(&order);
+    order
 }

@@ -5,6 +5,7 @@
 //!
 //! `hours x (1 if comfortable, PRISM_LIMITED_WEIGHT if comfortable in focus
 //!  but beyond the vertical prism limit, TIRING_WEIGHT if in focus but tiring, 0 if blurred)
+//!  - hours x min(GAP_WEIGHT_PER_D x dioptres of addition missing for comfort, GAP_CAP)
 //!  - hours x (POSTURE_WEIGHT_PER_DEG x |head pitch| + TURN_WEIGHT_PER_DEG x head turn)`.
 //!
 //! The design then loses `ADDITION_WEIGHT_PER_D` per dioptre of its largest
@@ -36,6 +37,15 @@ pub const POSTURE_WEIGHT_PER_DEG: f64 = 0.01;
 /// than for pitch, since the head turns only to reach the task's edges,
 /// while a pitch is held all the time the task is worked on.
 pub const TURN_WEIGHT_PER_DEG: f64 = 0.002;
+/// Deduction per dioptre of addition still missing (or in excess) for
+/// comfort, in hours per hour of the task: of two powers that both leave a
+/// task short of comfort, the nearer one wins (a 20 cm task is better
+/// served by the strongest reading lens made than by a weak one).
+pub const GAP_WEIGHT_PER_D: f64 = 0.1;
+/// The most the gap deduction takes, in hours per hour: less than the step
+/// from tiring to blurred, so that the gap never outweighs a change of
+/// verdict.
+pub const GAP_CAP: f64 = 0.4;
 /// Deduction per dioptre of the design's largest addition, in hours.
 pub const ADDITION_WEIGHT_PER_D: f64 = 0.05;
 /// How far inside a zone's edge the line of sight is placed when the head
@@ -62,6 +72,10 @@ pub struct TaskChoice {
     /// The lens carries a power that would make the task comfortable, but no
     /// allowed head pitch brings the line of sight to it.
     pub out_of_reach: bool,
+    /// Addition missing (or in excess) for comfort at the point, in dioptres.
+    pub gap: f64,
+    /// Comfortable focus lowered to tiring by the vertical prism difference.
+    pub prism_limited: bool,
 }
 
 fn verdict_weight(v: Verdict) -> f64 {
@@ -115,12 +129,15 @@ pub fn optical_centre(design: &LensDesign, tasks: &[TaskPrep], extent: VerticalE
 fn at(design: &LensDesign, prep: &TaskPrep, y: f64, pitch: f64, centre: f64) -> TaskChoice {
     let addition = design.addition_at(LensPoint::new(prep.x, y)).0;
     let focus = prep.focus_verdict(addition);
-    let (verdict, weight) = if focus == Verdict::Comfortable && prep.prism_over_limit(y - centre) {
+    let prism_limited = focus == Verdict::Comfortable && prep.prism_over_limit(y - centre);
+    let (verdict, weight) = if prism_limited {
         (Verdict::InFocusButTiring, PRISM_LIMITED_WEIGHT)
     } else {
         (focus, verdict_weight(focus))
     };
-    let value = prep.hours * (weight - POSTURE_WEIGHT_PER_DEG * pitch.abs());
+    let gap = prep.comfort.distance_to(addition);
+    let gap_cost = (GAP_WEIGHT_PER_D * gap).min(GAP_CAP);
+    let value = prep.hours * (weight - gap_cost - POSTURE_WEIGHT_PER_DEG * pitch.abs());
     TaskChoice {
         x: prep.x,
         y,
@@ -130,6 +147,8 @@ fn at(design: &LensDesign, prep: &TaskPrep, y: f64, pitch: f64, centre: f64) -> 
         turn: 0.0,
         value,
         out_of_reach: false,
+        gap,
+        prism_limited,
     }
 }
 
@@ -266,6 +285,8 @@ pub fn score(
         tiring_hours: 0.0,
         blurred_hours: 0.0,
         posture_penalty: 0.0,
+        prism_penalty: 0.0,
+        gap_penalty: 0.0,
         addition_penalty: ADDITION_WEIGHT_PER_D * design.max_addition().0,
     };
     let centre = optical_centre(design, tasks, extent);
@@ -278,6 +299,10 @@ pub fn score(
         }
         s.posture_penalty +=
             prep.hours * (POSTURE_WEIGHT_PER_DEG * c.pitch.abs() + TURN_WEIGHT_PER_DEG * c.turn);
+        if c.prism_limited {
+            s.prism_penalty += prep.hours * (1.0 - PRISM_LIMITED_WEIGHT);
+        }
+        s.gap_penalty += prep.hours * (GAP_WEIGHT_PER_D * c.gap).min(GAP_CAP);
         s.total += c.value;
         if let Some(slot) = choices.as_deref_mut().and_then(|cs| cs.get_mut(i)) {
             *slot = c;
@@ -299,6 +324,8 @@ impl Default for TaskChoice {
             turn: 0.0,
             value: 0.0,
             out_of_reach: false,
+            gap: 0.0,
+            prism_limited: false,
         }
     }
 }

@@ -221,10 +221,51 @@ pub struct OptionPlan {
     pub tasks: Vec<TaskPlan>,
     /// Whether the design may be worn for driving; `None` when the day has no driving task.
     pub driving: Option<DrivingFitness>,
+    /// The design's near addition beside the prescribed one; `None` when
+    /// no addition was prescribed.
+    pub prescribed_addition: Option<AdditionComparison>,
     /// Height of the optical centres above (positive) or below the fitting
     /// point, in millimetres: the point single-vision task lenses are made
     /// centred on, 0 for multifocal and corridor designs.
     pub optical_centre_height: Millimetres,
+}
+
+/// A design's near addition beside the addition found at the eye examination.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+pub struct AdditionComparison {
+    /// The prescribed addition, in dioptres.
+    pub prescribed: Dioptres,
+    /// The design's near addition (a single-vision lens: its whole power
+    /// over the distance power), in dioptres.
+    pub planned: Dioptres,
+    /// Planned minus prescribed, in dioptres.
+    pub difference: Dioptres,
+}
+
+impl fmt::Display for AdditionComparison {
+    /// "+1.75 D against the prescribed +2.00 D (0.25 D less: the tasks sit
+    /// further away than reading distance)".
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        let d = self.difference.0;
+        let why = if d.abs() < 0.005 {
+            "the same".to_string()
+        } else if d < 0.0 {
+            format!(
+                "{:.2} D less: the day's tasks need less plus than the examination's reading distance",
+                -d
+            )
+        } else {
+            format!(
+                "{d:.2} D more: the day's nearest tasks need more plus than the examination's reading distance"
+            )
+        };
+        write!(
+            f,
+            "addition {} against the prescribed {} ({why})",
+            self.planned.signed(),
+            self.prescribed.signed()
+        )
+    }
 }
 
 /// Whether a design may be worn for driving.
@@ -304,13 +345,18 @@ pub enum ParameterSource {
     FixedByUser,
     /// The user left it open and the planner chose it.
     ChosenByPlanner,
+    /// The user left it open and the plan took the prescribed addition.
+    FromPrescription,
 }
 
 /// The solver's objective for one design, in hours of the working day.
 ///
-/// `total = comfortable_hours + TIRING_WEIGHT x tiring_hours - posture_penalty
-/// - addition_penalty`; blurred hours count nothing. The weights are defined
-///   in the planner's objective module.
+/// `total = comfortable_hours + tiring_hours - prism_penalty - (1 -
+/// TIRING_WEIGHT) x (tiring hours not due to prism) - gap_penalty -
+/// posture_penalty - addition_penalty`: each task counts its hours times 1
+/// when comfortable, 1 - prism share when only the vertical prism makes it
+/// tiring, TIRING_WEIGHT when its focus is tiring and 0 when blurred. The
+/// weights are defined in the planner's objective module.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize)]
 pub struct Score {
     /// The objective, in weighted hours (higher is better).
@@ -323,6 +369,12 @@ pub struct Score {
     pub blurred_hours: f64,
     /// Deduction for head posture (chin lift or drop, head turn), in weighted hours.
     pub posture_penalty: f64,
+    /// Deduction for tasks whose focus is comfortable but whose vertical
+    /// prism difference exceeds the limit, in weighted hours (counted
+    /// against a comfortable hour; they are listed among the tiring hours).
+    pub prism_penalty: f64,
+    /// Deduction for addition missing (or in excess) for comfort, in weighted hours.
+    pub gap_penalty: f64,
     /// Deduction for the design's addition (so that, of designs serving the
     /// tasks equally, the one with least addition wins), in weighted hours.
     pub addition_penalty: f64,
@@ -622,6 +674,34 @@ pub struct UnservedTask {
     pub closest_option: Option<OptionRef>,
     /// Why.
     pub reason: UnservedReason,
+    /// What would serve it, most direct first.
+    pub remedies: Vec<Remedy>,
+}
+
+/// Something that would make an unserved task comfortable.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+#[serde(rename_all = "snake_case", tag = "kind")]
+pub enum Remedy {
+    /// A lens with this addition where the task is seen (rounded up to
+    /// 0.25 D); `beyond_made` when it exceeds the strongest addition the
+    /// catalogue makes.
+    Addition {
+        /// The addition needed, in dioptres.
+        needed: Dioptres,
+        /// More than any lens in the catalogue carries.
+        beyond_made: bool,
+    },
+    /// A hand or stand magnifier, for detail the lenses made cannot bring close enough.
+    Magnifier,
+    /// Moving the task to this distance, where the closest option's power
+    /// at its lens point makes it comfortable.
+    MoveTask {
+        /// The distance to move it to, from the spectacle plane.
+        to: Metres,
+    },
+    /// A task above eye level: a design with an upper segment, or a separate
+    /// pair made for it, instead of a head held back.
+    UpperSegmentOrSeparatePair,
 }
 
 /// Why no option makes a task comfortable.
@@ -725,6 +805,32 @@ pub struct OrderSummary {
     /// Height of the optical centres of a single-vision lens above the
     /// lowest point of the lens, in millimetres; `None` for other designs.
     pub optical_centre_height: Option<Millimetres>,
+    /// Lens height of the frame (boxed B dimension), in millimetres.
+    pub lens_height: Millimetres,
+    /// Segment top above the lowest point of the lens (bifocal, trifocal,
+    /// lower segment of a double segment), in millimetres.
+    pub segment_top_height: Option<Millimetres>,
+    /// Bottom edge of the upper segment above the lowest point of the lens, in millimetres.
+    pub upper_segment_bottom_height: Option<Millimetres>,
+    /// Trifocal intermediate power as a percentage of the near addition.
+    pub intermediate_percent: Option<f64>,
+    /// Progression length, fitting point to near reference point, in millimetres.
+    pub progression_length: Option<Millimetres>,
+    /// The smallest fitting height that progression length needs, in millimetres.
+    pub minimum_fitting_height: Option<Millimetres>,
+    /// Near inset per eye at the nearest task, in millimetres.
+    pub near_inset_per_eye: Option<Millimetres>,
+    /// What the made pair must meet on verification.
+    pub tolerances: Vec<VerificationTolerance>,
+}
+
+/// One verification tolerance of a made pair.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct VerificationTolerance {
+    /// The quantity checked ("cylinder axis").
+    pub quantity: String,
+    /// The limit, with its unit ("±0.13 D").
+    pub limit: String,
 }
 
 // ---------------------------------------------------------------- words
@@ -754,6 +860,7 @@ impl fmt::Display for ParameterSource {
         f.write_str(match self {
             ParameterSource::FixedByUser => "fixed",
             ParameterSource::ChosenByPlanner => "chosen",
+            ParameterSource::FromPrescription => "prescribed",
         })
     }
 }
@@ -894,6 +1001,29 @@ impl fmt::Display for UnservedReason {
             UnservedReason::PowerOutOfReach => f.write_str(
                 "the right power is on the lens only at a head posture beyond what is reasonable",
             ),
+        }
+    }
+}
+
+impl fmt::Display for Remedy {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            Remedy::Addition {
+                needed,
+                beyond_made: false,
+            } => write!(f, "an addition of {needed} where it is seen"),
+            Remedy::Addition {
+                needed,
+                beyond_made: true,
+            } => write!(
+                f,
+                "an addition of {needed}, beyond the lenses in the catalogue"
+            ),
+            Remedy::Magnifier => f.write_str("a magnifier for the finest detail"),
+            Remedy::MoveTask { to } => write!(f, "moving it to {:.0} cm", to.to_cm()),
+            Remedy::UpperSegmentOrSeparatePair => {
+                f.write_str("an upper segment or a separate pair made for work above eye level")
+            }
         }
     }
 }

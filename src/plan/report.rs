@@ -132,13 +132,26 @@ pub fn task_plan(
     let blur_disc =
         blur_disc_arcmin(Dioptres(defocus), ctx.pupil).map_err(PlanError::optics(field.clone()))?;
     let gaze = |e| PlanError::lens(field.clone())(e);
-    let near_pd = ctx.fitting.near_pd(prep.distance).map_err(gaze)?;
+    // Near centration through the lens powers at the point: the right and
+    // left horizontal meridians with the local addition.
+    let through = |eye| match eye {
+        Eye::Right => ctx.right.horizontal_power() + add,
+        Eye::Left => ctx.left.horizontal_power() + add,
+    };
+    let near_pd = ctx
+        .fitting
+        .near_pd_through(prep.distance, [through(Eye::Right), through(Eye::Left)])
+        .map_err(gaze)?;
     let convergence = both_eyes(|eye| {
         ctx.fitting
-            .convergence_demand(eye, prep.distance)
+            .convergence_through(eye, prep.distance, through(eye))
             .map_err(gaze)
     })?;
-    let inset = both_eyes(|eye| ctx.fitting.near_inset(eye, prep.distance).map_err(gaze))?;
+    let inset = both_eyes(|eye| {
+        ctx.fitting
+            .near_inset_through(eye, prep.distance, through(eye))
+            .map_err(gaze)
+    })?;
     // Both lines of sight are taken at the right eye's height, measured from
     // the design's optical centres; a line of sight beyond the lens's edge
     // meets no prism, so the height is limited to the lens.

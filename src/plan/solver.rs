@@ -2,7 +2,9 @@
 //! parameters the user left open (on the lens catalogue's grids, 0.25 D for
 //! powers), scored by the objective; the best is kept, lower values winning
 //! ties. On a day that includes driving, a design fit for driving always
-//! beats one that is not, whatever their scores. The neighbours of the chosen values on each open grid are then
+//! beats one that is not, whatever their scores; after that, a design that
+//! fits the frame (a progressive lens's minimum fitting height) beats one
+//! that does not. The neighbours of the chosen values on each open grid are then
 //! tried once more to explain the choice in words.
 //!
 //! The search is exhaustive: at most a few hundred designs per option, each
@@ -48,6 +50,15 @@ pub struct Solution {
     pub score: Score,
     /// Whether it is fit for driving (always true on a day without driving).
     pub fit_for_driving: bool,
+    /// Whether it fits the frame (a progressive lens's minimum fitting height).
+    pub fits_frame: bool,
+}
+
+impl Solution {
+    /// What outranks the score: fit for driving first, then fitting the frame.
+    fn standing(&self) -> (bool, bool) {
+        (self.fit_for_driving, self.fits_frame)
+    }
 }
 
 /// The best design of `choice` for `tasks`: exhaustive over the open grids.
@@ -80,9 +91,11 @@ pub fn solve(
             }
         };
         let fit = driving::is_fit(&design, tasks);
+        let fits_frame = design.fits(extent);
+        let standing = (fit, fits_frame);
         let floor = match &best {
-            Some(b) if b.fit_for_driving && !fit => continue,
-            Some(b) if b.fit_for_driving == fit => b.score.total + 1e-12,
+            Some(b) if b.standing() > standing => continue,
+            Some(b) if b.standing() == standing => b.score.total + 1e-12,
             _ => f64::NEG_INFINITY,
         };
         if total_above(&design, tasks, &hours_after, extent, floor).is_some_and(|t| t > floor) {
@@ -92,6 +105,7 @@ pub fn solve(
                 values,
                 score: score(&design, tasks, extent, None),
                 fit_for_driving: fit,
+                fits_frame,
             });
         }
     }
@@ -100,19 +114,27 @@ pub fn solve(
     }))
 }
 
-/// The parameters of a solution with who set each.
-pub fn resolved_parameters(choice: &FamilyChoice, values: [f64; 3]) -> Vec<ResolvedParameter> {
-    let (_, axes) = option_axes(choice);
+/// The parameters of a solution with who set each: `entered` is the
+/// option as the user entered it, `solved` the same with the prescribed
+/// addition filled in where the plan takes it from the prescription.
+pub fn resolved_parameters(
+    entered: &FamilyChoice,
+    solved: &FamilyChoice,
+    values: [f64; 3],
+) -> Vec<ResolvedParameter> {
+    let (_, by_user) = option_axes(entered);
+    let (_, axes) = option_axes(solved);
     axes.iter()
+        .zip(by_user)
         .zip(values)
-        .filter_map(|(a, v)| {
+        .filter_map(|((a, user), v)| {
             a.map(|a| ResolvedParameter {
                 kind: a.kind,
                 value: typed(a.kind, v),
-                source: if a.fixed.is_some() {
-                    ParameterSource::FixedByUser
-                } else {
-                    ParameterSource::ChosenByPlanner
+                source: match (user.and_then(|u| u.fixed), a.fixed) {
+                    (Some(_), _) => ParameterSource::FixedByUser,
+                    (None, Some(_)) => ParameterSource::FromPrescription,
+                    (None, None) => ParameterSource::ChosenByPlanner,
                 },
             })
         })

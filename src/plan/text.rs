@@ -94,6 +94,9 @@ fn option_block(out: &mut String, o: &OptionPlan) {
         .collect();
     let _ = writeln!(out, "   Parameters: {}", params.join(", "));
     let _ = writeln!(out, "   Why: {}", o.describe_choice());
+    if let Some(c) = &o.prescribed_addition {
+        let _ = writeln!(out, "   Prescribed: {c}");
+    }
     for z in &o.zones {
         let _ = writeln!(
             out,
@@ -178,6 +181,10 @@ pub fn render(plan: &Plan) -> String {
                 "   \"{}\": at best {}{closest}; {}",
                 u.task.name, u.best_verdict, u.reason
             );
+            if !u.remedies.is_empty() {
+                let words: Vec<String> = u.remedies.iter().map(ToString::to_string).collect();
+                let _ = writeln!(out, "      would be served by {}", words.join(", or "));
+            }
         }
     }
     let _ = writeln!(out, "\nCautions:");
@@ -261,11 +268,40 @@ pub fn order_lines(o: &OrderSummary) -> Vec<String> {
         ),
         o.pantoscopic_tilt.0
     ));
+    let above = "mm above the lowest point of the lens";
     if let Some(h) = o.optical_centre_height {
+        lines.push(format!("optical centres {:.1} {above}", h.0));
+    }
+    if let Some(h) = o.segment_top_height {
+        lines.push(format!("segment top {:.1} {above}", h.0));
+    }
+    if let Some(p) = o.intermediate_percent {
+        lines.push(format!("intermediate {p:.0} % of the near addition"));
+    }
+    if let Some(h) = o.upper_segment_bottom_height {
+        lines.push(format!("upper segment bottom edge {:.1} {above}", h.0));
+    }
+    if let (Some(pl), Some(min)) = (o.progression_length, o.minimum_fitting_height) {
         lines.push(format!(
-            "optical centres {:.1} mm above the lowest point of the lens",
-            h.0
+            "progression length {:.0} mm (needs a fitting height of at least {:.0} mm)",
+            pl.0, min.0
         ));
     }
+    if let Some(i) = o.near_inset_per_eye {
+        lines.push(format!(
+            "near inset {:.1} mm per eye at the nearest task",
+            i.0
+        ));
+    }
+    lines.push(format!("frame lens height (B) {:.1} mm", o.lens_height.0));
+    let limits: Vec<String> = o
+        .tolerances
+        .iter()
+        .map(|t| format!("{} {}", t.quantity, t.limit))
+        .collect();
+    lines.push(format!(
+        "verify against ANSI Z80.1-2020 (from memory): {}",
+        limits.join("; ")
+    ));
     lines
 }

@@ -33,6 +33,40 @@ pub struct PlanSettings {
     /// Vertical prism difference between the eyes above which a sustained
     /// task counts as tiring, in prism dioptres (about 1 Δ; common practice).
     pub vertical_imbalance_limit_pd: f64,
+    /// How an addition between two 0.25 D steps is rounded.
+    #[serde(default)]
+    pub addition_rounding: AdditionRounding,
+    /// Plan every near addition from the prescribed addition (fixed) rather
+    /// than letting the planner choose it.
+    #[serde(default)]
+    pub use_prescribed_addition: bool,
+}
+
+/// How the planner rounds the addition a task needs to the 0.25 D steps
+/// lenses are made in (the classical rule rounds to the nearest step;
+/// Millodot, Dictionary of Optometry).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case")]
+pub enum AdditionRounding {
+    /// Up to the next step: never less plus than the task needs, beyond a
+    /// shortfall of 0.03 D that lies far below clinical precision (so that
+    /// the small difference between spectacle-plane and ocular figures does
+    /// not push a value that lands on a step up to the next one).
+    #[default]
+    Up,
+    /// To the nearest step: up to 0.125 D less plus than the task needs
+    /// still counts as comfortable.
+    Nearest,
+}
+
+impl AdditionRounding {
+    /// The shortfall of plus, in dioptres, that still counts as comfortable.
+    pub fn tolerated_shortfall(self) -> f64 {
+        match self {
+            AdditionRounding::Up => 0.03,
+            AdditionRounding::Nearest => 0.125,
+        }
+    }
 }
 
 impl Default for PlanSettings {
@@ -40,6 +74,8 @@ impl Default for PlanSettings {
         PlanSettings {
             driving_acuity_decimal: 0.5,
             vertical_imbalance_limit_pd: 1.0,
+            addition_rounding: AdditionRounding::Up,
+            use_prescribed_addition: false,
         }
     }
 }

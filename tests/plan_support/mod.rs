@@ -67,9 +67,19 @@ pub fn option(label: &str, family: FamilyChoice) -> LensOption {
 
 /// Validates and plans; panics with the problems if the test scenario is invalid.
 pub fn plan_of(wearer: Wearer, tasks: Vec<Task>, options: Vec<LensOption>) -> Plan {
+    plan_with(wearer, PlanSettings::default(), tasks, options)
+}
+
+/// Like [`plan_of`], with the plan settings given.
+pub fn plan_with(
+    wearer: Wearer,
+    settings: PlanSettings,
+    tasks: Vec<Task>,
+    options: Vec<LensOption>,
+) -> Plan {
     let s = Scenario {
         name: "test".to_string(),
-        settings: PlanSettings::default(),
+        settings,
         wearer,
         tasks,
         options,

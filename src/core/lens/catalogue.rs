@@ -61,11 +61,12 @@ pub const ADDITION_GRID: Grid = Grid {
     step: 0.25,
 };
 
-/// Additions of single-vision task lenses, in dioptres: 0 (distance) to +3.50 D
-/// in 0.25 D steps (common practice).
+/// Additions of single-vision task lenses, in dioptres: 0 (distance) to
+/// +4.00 D in 0.25 D steps, the whole range the scenario gate allows (near
+/// lenses are made well beyond it; common practice).
 pub const SINGLE_VISION_ADDITION_GRID: Grid = Grid {
     first: 0.0,
-    last: 3.5,
+    last: 4.0,
     step: 0.25,
 };
 

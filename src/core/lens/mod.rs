@@ -40,7 +40,9 @@ pub use double_segment::DoubleSegment;
 pub use error::LensError;
 pub(crate) use error::NamedBounds;
 pub use parameter::Parameter;
-pub use progressive::{Progressive, DEFAULT_NEAR_INSET_MM, PROGRESSION_START_MM};
+pub use progressive::{
+    Progressive, DEFAULT_NEAR_INSET_MM, NEAR_ZONE_BELOW_NRP_MM, PROGRESSION_START_MM,
+};
 pub use ramp::{PowerGradient, Ramp};
 pub use segment::SegmentShape;
 pub use single_vision::SingleVision;
@@ -320,6 +322,16 @@ impl LensDesign {
     /// The local addition at a lens point, in dioptres.
     pub fn addition_at(&self, point: LensPoint) -> Dioptres {
         self.evaluate(point).addition
+    }
+
+    /// Whether the design fits a frame of vertical `extent`: a progressive
+    /// lens needs `NEAR_ZONE_BELOW_NRP_MM` of lens below its
+    /// near reference point; other designs fit any frame the scenario allows.
+    pub fn fits(&self, extent: VerticalExtent) -> bool {
+        match self {
+            LensDesign::Progressive(p) => -extent.bottom().0 + 1e-9 >= p.minimum_fitting_height().0,
+            _ => true,
+        }
     }
 
     /// The largest addition anywhere on the lens, in dioptres.

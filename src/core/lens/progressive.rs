@@ -24,6 +24,11 @@ pub const PROGRESSION_START_MM: f64 = 2.0;
 /// 2 to 3 mm (common practice); 2.5 mm is used when none is given.
 pub const DEFAULT_NEAR_INSET_MM: f64 = 2.5;
 
+/// Lens needed below the near reference point for a usable near zone, in
+/// millimetres: makers quote a minimum fitting height of about the
+/// progression length plus 4 mm (common practice, from memory).
+pub const NEAR_ZONE_BELOW_NRP_MM: f64 = 4.0;
+
 /// A progressive-power lens: addition, progression length and near inset.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Progressive {
@@ -63,6 +68,12 @@ impl Progressive {
     /// Fitting point to near reference point, in millimetres.
     pub fn progression_length(&self) -> Millimetres {
         -self.ramp().bottom()
+    }
+
+    /// The smallest fitting height (fitting point above the lowest point of
+    /// the lens) that leaves a usable near zone, in millimetres.
+    pub fn minimum_fitting_height(&self) -> Millimetres {
+        Millimetres(self.progression_length().0 + NEAR_ZONE_BELOW_NRP_MM)
     }
 
     /// Nasal inset of the near reference point, in millimetres.

@@ -1,0 +1,185 @@
+//! Accuracy of the planner against the classical rules a practitioner
+//! checks a plan with, on invented wearers: the reading addition by the
+//! reserve rule (Millodot, Dictionary of Optometry: addition = working
+//! distance demand - usable share of the amplitude, rounded to 0.25 D) with
+//! Hofstetter's (1950) minimum amplitude 15 - 0.25 x age; credit for getting
+//! closer when comfort is out of reach; the prescribed addition; and a
+//! complete order (progression length that fits the frame).
+
+mod plan_support;
+
+use clearspan::plan::*;
+use clearspan::scenario::*;
+use plan_support::*;
+
+/// An emmetrope in spectacles at 12 mm whose amplitude comes from age.
+fn presbyope(age: f64, rounding: AdditionRounding) -> (Wearer, PlanSettings) {
+    let mut w = wearer(0.0, 0.25);
+    w.measured_amplitude = None;
+    w.age_years = age;
+    w.correction = Correction::Spectacles { vertex_mm: 12.0 };
+    let settings = PlanSettings {
+        addition_rounding: rounding,
+        ..PlanSettings::default()
+    };
+    (w, settings)
+}
+
+/// The single-vision addition the planner chooses for one task at `distance`.
+fn planned_addition(w: Wearer, settings: PlanSettings, distance: f64) -> f64 {
+    let p = plan_with(
+        w,
+        settings,
+        vec![task("reading", distance, -20.0, 4.0)],
+        vec![option(
+            "reader",
+            FamilyChoice::SingleVision { addition_d: None },
+        )],
+    );
+    match p.options[0].design {
+        FamilyChoice::SingleVision { addition_d } => addition_d.unwrap_or(f64::NAN),
+        _ => f64::NAN,
+    }
+}
+
+/// Millodot's rule with half the amplitude in reserve, before rounding.
+fn reserve_rule(age: f64, distance: f64) -> f64 {
+    let amplitude = (15.0 - 0.25 * age).max(0.0);
+    (1.0 / distance - 0.5 * amplitude).max(0.0)
+}
+
+#[test]
+fn additions_follow_the_reserve_rule_over_ages_and_distances() {
+    for age in [45.0, 50.0, 55.0, 60.0, 65.0, 70.0] {
+        for distance in [0.25, 0.33, 0.4, 0.5, 0.67, 1.0] {
+            let rule = reserve_rule(age, distance);
+            let (w, up) = presbyope(age, AdditionRounding::Up);
+            let planned_up = planned_addition(w, up, distance);
+            // Rounded up: never less plus than the rule asks, and within one step.
+            assert!(
+                planned_up >= rule - 0.13 && planned_up <= rule + 0.25 + 0.13,
+                "age {age}, {distance} m, rounding up: planned {planned_up}, rule {rule:.3}"
+            );
+            let (w, nearest) = presbyope(age, AdditionRounding::Nearest);
+            let planned_nearest = planned_addition(w, nearest, distance);
+            let rule_nearest = (rule * 4.0).round() / 4.0;
+            assert!(
+                (planned_nearest - rule_nearest).abs() <= 0.25 + 1e-9,
+                "age {age}, {distance} m, nearest: planned {planned_nearest}, rule {rule_nearest}"
+            );
+            assert!(planned_nearest <= planned_up + 1e-9);
+        }
+    }
+}
+
+#[test]
+fn a_very_near_task_gets_the_strongest_reader_and_what_would_serve_it() {
+    // A fictional watch repairer of 62 (Hofstetter minimum 0 D) at 15 cm:
+    // the task needs 1 / 0.15 = 6.67 D of addition, beyond the +4.00 D
+    // strongest reader in the catalogue. The planner must not fall back to
+    // plano: the strongest reader brings the task nearest to comfort, and
+    // the plan names a stronger addition, a magnifier, or moving the task
+    // to about 1 / 4 = 25 cm.
+    let (w, settings) = presbyope(62.0, AdditionRounding::Up);
+    let p = plan_with(
+        w,
+        settings,
+        vec![task("watch movement", 0.15, -35.0, 6.0)],
+        vec![option(
+            "reader",
+            FamilyChoice::SingleVision { addition_d: None },
+        )],
+    );
+    assert_eq!(
+        p.options[0].design,
+        FamilyChoice::SingleVision {
+            addition_d: Some(4.0)
+        }
+    );
+    let u = &p.unserved[0];
+    assert!(u.remedies.iter().any(|r| matches!(
+        r,
+        Remedy::Addition { needed, beyond_made: true } if needed.0 >= 6.5
+    )));
+    assert!(u.remedies.contains(&Remedy::Magnifier));
+    let moved = u.remedies.iter().find_map(|r| match r {
+        Remedy::MoveTask { to } => Some(to.0),
+        _ => None,
+    });
+    assert!(
+        moved.is_some_and(|m| (0.23..=0.27).contains(&m)),
+        "{moved:?}"
+    );
+}
+
+#[test]
+fn a_twenty_centimetre_task_gets_the_rule_addition() {
+    // Age 50: Hofstetter minimum 2.50 D, half usable 1.25 D; at 20 cm the
+    // rule gives 5.00 - 1.25 = +3.75 D (within the catalogue).
+    let (w, settings) = presbyope(50.0, AdditionRounding::Up);
+    let planned = planned_addition(w, settings, 0.2);
+    assert!((3.75..=4.0).contains(&planned), "{planned}");
+}
+
+#[test]
+fn the_prescribed_addition_is_shown_and_can_be_planned_from() {
+    let (mut w, settings) = presbyope(55.0, AdditionRounding::Up);
+    w.prescribed_addition_d = Some(2.0);
+    let day = vec![task("monitor", 0.7, -15.0, 6.0)];
+    let progressive = || {
+        vec![option(
+            "progressive",
+            FamilyChoice::Progressive {
+                addition_d: None,
+                progression_length_mm: None,
+            },
+        )]
+    };
+    let p = plan_with(w.clone(), settings, day.clone(), progressive());
+    let c = p.options[0]
+        .prescribed_addition
+        .expect("an addition was prescribed");
+    assert_eq!(c.prescribed.0, 2.0);
+    close(c.difference.0, c.planned.0 - 2.0, 1e-12, "difference");
+    let fixed = PlanSettings {
+        use_prescribed_addition: true,
+        ..settings
+    };
+    let p = plan_with(w, fixed, day, progressive());
+    let add = &p.options[0].parameters[0];
+    assert_eq!(add.source, ParameterSource::FromPrescription);
+    assert_eq!(
+        add.value,
+        ParameterValue::Power(clearspan::core::units::Dioptres(2.0))
+    );
+}
+
+#[test]
+fn a_progression_length_always_fits_the_fitting_height() {
+    // A shallow frame: fitting point 15 mm above the lowest point of the
+    // lens. Makers ask for about the progression length + 4 mm (common
+    // practice), so only the 11 mm corridor fits; the order says so.
+    let (mut w, settings) = presbyope(58.0, AdditionRounding::Up);
+    w.fitting_height_mm = 15.0;
+    w.lens_height_mm = 28.0;
+    let p = plan_with(
+        w,
+        settings,
+        vec![
+            task("monitor", 0.65, -10.0, 5.0),
+            task("papers", 0.4, -35.0, 2.0),
+        ],
+        vec![option(
+            "progressive",
+            FamilyChoice::Progressive {
+                addition_d: None,
+                progression_length_mm: None,
+            },
+        )],
+    );
+    let order = p.order.expect("an option");
+    let pl = order.progression_length.expect("a progressive").0;
+    let min = order.minimum_fitting_height.expect("a progressive").0;
+    assert!(min <= 15.0 + 1e-9, "PL {pl} needs {min} mm");
+    assert!(!order.tolerances.is_empty());
+}
