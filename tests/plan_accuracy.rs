@@ -183,3 +183,87 @@ fn a_progression_length_always_fits_the_fitting_height() {
     assert!(min <= 15.0 + 1e-9, "PL {pl} needs {min} mm");
     assert!(!order.tolerances.is_empty());
 }
+
+#[test]
+fn equal_designs_take_the_usual_fitting_and_equal_options_say_so() {
+    // Whichever segment top between 8 mm below and level with the pupil
+    // centre serves a room task straight ahead and a book far below equally:
+    // the tie goes to the usual fitting at the lower lid, about 4 mm below
+    // (common practice), not to the end of the grid.
+    let (w, settings) = presbyope(60.0, AdditionRounding::Up);
+    let bifocal = |label: &str| {
+        option(
+            label,
+            FamilyChoice::Bifocal {
+                addition_d: Some(2.5),
+                segment_top_mm: None,
+            },
+        )
+    };
+    let p = plan_with(
+        w,
+        settings,
+        vec![task("room", 5.0, 10.0, 4.0), task("book", 0.4, -40.0, 2.0)],
+        vec![bifocal("first"), bifocal("second")],
+    );
+    assert_eq!(
+        p.options[0].design,
+        FamilyChoice::Bifocal {
+            addition_d: Some(2.5),
+            segment_top_mm: Some(-4.0)
+        }
+    );
+    let tie = p.options[1]
+        .near_tie
+        .as_ref()
+        .expect("identical options tie");
+    assert_eq!(tie.reason, TieReason::AboveEnteredFirst);
+    assert_eq!(tie.above.label, "first");
+}
+
+#[test]
+fn a_high_monitor_through_a_progressive_is_graded_and_cautioned() {
+    // An absolute presbyope (65, Hofstetter minimum 0 D) at a monitor 60 cm
+    // away and raised above the eyes, through a +2.50 D progressive: the
+    // corridor power sits below the fitting point, so the chin must rise.
+    // ISO 11226 (from memory) does not accept a held neck extension; past
+    // 15° the plan grades it not sustainable and cautions the recommendation.
+    let mut graded = 0;
+    for gaze in [2.0, 4.0, 6.0, 8.0] {
+        let (w, settings) = presbyope(65.0, AdditionRounding::Up);
+        let p = plan_with(
+            w,
+            settings,
+            vec![task("raised monitor", 0.6, gaze, 6.0)],
+            vec![option(
+                "progressive",
+                FamilyChoice::Progressive {
+                    addition_d: Some(2.5),
+                    progression_length_mm: Some(14.0),
+                },
+            )],
+        );
+        let t = &p.options[0].tasks[0];
+        if !t.posture.reachable {
+            continue;
+        }
+        let chin = t.posture.chin_up.0;
+        assert!(chin > 0.0, "gaze {gaze}: the chin rises ({chin})");
+        let cautioned = p.cautions.iter().any(|c| c.kind == CautionKind::Posture);
+        if chin > 15.0 {
+            assert_eq!(
+                t.posture.strain,
+                clearspan::core::gaze::Strain::NotSustainable
+            );
+            assert!(cautioned, "gaze {gaze}");
+            graded += 1;
+        } else if chin > 5.0 {
+            assert_eq!(t.posture.strain, clearspan::core::gaze::Strain::Tiring);
+            assert!(!cautioned);
+        }
+    }
+    assert!(
+        graded > 0,
+        "some raised monitor needs more than 15° of chin lift"
+    );
+}

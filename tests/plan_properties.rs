@@ -15,7 +15,8 @@ use plan_support::*;
 use proptest::prelude::*;
 
 /// JSON keys whose value may be null because the field is an `Option`.
-const OPTIONAL_KEYS: [&str; 20] = [
+const OPTIONAL_KEYS: [&str; 21] = [
+    "near_tie",
     "prescribed_addition",
     "segment_top_height",
     "upper_segment_bottom_height",

@@ -17,12 +17,14 @@
 
 mod centration;
 mod posture;
+mod strain;
 
 pub use centration::{
     head_turn_per_side, horizontal_prism, keep_on_lens, prentice, subtended_angle,
     vertical_imbalance, vertical_prism, VerticalImbalance, TYPICAL_LENS_HALF_WIDTH_MM,
 };
 pub use posture::{ComfortRange, Posture, PostureOutcome, HEAD_PITCH_LIMIT_DEG};
+pub use strain::{pitch_strain, turn_strain, Strain};
 
 use crate::core::lens::{LensError, LensPoint, NamedBounds, VerticalExtent};
 use crate::core::units::{Degrees, Dioptres, Metres, Millimetres, PrismDioptres};

@@ -13,6 +13,7 @@ use super::context::Context;
 use super::outcome::{
     Caution, CautionKind, DrivingFitness, DrivingUnfit, OptionPlan, TaskRef, Verdict,
 };
+use crate::core::gaze::Strain;
 use crate::core::magnification::image_size_difference_percent;
 use crate::core::units::Metres;
 use crate::core::vergence::power_at_vertex;
@@ -81,6 +82,7 @@ pub fn cautions(s: &Scenario, ctx: &Context, options: &[OptionPlan]) -> Vec<Caut
         high_power(ctx, &mut out);
     }
     imbalance(ctx, options, &mut out);
+    posture(options, &mut out);
     model_range(ctx, &mut out);
     let measured = s.wearer.measured_amplitude.map_or(0.0, |m| m.dioptres);
     if measured > 0.0 && s.wearer.age_years >= APPARENT_AMPLITUDE_AGE {
@@ -331,6 +333,43 @@ fn imbalance(ctx: &Context, options: &[OptionPlan], out: &mut Vec<Caution>) {
             options: vec![o.option.clone()],
         });
     }
+}
+
+fn posture(options: &[OptionPlan], out: &mut Vec<Caution>) {
+    let Some(best) = options.first() else { return };
+    let strained: Vec<_> = best
+        .tasks
+        .iter()
+        .filter(|t| {
+            t.posture.reachable
+                && (t.posture.strain == Strain::NotSustainable
+                    || t.field.turn_strain == Strain::NotSustainable)
+        })
+        .collect();
+    if strained.is_empty() {
+        return;
+    }
+    let words: Vec<String> = strained
+        .iter()
+        .map(|t| {
+            format!(
+                "\"{}\" ({}, head turn {:.0}°)",
+                t.task.name, t.posture, t.field.head_turn.0
+            )
+        })
+        .collect();
+    out.push(Caution {
+        kind: CautionKind::Posture,
+        tasks: strained.iter().map(|t| t.task.clone()).collect(),
+        options: vec![best.option.clone()],
+        text: format!(
+            "With the recommended \"{}\", {} need a head posture beyond what ergonomic \
+             guidance accepts for sustained work (ISO 11226): move the task, or plan a \
+             design or a separate pair that brings the right power to it.",
+            best.option.label,
+            words.join(", ")
+        ),
+    });
 }
 
 fn high_power(ctx: &Context, out: &mut Vec<Caution>) {

@@ -75,11 +75,14 @@ pub fn plan(scenario: &ValidScenario) -> Result<Plan, PlanError> {
             zones,
             tasks,
             driving: driving::fitness(&solution.design, &ctx.tasks, &ctx.contexts),
-            prescribed_addition: prescribed.map(|p| AdditionComparison {
-                prescribed: Dioptres(p),
-                planned: near_addition(&solution.choice),
-                difference: near_addition(&solution.choice) - Dioptres(p),
-            }),
+            near_tie: None,
+            prescribed_addition: prescribed
+                .filter(|_| near_addition(&solution.choice).0 > 0.0)
+                .map(|p| AdditionComparison {
+                    prescribed: Dioptres(p),
+                    planned: near_addition(&solution.choice),
+                    difference: near_addition(&solution.choice) - Dioptres(p),
+                }),
             optical_centre_height: Millimetres(centre),
         });
     }
@@ -96,6 +99,7 @@ pub fn plan(scenario: &ValidScenario) -> Result<Plan, PlanError> {
     for (r, o) in options.iter_mut().enumerate() {
         o.rank = r + 1;
     }
+    mark_near_ties(&mut options);
     let unserved = unserved(&ctx, &options);
     let cautions = cautions::cautions(s, &ctx, &options);
     let order = options.first().map(|best| order_summary(s, &ctx, best));
@@ -111,6 +115,38 @@ pub fn plan(scenario: &ValidScenario) -> Result<Plan, PlanError> {
         cautions,
         order,
     })
+}
+
+/// Scores closer than this, in hours of the working day, make two options
+/// practically equal (six minutes a day; a product choice).
+pub const NEAR_TIE_H: f64 = 0.1;
+
+/// Notes, on each ranked option, whether it is practically equal to the
+/// one above it and why that one comes first.
+fn mark_near_ties(options: &mut [OptionPlan]) {
+    for i in 1..options.len() {
+        let (head, tail) = options.split_at_mut(i);
+        let (Some(above), Some(o)) = (head.last(), tail.first_mut()) else {
+            continue;
+        };
+        let margin = above.score.total - o.score.total;
+        if margin.abs() >= NEAR_TIE_H {
+            continue;
+        }
+        let fit = |p: &OptionPlan| p.driving.as_ref().is_none_or(DrivingFitness::is_fit);
+        let reason = if fit(above) && !fit(o) {
+            TieReason::AboveFitForDriving
+        } else if margin > 1e-9 {
+            TieReason::AboveScoresHigher
+        } else {
+            TieReason::AboveEnteredFirst
+        };
+        o.near_tie = Some(NearTie {
+            above: above.option.clone(),
+            margin_h: margin.abs(),
+            reason,
+        });
+    }
 }
 
 /// `family` with its open near addition fixed to `add` (the prescribed

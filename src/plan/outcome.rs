@@ -11,6 +11,7 @@
 //! Nothing here is NaN or infinite: an infinite far limit is
 //! [`FarEnd::Infinite`], an undefined share is `None`.
 
+pub use crate::core::gaze::Strain;
 use crate::core::units::{Degrees, Dioptres, Metres, Millimetres, PrismDioptres};
 use crate::scenario::{AmplitudeMethod, FamilyChoice, ReferencePlane};
 use serde::Serialize;
@@ -222,12 +223,58 @@ pub struct OptionPlan {
     /// Whether the design may be worn for driving; `None` when the day has no driving task.
     pub driving: Option<DrivingFitness>,
     /// The design's near addition beside the prescribed one; `None` when
-    /// no addition was prescribed.
+    /// no addition was prescribed or the design carries none (a distance lens).
     pub prescribed_addition: Option<AdditionComparison>,
+    /// Set when this option scores practically the same as the one ranked
+    /// just above it: by how much, and why that one is listed first.
+    pub near_tie: Option<NearTie>,
     /// Height of the optical centres above (positive) or below the fitting
     /// point, in millimetres: the point single-vision task lenses are made
     /// centred on, 0 for multifocal and corridor designs.
     pub optical_centre_height: Millimetres,
+}
+
+/// Two options ranked next to each other that serve the day practically equally.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct NearTie {
+    /// The option ranked just above.
+    pub above: OptionRef,
+    /// The difference of their scores, in hours of the working day.
+    pub margin_h: f64,
+    /// Why the other one is listed first.
+    pub reason: TieReason,
+}
+
+/// Why, of two practically equal options, one is listed first.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "snake_case")]
+pub enum TieReason {
+    /// Only the one above is fit for driving.
+    AboveFitForDriving,
+    /// The one above scores slightly higher.
+    AboveScoresHigher,
+    /// Their scores are equal; the one above was entered first.
+    AboveEnteredFirst,
+}
+
+impl fmt::Display for NearTie {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        let why = match self.reason {
+            TieReason::AboveFitForDriving => "only that one is fit for driving",
+            TieReason::AboveScoresHigher => "it scores slightly higher",
+            TieReason::AboveEnteredFirst => "it was entered first",
+        };
+        let apart = if self.margin_h < 0.005 {
+            "less than 0.01 h a day apart".to_string()
+        } else {
+            format!("{:.2} h a day apart", self.margin_h)
+        };
+        write!(
+            f,
+            "practically equal to \"{}\" ({apart}); listed after it because {why}",
+            self.above.label
+        )
+    }
 }
 
 /// A design's near addition beside the addition found at the eye examination.
@@ -633,6 +680,8 @@ pub struct HeadPosture {
     pub chin_up: Degrees,
     /// Whether some posture within the allowed range serves the task at all.
     pub reachable: bool,
+    /// How sustainable holding that pitch is.
+    pub strain: Strain,
 }
 
 /// Whether the zone is wide enough for the task.
@@ -645,6 +694,8 @@ pub struct FieldFit {
     pub task_angle: Degrees,
     /// Total head turn needed to sweep the task, in degrees (0 when the zone is wide enough).
     pub head_turn: Degrees,
+    /// How sustainable that head turn is.
+    pub turn_strain: Strain,
 }
 
 /// Centration and binocular demand at the task distance.
@@ -764,6 +815,8 @@ pub enum CautionKind {
     ModelRange,
     /// A measured amplitude from an older wearer already contains depth of field.
     ApparentAmplitude,
+    /// The recommended option asks for a head posture that cannot be sustained.
+    Posture,
 }
 
 /// What to order for the best-ranked option.
@@ -899,7 +952,12 @@ impl fmt::Display for ChoiceNote {
                 neighbour,
             } => write!(
                 f,
-                "{parameter} {neighbour} would serve the tasks equally; the lower value is kept"
+                "{parameter} {neighbour} would serve the tasks equally; {} is kept",
+                if parameter.clinical_default().is_some() {
+                    "the value nearer the usual fitting"
+                } else {
+                    "the lower value"
+                }
             ),
             ChoiceNote::NeighbourNotForDriving {
                 parameter,
@@ -977,9 +1035,9 @@ impl fmt::Display for HeadPosture {
         } else if d.abs() < 0.5 {
             f.write_str("natural")
         } else if d > 0.0 {
-            write!(f, "chin up {d:.0}°")
+            write!(f, "chin up {d:.0}° ({})", self.strain)
         } else {
-            write!(f, "chin down {:.0}°", -d)
+            write!(f, "chin down {:.0}° ({})", -d, self.strain)
         }
     }
 }
@@ -1041,6 +1099,7 @@ impl fmt::Display for CautionKind {
             CautionKind::HighPower => "high power",
             CautionKind::ModelRange => "outside a model's range",
             CautionKind::ApparentAmplitude => "apparent amplitude",
+            CautionKind::Posture => "head posture",
         })
     }
 }
@@ -1055,6 +1114,26 @@ impl OptionPlan {
             text.replace_range(0..1, &upper);
         }
         text.push('.');
+        text
+    }
+}
+
+impl UnservedTask {
+    /// One paragraph of plain English: the best verdict, the closest
+    /// option, why, and what would serve the task.
+    pub fn describe(&self) -> String {
+        let closest = self
+            .closest_option
+            .as_ref()
+            .map_or(String::new(), |o| format!(" (closest: \"{}\")", o.label));
+        let mut text = format!(
+            "\"{}\": at best {}{closest}; {}.",
+            self.task.name, self.best_verdict, self.reason
+        );
+        if !self.remedies.is_empty() {
+            let words: Vec<String> = self.remedies.iter().map(ToString::to_string).collect();
+            text.push_str(&format!(" It would be served by {}.", words.join(", or ")));
+        }
         text
     }
 }

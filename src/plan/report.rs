@@ -14,7 +14,7 @@ use super::outcome::{
 };
 use crate::core::acuity::{acuity_loss_logmar, blur_disc_arcmin, decimal_acuity};
 use crate::core::clear_range::{evaluate_task, ranges_with_allowances, FarLimit, ZoneRange};
-use crate::core::gaze::{vertical_imbalance, Eye};
+use crate::core::gaze::{pitch_strain, turn_strain, vertical_imbalance, Eye};
 use crate::core::lens::{LensDesign, LensPoint};
 use crate::core::prescription::SpheroCylinder;
 use crate::core::units::{Degrees, Dioptres, Millimetres, PrismDioptres};
@@ -199,11 +199,13 @@ pub fn task_plan(
         posture: HeadPosture {
             chin_up: Degrees(choice.pitch),
             reachable: !choice.out_of_reach,
+            strain: pitch_strain(Degrees(choice.pitch)),
         },
         field: FieldFit {
             zone_angle: zone_angle(design, choice.y, prep.cor_to_lens).map(Degrees),
             task_angle: Degrees(prep.width_deg),
             head_turn: Degrees(choice.turn),
+            turn_strain: turn_strain(Degrees(choice.turn)),
         },
         near_vision: Centration {
             near_pd,

@@ -1,7 +1,8 @@
 //! The solver: for one lens option, every manufactured combination of the
 //! parameters the user left open (on the lens catalogue's grids, 0.25 D for
 //! powers), scored by the objective; the best is kept, lower values winning
-//! ties. On a day that includes driving, a design fit for driving always
+//! ties unless one is nearer the clinical defaults (see
+//! [`crate::core::lens::Parameter::clinical_default`]). On a day that includes driving, a design fit for driving always
 //! beats one that is not, whatever their scores; after that, a design that
 //! fits the frame (a progressive lens's minimum fitting height) beats one
 //! that does not. The neighbours of the chosen values on each open grid are then
@@ -95,10 +96,19 @@ pub fn solve(
         let standing = (fit, fits_frame);
         let floor = match &best {
             Some(b) if b.standing() > standing => continue,
-            Some(b) if b.standing() == standing => b.score.total + 1e-12,
+            Some(b) if b.standing() == standing => b.score.total - TIE_H,
             _ => f64::NEG_INFINITY,
         };
-        if total_above(&design, tasks, &hours_after, extent, floor).is_some_and(|t| t > floor) {
+        let wins = |total: f64| match &best {
+            Some(b) if b.standing() == standing => {
+                total > b.score.total + TIE_H
+                    || (total > b.score.total - TIE_H
+                        && distance_from_defaults(&axes, values)
+                            < distance_from_defaults(&axes, b.values))
+            }
+            _ => true,
+        };
+        if total_above(&design, tasks, &hours_after, extent, floor).is_some_and(wins) {
             best = Some(Solution {
                 choice: resolved,
                 design,
@@ -112,6 +122,23 @@ pub fn solve(
     best.ok_or(first_error.unwrap_or(LensError::MissingParameter {
         parameter: "any buildable combination",
     }))
+}
+
+/// Scores closer than this, in hours, are a tie (rounding, not a difference).
+const TIE_H: f64 = 1e-9;
+
+/// How far the open values lie from the clinical defaults, in grid steps:
+/// of designs that serve the day equally, the one nearest what a
+/// practitioner fits by default wins.
+fn distance_from_defaults(axes: &[Option<Axis>; 3], values: [f64; 3]) -> f64 {
+    axes.iter()
+        .zip(values)
+        .filter_map(|(a, v)| {
+            let a = a.filter(|a| a.fixed.is_none())?;
+            let default = a.kind.clinical_default()?;
+            Some((v - default).abs() / a.grid.step)
+        })
+        .sum()
 }
 
 /// The parameters of a solution with who set each: `entered` is the

@@ -97,6 +97,9 @@ fn option_block(out: &mut String, o: &OptionPlan) {
     if let Some(c) = &o.prescribed_addition {
         let _ = writeln!(out, "   Prescribed: {c}");
     }
+    if let Some(t) = &o.near_tie {
+        let _ = writeln!(out, "   Note: {t}");
+    }
     for z in &o.zones {
         let _ = writeln!(
             out,
@@ -172,19 +175,7 @@ pub fn render(plan: &Plan) -> String {
     if !plan.unserved.is_empty() {
         let _ = writeln!(out, "\nTasks no option makes comfortable:");
         for u in &plan.unserved {
-            let closest = u
-                .closest_option
-                .as_ref()
-                .map_or(String::new(), |o| format!(" (closest: \"{}\")", o.label));
-            let _ = writeln!(
-                out,
-                "   \"{}\": at best {}{closest}; {}",
-                u.task.name, u.best_verdict, u.reason
-            );
-            if !u.remedies.is_empty() {
-                let words: Vec<String> = u.remedies.iter().map(ToString::to_string).collect();
-                let _ = writeln!(out, "      would be served by {}", words.join(", or "));
-            }
+            let _ = writeln!(out, "   {}", u.describe());
         }
     }
     let _ = writeln!(out, "\nCautions:");

@@ -2,11 +2,11 @@
 //! fitting data, pupil and blur tolerance.
 
 use super::bind::{scenario_number, Shown};
-use super::fields::ChoiceField;
+use super::fields::{CheckField, ChoiceField};
 use super::state::use_app_state;
 use crate::scenario::{
-    AmplitudeMethod, BlurTolerance, Correction, HorizontalBase, MeasuredAmplitude, Prescription,
-    PupilSource, ReferencePlane, Scenario, VerticalBase,
+    AdditionRounding, AmplitudeMethod, BlurTolerance, Correction, HorizontalBase,
+    MeasuredAmplitude, Prescription, PupilSource, ReferencePlane, Scenario, VerticalBase,
 };
 use leptos::prelude::*;
 
@@ -117,6 +117,43 @@ fn prism_fields(
             choices=vec![("up", "Base up"), ("down", "Base down")]
             value=vertical_base
             on_change=on_vertical
+        />
+    }
+}
+
+/// How additions are rounded, and whether the prescribed addition is planned from.
+fn addition_settings() -> impl IntoView {
+    let state = use_app_state();
+    let rounding = Signal::derive(move || {
+        state.scenario.with(|s| match s.settings.addition_rounding {
+            AdditionRounding::Up => "up",
+            AdditionRounding::Nearest => "nearest",
+        })
+    });
+    let on_rounding = Callback::new(move |v: String| {
+        state.edit(|s| {
+            s.settings.addition_rounding = if v == "nearest" {
+                AdditionRounding::Nearest
+            } else {
+                AdditionRounding::Up
+            }
+        })
+    });
+    let from_prescription =
+        Signal::derive(move || state.scenario.with(|s| s.settings.use_prescribed_addition));
+    let on_prescription =
+        Callback::new(move |v: bool| state.edit(|s| s.settings.use_prescribed_addition = v));
+    view! {
+        <ChoiceField
+            label="Round additions"
+            choices=vec![("up", "Up to the next 0.25 D"), ("nearest", "To the nearest 0.25 D")]
+            value=rounding
+            on_change=on_rounding
+        />
+        <CheckField
+            label="Plan near additions from the prescribed addition"
+            checked=from_prescription
+            on_change=on_prescription
         />
     }
 }
@@ -461,6 +498,7 @@ pub fn WearerPanel() -> impl IntoView {
                     |s, v| s.settings.vertical_imbalance_limit_pd = v.unwrap_or(0.0),
                     false,
                 )}
+                {addition_settings()}
             </fieldset>
         </section>
     }

@@ -27,6 +27,27 @@ pub enum Parameter {
     UpperSegmentBottom,
 }
 
+impl Parameter {
+    /// The value a practitioner fits when nothing else decides, used to
+    /// break ties between designs that serve the day equally (in the
+    /// parameter's unit); `None` for powers, where the smaller wins.
+    ///
+    /// Segment tops at the lower lid margin, about 4 mm below the pupil
+    /// centre; a trifocal intermediate of half the addition; a progression
+    /// length of 14 mm, a usual standard corridor; an upper segment starting
+    /// 10 mm above the pupil centre, clear of the distance view (all common
+    /// practice, from memory).
+    pub fn clinical_default(self) -> Option<f64> {
+        match self {
+            Parameter::SegmentTop | Parameter::LowerSegmentTop => Some(-4.0),
+            Parameter::IntermediateRatio => Some(0.5),
+            Parameter::ProgressionLength => Some(14.0),
+            Parameter::UpperSegmentBottom => Some(10.0),
+            Parameter::Addition | Parameter::NearAddition | Parameter::Degression => None,
+        }
+    }
+}
+
 impl fmt::Display for Parameter {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         f.write_str(match self {

@@ -9,7 +9,7 @@ mod matrix;
 mod order_sheet;
 mod range_chart;
 
-use crate::plan::text::{amplitude_line, family_name, pupil_line};
+use crate::plan::text::{amplitude_line, family_name, pupil_line, refraction_line};
 use crate::plan::{OptionPlan, Plan};
 use crate::web::state::use_app_state;
 use lens_map::LensMap;
@@ -28,6 +28,7 @@ fn recommendation(best: &OptionPlan) -> impl IntoView {
             <h3>{format!("Recommended: {} · {}", best.option.label, family_name(&best.design))}</h3>
             <ul class="parameters">{parameters}</ul>
             <p>{best.describe_choice()}</p>
+            {best.prescribed_addition.map(|c| view! { <p class="detail">{format!("Prescribed: {c}.")}</p> })}
             <p class="detail">
                 {format!(
                     "Comfortable {:.1} h, in focus but tiring {:.1} h, blurred {:.1} h of the working day.",
@@ -61,14 +62,7 @@ fn unserved(plan: &Plan) -> impl IntoView {
         let items = plan
             .unserved
             .iter()
-            .map(|u| {
-                let closest = u
-                    .closest_option
-                    .as_ref()
-                    .map(|o| format!(" (closest: {})", o.label))
-                    .unwrap_or_default();
-                view! { <li>{format!("{}: at best {}{closest}; {}.", u.task.name, u.best_verdict, u.reason)}</li> }
-            })
+            .map(|u| view! { <li>{u.describe()}</li> })
             .collect_view();
         view! {
             <section class="unserved" data-testid="unserved">
@@ -159,7 +153,10 @@ pub fn OutcomePanel() -> impl IntoView {
                 {cautions(&plan)}
                 {plan.options.first().map(recommendation)}
                 {unserved(&plan)}
-                <p class="detail">{amplitude_line(&plan.amplitude)}" · "{pupil_line(&plan.pupil)}</p>
+                <p class="detail">
+                    {amplitude_line(&plan.amplitude)}" · "{refraction_line(&plan.refraction)}" · "
+                    {pupil_line(&plan.pupil)}
+                </p>
                 {matrix::comparison(&plan)}
                 {detail}
                 {range_chart::range_chart(&plan)}
