@@ -2,7 +2,9 @@
 //! to check the closed-form vergence results, to size the retinal blur circle
 //! of a defocus and to give each eye's equivalent power, refraction and
 //! cardinal points. Each eye is data in its own file: the Le Grand full
-//! theoretical eye (`le_grand.rs`), with its published values checked there.
+//! theoretical eye (`le_grand.rs`), the Gullstrand exact (No. 1) eye
+//! (`gullstrand.rs`) and the Bennett–Rabbetts simplified eye
+//! (`bennett_rabbetts.rs`), each with its published values checked there.
 //!
 //! Rays are column vectors (y, n u): height in metres and reduced angle. A
 //! surface of power F refracts with [[1, 0], [-F, 1]]; a gap of thickness t
@@ -10,6 +12,8 @@
 //! minus the lower-left element of the system matrix. Distances along the
 //! axis are measured from the corneal vertex, positive towards the retina.
 
+mod bennett_rabbetts;
+mod gullstrand;
 mod le_grand;
 
 use super::error::OpticsError;
@@ -302,14 +306,23 @@ mod tests {
     use crate::core::vergence::{spectacle_refraction, CorrectedEye};
 
     /// Every named relaxed eye.
-    fn relaxed_eyes() -> [SchematicEye; 1] {
-        [SchematicEye::le_grand_relaxed()]
+    fn relaxed_eyes() -> [SchematicEye; 3] {
+        [
+            SchematicEye::le_grand_relaxed(),
+            SchematicEye::gullstrand_relaxed(),
+            SchematicEye::bennett_rabbetts_relaxed(),
+        ]
     }
 
     /// Every named eye, relaxed and accommodated, for the checks that hold for any eye.
-    fn every_eye() -> [SchematicEye; 2] {
-        let [le_grand] = relaxed_eyes();
-        [le_grand, SchematicEye::le_grand_accommodated()]
+    fn every_eye() -> [SchematicEye; 4] {
+        let [le_grand, gullstrand, bennett_rabbetts] = relaxed_eyes();
+        [
+            le_grand,
+            SchematicEye::le_grand_accommodated(),
+            gullstrand,
+            bennett_rabbetts,
+        ]
     }
 
     #[test]
@@ -433,14 +446,14 @@ mod tests {
         proptest! {
             #[test]
             fn trace_and_closed_form_agree_everywhere(
-                which in 0..1usize, axial in -5.0..5.0f64, vertex in 0.0..20.0f64,
+                which in 0..3usize, axial in -5.0..5.0f64, vertex in 0.0..20.0f64,
                 add in 0.0..3.5f64, distance in 0.2..20.0f64,
             ) {
                 cross_check(relaxed_eyes()[which], axial, vertex, add, distance);
             }
 
             #[test]
-            fn blur_grows_with_defocus_and_pupil(which in 0..1usize, dd in 0.0..5.0f64, p in 1.0..8.0f64) {
+            fn blur_grows_with_defocus_and_pupil(which in 0..3usize, dd in 0.0..5.0f64, p in 1.0..8.0f64) {
                 let eye = relaxed_eyes()[which];
                 let b = eye.retinal_blur_diameter(Dioptres(dd), Millimetres(p)).unwrap().0;
                 let more = eye.retinal_blur_diameter(Dioptres(dd + 0.5), Millimetres(p + 0.5)).unwrap().0;
