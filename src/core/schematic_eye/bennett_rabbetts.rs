@@ -1,25 +1,16 @@
 //! The Bennett–Rabbetts simplified schematic eye, relaxed: one corneal
 //! surface and a homogeneous lens, three spherical surfaces in all (Bennett
-//! & Rabbetts, *Clinical Visual Optics*, 2nd ed., 1989).
+//! & Rabbetts, *Clinical Visual Optics*, 2nd ed.).
 //!
 //! Constants: as listed by the visisipy project (MREYE-LUMC/visisipy,
-//! `models/zoo/bennett_rabbetts.py` and `models/materials.py`, citing that
-//! book); the lens radii and indices also appear in the OCT scaling script
+//! `models/catalog/bennett_rabbetts.py`, earlier `models/zoo/`, and
+//! `models/materials.py`, citing that book); the lens radii and indices also appear in the OCT scaling script
 //! of another public project ("Bennett and Rabbetts schematic emmetropic eye
 //! model": 11 / -6.47515 mm, 1.336 / 1.422 / 1.336). Cornea 7.80 mm radius
 //! into aqueous 1.336, 3.60 mm to the lens; lens 11.0 / -6.47515 mm radii,
 //! 3.70 mm thick, index 1.422; vitreous 1.336, 16.79 mm (axial length 24.09 mm).
 
-use super::{SchematicEye, Surface};
-
-/// One surface of the Bennett–Rabbetts eye: radius and gap in mm, index behind it.
-const fn s(radius_mm: f64, index_after: f64, gap_after_mm: f64) -> Surface {
-    Surface {
-        radius_mm,
-        index_after,
-        gap_after_mm,
-    }
-}
+use super::{surface as s, SchematicEye, Surface};
 
 /// The relaxed eye, cornea to back of lens; the last gap reaches the retina.
 const RELAXED: [Surface; 3] = [
@@ -30,7 +21,7 @@ const RELAXED: [Surface; 3] = [
 
 impl SchematicEye {
     /// The relaxed Bennett–Rabbetts simplified schematic eye (60.00 D,
-    /// emmetropic to 0.01 D), with a single corneal surface.
+    /// emmetropic within 0.02 D), with a single corneal surface.
     pub fn bennett_rabbetts_relaxed() -> SchematicEye {
         SchematicEye::from_data(&RELAXED, 1)
     }

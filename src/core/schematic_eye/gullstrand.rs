@@ -12,16 +12,7 @@
 //! 0.635 mm thick, -6.0 mm back radius, index 1.386; vitreous 1.336,
 //! 17.1854 mm, which places the retina at the second focal point.
 
-use super::{SchematicEye, Surface};
-
-/// One surface of the Gullstrand eye: radius and gap in mm, index behind it.
-const fn s(radius_mm: f64, index_after: f64, gap_after_mm: f64) -> Surface {
-    Surface {
-        radius_mm,
-        index_after,
-        gap_after_mm,
-    }
-}
+use super::{surface as s, SchematicEye, Surface};
 
 /// The relaxed eye, cornea to back of lens; the last gap reaches the retina.
 const RELAXED: [Surface; 6] = [

@@ -12,16 +12,7 @@
 //! index 1.42; vitreous 1.336, 16.59655 mm. Accommodated: aqueous 2.65 mm,
 //! lens 6.0 / -5.5 mm, 4.5 mm thick, index 1.427, vitreous 16.49655 mm.
 
-use super::{SchematicEye, Surface};
-
-/// One surface of the Le Grand eye: radius and gap in mm, index behind it.
-const fn s(radius_mm: f64, index_after: f64, gap_after_mm: f64) -> Surface {
-    Surface {
-        radius_mm,
-        index_after,
-        gap_after_mm,
-    }
-}
+use super::{surface as s, SchematicEye, Surface};
 
 /// The relaxed eye, cornea to back of lens; the last gap reaches the retina.
 const RELAXED: [Surface; 4] = [

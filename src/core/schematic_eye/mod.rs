@@ -66,6 +66,17 @@ pub struct CardinalPoints {
     pub back_nodal: Millimetres,
 }
 
+/// A surface of radius `radius_mm` (positive: centre behind it) with a
+/// medium of index `index_after` behind it, `gap_after_mm` deep; every eye's
+/// data is written with this.
+const fn surface(radius_mm: f64, index_after: f64, gap_after_mm: f64) -> Surface {
+    Surface {
+        radius_mm,
+        index_after,
+        gap_after_mm,
+    }
+}
+
 /// Refraction matrix of a surface of power `power` dioptres.
 fn refraction(power: f64) -> Matrix2<f64> {
     Matrix2::new(1.0, 0.0, -power, 1.0)
