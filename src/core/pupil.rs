@@ -14,7 +14,10 @@
 //! (apostilbs; 1 blondel = 1/π cd/m²), millilamberts (10/π cd/m²) or
 //! foot-lamberts (1/π cd/ft²), not cd/m². A luminance entered in cd/m² and
 //! fed to such a formula unconverted shifts the curve by a factor of π or
-//! more. [`Luminance`] holds cd/m² and converts only through named methods.
+//! more, and the constant inside a formula belongs to its unit: Moon &
+//! Spencer's tanh carries -0.5 with blondels, +0.5 with millilamberts and
+//! almost nothing (-0.00285) with cd/m². [`Luminance`] holds cd/m² and
+//! converts only through named methods.
 
 use super::error::OpticsError;
 use super::units::{Degrees, Millimetres};
@@ -130,14 +133,20 @@ pub fn watson_yellott(
     ))
 }
 
-/// Moon & Spencer (1944) pupil diameter in mm, for comparison:
-/// 4.9 - 3 tanh(0.4 log10 B) with B the luminance in blondels. The blondel
-/// form is the original as recalled (from memory); published re-statements
-/// differ on the unit (some apply the same expression to cd/m²), which is
-/// exactly the trap described in the module note, so this model is shown
-/// only beside the unified formula, never used by default.
+/// Moon & Spencer (1944, "On the Stiles-Crawford effect", J. Opt. Soc. Am.
+/// 34:319) pupil diameter in mm, for comparison: a fit to earlier data for
+/// both eyes viewing a large field, from 7.9 mm in the dark to 1.9 mm in
+/// bright light. With B the luminance in blondels,
+/// D = 4.9 - 3 tanh[0.4 (log10 B - 0.5)], the blondel form given by Pamplona,
+/// Oliveira & Baranoski (2009, ACM Trans. Graph. 28(4):106). The same curve
+/// reads 4.9 - 3 tanh[0.4 (log10 B_mL + 0.5)] in millilamberts and
+/// 4.9 - 3 tanh(0.4 log10 L - 0.00114) in cd/m² (Watson & Yellott 2012).
+/// Dropping the -0.5 while keeping blondels, as an earlier version of this
+/// function did, gives pupils 0.3 to 0.6 mm too small between 0.01 and
+/// 100 cd/m². Shown only beside the unified formula, never used by default.
 pub fn moon_spencer(luminance: Luminance) -> Millimetres {
-    Millimetres(4.9 - 3.0 * (0.4 * luminance.in_blondels().log10()).tanh())
+    let log_blondels = luminance.in_blondels().log10();
+    Millimetres(4.9 - 3.0 * (0.4 * (log_blondels - 0.5)).tanh())
 }
 
 #[cfg(test)]
@@ -213,17 +222,46 @@ mod tests {
         // 1 fL = 1/π cd/ft² = 1 / (π x 0.3048²) = 3.42626 cd/m² (definitions of
         // the foot-lambert and of the international foot).
         assert!((Luminance::foot_lamberts(1.0).unwrap().in_cd_per_m2() - 3.426_26).abs() < 1e-5);
-        // 1 blondel (apostilb) = 1/π cd/m².
+        // 1 blondel (apostilb) = 1/π cd/m² (Wolfram Units package reference,
+        // `Apostilb`: "equivalent to Candela/(Meter2 Pi)").
         assert!((Luminance::blondels(PI).unwrap().in_cd_per_m2() - 1.0).abs() < 1e-12);
     }
 
     #[test]
-    fn moon_spencer_in_blondels() {
-        // 4.9 - 3 tanh(0.4 log10 B), worked by hand: at B = 1 blondel, tanh 0 = 0,
-        // so 4.9 mm; at 100 cd/m² (B = 314.16), 0.4 x 2.49715 = 0.99886,
-        // tanh = 0.76111, D = 2.61666 mm.
-        check(moon_spencer(Luminance::blondels(1.0).unwrap()), 4.9, 1e-12);
-        check(moon_spencer(lum(100.0)), 2.616_66, 1e-4);
+    fn moon_spencer_matches_the_cd_per_m2_restatement() {
+        // Watson & Yellott (2012) restate Moon & Spencer in cd/m² as
+        // D = 4.9 - 3 tanh(0.4 log10 L - 0.00114) (as transcribed in the R
+        // package CVD, `lightAdaptedPupilSize.MoonAndSpencer`, which cites them;
+        // CVD writes R's natural `log`, but the constant 0.00114 =
+        // 0.4 x (log10(10/π) - 0.5) shows the paper's log is base 10).
+        // Worked by hand from that form, which takes cd/m² and no blondels:
+        // L = 0.01: tanh(-0.80114) = -0.664674, D = 6.89402 mm;
+        // L = 1: tanh(-0.00114) = -0.00114, D = 4.90342 mm;
+        // L = 100: tanh(0.79886) = 0.663399, D = 2.90980 mm;
+        // L = 10^4: tanh(1.59886) = 0.921497, D = 2.13551 mm.
+        for (l, expected) in [
+            (0.01, 6.894_02),
+            (1.0, 4.903_42),
+            (100.0, 2.909_80),
+            (1e4, 2.135_51),
+        ] {
+            check(moon_spencer(lum(l)), expected, 2e-5);
+        }
+    }
+
+    #[test]
+    fn moon_spencer_matches_the_millilambert_restatement() {
+        // Frisvad (2019, "Pupillary hippus for glare simulation", DTU web
+        // page) writes Moon & Spencer as 7.9 - 3 (1 + tanh[0.4 (log(L π/10) + 0.5)])
+        // with L in cd/m², so L π/10 is the luminance in millilamberts (1 mL =
+        // 10/π cd/m²); the page writes ln, but at 1 mL the logarithm is 0 in any
+        // base: 7.9 - 3 (1 + tanh 0.2) = 4.9 - 3 x 0.197375 = 4.307874 mm,
+        // worked by hand.
+        let one_millilambert = lum(10.0 / PI);
+        check(moon_spencer(one_millilambert), 4.307_874, 1e-6);
+        // The same source gives the limits 7.9 mm (dark) and 1.9 mm (bright).
+        assert!(moon_spencer(lum(MIN_LUMINANCE)).0 < 7.9);
+        assert!(moon_spencer(lum(MAX_LUMINANCE)).0 > 1.9);
     }
 
     #[test]
