@@ -1,9 +1,11 @@
-//! The rows of the range chart: for each lens option (best first) and each
-//! of its fixed-power zones, the in-focus and comfortable bands placed on the
-//! dioptric axis; and a marker for every task at its distance.
+//! The rows of the range chart: for one lens option, one row per task with
+//! the in-focus and comfortable bands of the power at the point of the lens
+//! where that task is seen (the very ranges its verdict is decided by) and
+//! the task's own distance on the row; and a marker for every task at its
+//! distance.
 
 use super::dioptric_axis::DioptricAxis;
-use crate::plan::{ClearRange, FarEnd, Plan, ZoneKind};
+use crate::plan::{ClearRange, FarEnd, OptionPlan, Plan, Verdict, ZoneKind};
 
 /// A horizontal extent on the chart, in SVG x units, near end first.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -14,17 +16,21 @@ pub struct Span {
     pub x_far: f64,
 }
 
-/// One row of the chart: one zone of one option.
+/// One row of the chart: one task seen through one option.
 #[derive(Debug, Clone, PartialEq)]
 pub struct RangeRow {
-    /// The option's rank, 1 for the best.
-    pub rank: usize,
-    /// The option's label.
-    pub option: String,
-    /// The zone.
+    /// The task's position in the scenario (0-based).
+    pub index: usize,
+    /// The task's name.
+    pub task: String,
+    /// The zone of the lens point where the task is seen.
     pub zone: ZoneKind,
-    /// The zone's addition, in dioptres.
+    /// The addition at that point, in dioptres.
     pub addition_d: f64,
+    /// SVG x of the task's distance.
+    pub x_task: f64,
+    /// The task's focus verdict there.
+    pub focus: Verdict,
     /// Distances in focus with the full amplitude; `None` when nothing is.
     pub in_focus: Option<Span>,
     /// Distances comfortable for sustained work; `None` when nothing is.
@@ -59,20 +65,26 @@ fn span(range: &ClearRange, axis: &DioptricAxis) -> Option<Span> {
     }
 }
 
-/// Every zone of every option of `plan`, best option first, placed on `axis`.
-pub fn range_rows(plan: &Plan, axis: &DioptricAxis) -> Vec<RangeRow> {
-    plan.options
+/// Every task of `option` (a plan of `plan`), in task order, with the
+/// ranges at its lens point placed on `axis`.
+pub fn range_rows(plan: &Plan, option: &OptionPlan, axis: &DioptricAxis) -> Vec<RangeRow> {
+    option
+        .tasks
         .iter()
-        .flat_map(|o| {
-            o.zones.iter().map(move |z| RangeRow {
-                rank: o.rank,
-                option: o.option.label.clone(),
-                zone: z.zone,
-                addition_d: z.addition.0,
-                in_focus: span(&z.in_focus, axis),
-                comfortable: span(&z.comfortable, axis),
-                words: format!("comfortable {}; in focus {}", z.comfortable, z.in_focus),
-            })
+        .map(|t| {
+            let r = &t.range_here;
+            let distance = plan.tasks.get(t.task.index).map(|c| c.distance.0);
+            RangeRow {
+                index: t.task.index,
+                task: t.task.name.clone(),
+                zone: t.zone,
+                addition_d: r.addition.0,
+                x_task: axis.x_of_distance(distance),
+                focus: t.focus,
+                in_focus: span(&r.in_focus, axis),
+                comfortable: span(&r.comfortable, axis),
+                words: format!("comfortable {}; in focus {}", r.comfortable, r.in_focus),
+            }
         })
         .collect()
 }
@@ -150,13 +162,17 @@ mod tests {
         let plan = crate::plan::plan(&crate::scenario::validate(scenario).expect("demo is valid"))
             .expect("demo plans");
         let axis = axis_for(&plan, 0.0, 400.0);
-        let rows = range_rows(&plan, &axis);
-        let zones: usize = plan.options.iter().map(|o| o.zones.len()).sum();
-        assert_eq!(rows.len(), zones);
-        assert!(rows.windows(2).all(|w| w[0].rank <= w[1].rank));
+        let best = &plan.options[0];
+        let rows = range_rows(&plan, best, &axis);
+        assert_eq!(rows.len(), plan.tasks.len());
         for row in &rows {
             for s in [row.in_focus, row.comfortable].into_iter().flatten() {
                 assert!(s.x_near <= s.x_far, "near end left of far end: {row:?}");
+            }
+            // A comfortable task's distance lies on its own comfortable band.
+            if row.focus == Verdict::Comfortable {
+                let s = row.comfortable.expect("a comfortable task has a band");
+                assert!(s.x_near - 1e-6 <= row.x_task && row.x_task <= s.x_far + 1e-6);
             }
         }
         let markers = task_markers(&plan, &axis);

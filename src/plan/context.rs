@@ -67,6 +67,13 @@ pub const ADAPTING_FIELD_DEG: f64 = 60.0;
 /// Half depth of field used for the zone ranges when no task says
 /// otherwise, in dioptres (±0.25 D, the strict clinical tolerance; common practice).
 pub const DEFAULT_ZONE_HALF_DEPTH_D: f64 = 0.25;
+/// Most defocus the detail rule lets a task tolerate for a comfortable
+/// verdict, in dioptres:
+/// the lenient clinical tolerance (±0.50 D; common practice). Coarse detail
+/// may stay recognisable with more blur, which the detail rule allows for
+/// the in-focus verdict, but sustained work through more than half a
+/// dioptre of blur is not comfortable.
+pub const COMFORT_HALF_DEPTH_LIMIT_D: f64 = 0.5;
 /// Defocus a driving task tolerates for a comfortable verdict, in dioptres
 /// (about ±0.25 D at the road; common practice).
 pub const DRIVING_COMFORT_D: f64 = 0.25;
@@ -349,7 +356,12 @@ impl Context {
                     Metres(t.distance_m),
                 )
                 .map_err(PlanError::optics(field.clone()))?;
-                (d, d, basis)
+                // The practitioner's own clinical tolerance stands as entered.
+                let comfort = match basis {
+                    HalfDepthBasis::FromDetail => Dioptres(d.0.min(COMFORT_HALF_DEPTH_LIMIT_D)),
+                    _ => d,
+                };
+                (comfort, d, basis)
             };
             let (mut prep, elevation) = prepare_task(
                 t,

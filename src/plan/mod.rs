@@ -109,6 +109,7 @@ pub fn plan(scenario: &ValidScenario) -> Result<Plan, PlanError> {
         refraction: ctx.refraction,
         pupil: ctx.pupil_used,
         zone_half_depth: ctx.zone_half_depth,
+        lens_to_cor: ctx.fitting.lens_to_cor(),
         tasks: ctx.contexts.clone(),
         options,
         unserved,

@@ -124,10 +124,36 @@ pub fn optical_centre(design: &LensDesign, tasks: &[TaskPrep], extent: VerticalE
         })
 }
 
+/// Where the eyes look through a corridor design at height `y`: the task's
+/// own lens x when it lies within the usable zone (unwanted astigmatism
+/// under the tolerated level), else the zone's edge, reached by turning the
+/// head; with that head turn in degrees. Other designs take the task's x.
+fn within_zone(design: &LensDesign, prep: &TaskPrep, y: f64) -> (f64, f64) {
+    if design.ramp().is_none() {
+        return (prep.x, 0.0);
+    }
+    let centre = design.corridor_x(Millimetres(y)).map_or(0.0, |c| c.0);
+    let half = match usable_width(
+        design,
+        Millimetres(y),
+        Dioptres(TOLERATED_ASTIGMATISM_D),
+        Millimetres(prep.cor_to_lens),
+    ) {
+        Ok(ZoneWidth::Limited { width, .. }) => (0.5 * width.0 - ZONE_MARGIN_MM).max(0.0),
+        Ok(ZoneWidth::Unlimited) | Err(_) => return (prep.x, 0.0),
+    };
+    let x = prep.x.clamp(centre - half, centre + half);
+    let turn = ((prep.x - x).abs() / prep.cor_to_lens).atan().to_degrees();
+    (x, turn)
+}
+
 /// The task seen at lens height `y` with head pitch `pitch`, before any
-/// head turn, through a design whose optical centres sit at height `centre`.
+/// head turn to sweep it, through a design whose optical centres sit at
+/// height `centre`. On a corridor design the point is kept within the
+/// usable zone, the head turning towards the task as far as that needs.
 fn at(design: &LensDesign, prep: &TaskPrep, y: f64, pitch: f64, centre: f64) -> TaskChoice {
-    let addition = design.addition_at(LensPoint::new(prep.x, y)).0;
+    let (x, zone_turn) = within_zone(design, prep, y);
+    let addition = design.addition_at(LensPoint::new(x, y)).0;
     let focus = prep.focus_verdict(addition);
     let prism_limited = focus == Verdict::Comfortable && prep.prism_over_limit(y - centre);
     let (verdict, weight) = if prism_limited {
@@ -137,14 +163,18 @@ fn at(design: &LensDesign, prep: &TaskPrep, y: f64, pitch: f64, centre: f64) -> 
     };
     let gap = prep.comfort.distance_to(addition);
     let gap_cost = (GAP_WEIGHT_PER_D * gap).min(GAP_CAP);
-    let value = prep.hours * (weight - gap_cost - POSTURE_WEIGHT_PER_DEG * pitch.abs());
+    let value = prep.hours
+        * (weight
+            - gap_cost
+            - POSTURE_WEIGHT_PER_DEG * pitch.abs()
+            - TURN_WEIGHT_PER_DEG * zone_turn);
     TaskChoice {
-        x: prep.x,
+        x,
         y,
         pitch,
         addition,
         verdict,
-        turn: 0.0,
+        turn: zone_turn,
         value,
         out_of_reach: false,
         gap,
@@ -153,8 +183,8 @@ fn at(design: &LensDesign, prep: &TaskPrep, y: f64, pitch: f64, centre: f64) -> 
 }
 
 /// Charges the head turns the task needs: towards a task beyond the lens
-/// edge, always; and to sweep a task wider than the zone, where the zone
-/// serves the task at all.
+/// edge or beside a corridor's usable zone, always; and to sweep a task
+/// wider than the zone, where the zone serves the task at all.
 fn with_turn(design: &LensDesign, prep: &TaskPrep, mut c: TaskChoice) -> TaskChoice {
     let sweep = if c.verdict == Verdict::Blurred || prep.width_deg <= 0.0 {
         0.0
@@ -162,8 +192,9 @@ fn with_turn(design: &LensDesign, prep: &TaskPrep, mut c: TaskChoice) -> TaskCho
         zone_angle(design, c.y, prep.cor_to_lens)
             .map_or(0.0, |zone| (prep.width_deg - zone).max(0.0))
     };
-    c.turn = prep.side_turn + sweep;
-    c.value -= prep.hours * TURN_WEIGHT_PER_DEG * c.turn;
+    let more = prep.side_turn + sweep;
+    c.turn += more;
+    c.value -= prep.hours * TURN_WEIGHT_PER_DEG * more;
     c
 }
 

@@ -31,6 +31,10 @@ pub struct Plan {
     /// Half depth of field used for the zone ranges, in dioptres: the
     /// clinical tolerance, or with the detail rule the strictest task's.
     pub zone_half_depth: Dioptres,
+    /// Distance from the back of the lens to the eye's centre of rotation
+    /// the gaze geometry used, in millimetres (the lens map draws the usable
+    /// zone edges with it).
+    pub lens_to_cor: Millimetres,
     /// What the plan knows about each task independently of any lens, in input order.
     pub tasks: Vec<TaskContext>,
     /// The lens options, best first.
@@ -564,8 +568,14 @@ pub struct TaskPlan {
     /// Share of the amplitude used (0 when none is needed); `None` when the
     /// amplitude is zero and the task needs accommodation.
     pub share_of_amplitude: Option<f64>,
-    /// The focus verdict.
+    /// The verdict: the focus verdict, lowered to tiring when the vertical
+    /// prism difference exceeds the limit.
     pub verdict: Verdict,
+    /// The verdict of focus alone: comfortable exactly when the task's
+    /// distance lies in `range_here.comfortable`, in focus exactly when it
+    /// lies in `range_here.in_focus` (blurred when no posture brings the
+    /// line of sight to the lens).
+    pub focus: Verdict,
     /// The defocus left over and what it does to the image.
     pub blur: ResidualBlur,
     /// The range of clear vision at the task's lens point.

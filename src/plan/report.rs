@@ -183,6 +183,11 @@ pub fn task_plan(
         accommodation: focus.accommodation,
         share_of_amplitude: focus.share_of_amplitude,
         verdict: choice.verdict,
+        focus: if choice.prism_limited {
+            Verdict::Comfortable
+        } else {
+            choice.verdict
+        },
         blur: ResidualBlur {
             defocus: Dioptres(defocus),
             direction,

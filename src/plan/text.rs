@@ -74,7 +74,7 @@ fn share(s: Option<f64>) -> String {
     s.map_or("n/a".to_string(), |s| format!("{:.0} %", s * 100.0))
 }
 
-fn option_block(out: &mut String, o: &OptionPlan) {
+fn option_block(out: &mut String, o: &OptionPlan, plan_half_depth: f64) {
     let s = &o.score;
     let _ = writeln!(
         out,
@@ -103,13 +103,13 @@ fn option_block(out: &mut String, o: &OptionPlan) {
     for z in &o.zones {
         let _ = writeln!(
             out,
-            "   {} zone (add {}): comfortable {}; in focus {}",
-            z.zone, z.addition, z.comfortable, z.in_focus
+            "   {} zone (add {}): comfortable {}; in focus {} (at ±{:.2} D; each task's own range is in its row)",
+            z.zone, z.addition, z.comfortable, z.in_focus, plan_half_depth
         );
     }
     let _ = writeln!(
         out,
-        "   {:<22} {:<13} {:>13} {:<34} {:>8} {:>6} {:<20} {:>7} {:<14} {:>6} {:>7} {:>6}",
+        "   {:<22} {:<13} {:>13} {:<34} {:>8} {:>6} {:<20} {:<22} {:>7} {:<24} {:>6} {:>7} {:>6}",
         "task",
         "zone",
         "point x,y mm",
@@ -117,6 +117,7 @@ fn option_block(out: &mut String, o: &OptionPlan) {
         "accomm.",
         "share",
         "verdict",
+        "comfortable here",
         "blur'",
         "posture",
         "turn°",
@@ -127,7 +128,7 @@ fn option_block(out: &mut String, o: &OptionPlan) {
         let name: String = t.task.name.chars().take(22).collect();
         let _ = writeln!(
             out,
-            "   {:<22} {:<13} {:>13} {:<34} {:>8} {:>6} {:<20} {:>7.1} {:<14} {:>6.0} {:>7.1} {:>6.1}",
+            "   {:<22} {:<13} {:>13} {:<34} {:>8} {:>6} {:<20} {:<22} {:>7.1} {:<24} {:>6.0} {:>7.1} {:>6.1}",
             name,
             t.zone.to_string(),
             format!("{:+.1},{:+.1}", t.lens_point.x.0, t.lens_point.y.0),
@@ -135,6 +136,7 @@ fn option_block(out: &mut String, o: &OptionPlan) {
             t.accommodation.to_string(),
             share(t.share_of_amplitude),
             t.verdict.to_string(),
+            t.range_here.comfortable.to_string(),
             t.blur.blur_disc_arcmin,
             t.posture.to_string(),
             t.field.head_turn.0,
@@ -170,7 +172,7 @@ pub fn render(plan: &Plan) -> String {
         plan.zone_half_depth.0
     );
     for o in &plan.options {
-        option_block(&mut out, o);
+        option_block(&mut out, o, plan.zone_half_depth.0);
     }
     if !plan.unserved.is_empty() {
         let _ = writeln!(out, "\nTasks no option makes comfortable:");

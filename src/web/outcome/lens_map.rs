@@ -5,11 +5,10 @@
 //! redrawn only when they change; the task points follow every edit.
 
 use crate::chart::lens_map::{shade, LensFrame};
-use crate::core::gaze::COR_BEHIND_CORNEA_MM;
 use crate::core::lens::LensDesign;
 use crate::core::units::{Dioptres, Millimetres};
 use crate::plan::{context::TOLERATED_ASTIGMATISM_D, OptionPlan};
-use crate::scenario::{Correction, FamilyChoice};
+use crate::scenario::FamilyChoice;
 use crate::web::state::use_app_state;
 use leptos::prelude::*;
 
@@ -19,14 +18,14 @@ const WIDTH: f64 = 420.0;
 const STEP_MM: f64 = 1.0;
 
 /// What the shaded lens depends on: the design, the fitting height, the lens
-/// height and the vertex distance, in millimetres.
+/// height and the lens to centre-of-rotation distance the plan used, in millimetres.
 type Geometry = (FamilyChoice, f64, f64, f64);
 
 /// The shaded lens, zone edges and fitting cross for `geometry`, with the
 /// task points of `chosen` drawn over them.
 fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
     let state = use_app_state();
-    let (choice, fitting_height, lens_height, vertex) = geometry;
+    let (choice, fitting_height, lens_height, lens_to_cor) = geometry;
     let Ok(design) = LensDesign::from_choice(&choice) else {
         return view! { <p class="hint">"This option's lens cannot be drawn."</p> }.into_any();
     };
@@ -47,7 +46,7 @@ fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
     let edges = frame.zone_edges(
         &design,
         Dioptres(TOLERATED_ASTIGMATISM_D),
-        Millimetres(vertex + COR_BEHIND_CORNEA_MM),
+        Millimetres(lens_to_cor),
     );
     let points = move || {
         chosen.with(|o| {
@@ -117,24 +116,20 @@ pub fn LensMap() -> impl IntoView {
     let chosen = Memo::new(move |_| {
         let wanted = state.chosen_option.get();
         state.outcome.with(|o| {
-            o.plan.as_ref().and_then(|p| {
-                wanted
-                    .and_then(|i| p.options.iter().find(|o| o.option.index == i))
-                    .or_else(|| p.options.first())
-                    .cloned()
-            })
+            o.plan
+                .as_ref()
+                .and_then(|p| super::shown_option(p, wanted).cloned())
         })
     });
     let geometry = Memo::new(move |_| {
         let choice = chosen.with(|o| o.as_ref().map(|o| o.design))?;
-        let (fitting, lens, vertex) = state.scenario.with(|s| {
-            let vertex = match s.wearer.correction {
-                Correction::Spectacles { vertex_mm } => vertex_mm,
-                Correction::ContactLenses => 0.0,
-            };
-            (s.wearer.fitting_height_mm, s.wearer.lens_height_mm, vertex)
-        });
-        Some((choice, fitting, lens, vertex))
+        let lens_to_cor = state
+            .outcome
+            .with(|o| o.plan.as_ref().map(|p| p.lens_to_cor.0))?;
+        let (fitting, lens) = state
+            .scenario
+            .with(|s| (s.wearer.fitting_height_mm, s.wearer.lens_height_mm));
+        Some((choice, fitting, lens, lens_to_cor))
     });
     view! {
         <Show when=move || geometry.with(Option::is_some)>

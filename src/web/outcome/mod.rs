@@ -125,6 +125,14 @@ fn task_detail(plan: &Plan, t: usize) -> impl IntoView {
     .into_any()
 }
 
+/// The option the charts show: the one chosen in the comparison (its input
+/// index), or the best-ranked.
+fn shown_option(plan: &Plan, chosen: Option<usize>) -> Option<&OptionPlan> {
+    chosen
+        .and_then(|i| plan.options.iter().find(|o| o.option.index == i))
+        .or_else(|| plan.options.first())
+}
+
 /// The outcome panel.
 #[component]
 pub fn OutcomePanel() -> impl IntoView {
@@ -159,7 +167,8 @@ pub fn OutcomePanel() -> impl IntoView {
                 </p>
                 {matrix::comparison(&plan)}
                 {detail}
-                {range_chart::range_chart(&plan)}
+                {shown_option(&plan, state.chosen_option.get())
+                    .map(|o| range_chart::range_chart(&plan, o))}
             </div>
         }
         .into_any()

@@ -1,11 +1,15 @@
-//! The range chart: for every option and zone, the distances in focus (light
-//! band) and comfortable (dark band) on a dioptric distance axis, with every
-//! task marked by its number. Hovering shows the numbers; choosing a task
-//! marker shows them below the chart. All geometry comes from `chart`.
+//! The range chart: for the option shown (the one chosen in the comparison,
+//! the best by default), one row per task with the distances in focus
+//! (light band) and comfortable (dark band) through the power at the point
+//! where that task is seen, on a dioptric distance axis, and the task's own
+//! distance as a dot on its row; every task is also marked by its number
+//! above. Hovering shows the numbers; choosing a task marker shows them
+//! below the chart. All geometry comes from `chart`.
 
+use super::marks::verdict_mark;
 use crate::chart::range_rows::{axis_for, range_rows, task_markers};
 use crate::display::trim_number;
-use crate::plan::Plan;
+use crate::plan::{OptionPlan, Plan};
 use crate::web::state::use_app_state;
 use leptos::prelude::*;
 
@@ -19,12 +23,12 @@ const TOP: f64 = 70.0;
 const HIT: f64 = 76.0;
 const ROW: f64 = 26.0;
 
-/// The range chart for `plan`.
-pub fn range_chart(plan: &Plan) -> impl IntoView {
+/// The range chart for `option`, one of `plan`'s options.
+pub fn range_chart(plan: &Plan, option: &OptionPlan) -> impl IntoView {
     let state = use_app_state();
     let unit = state.unit.get();
     let axis = axis_for(plan, X_NEAR, X_FAR);
-    let rows = range_rows(plan, &axis);
+    let rows = range_rows(plan, option, &axis);
     let markers = task_markers(plan, &axis);
     let height = TOP + rows.len() as f64 * ROW + 36.0;
     let bottom = TOP + rows.len() as f64 * ROW;
@@ -43,8 +47,9 @@ pub fn range_chart(plan: &Plan) -> impl IntoView {
         .enumerate()
         .map(|(i, r)| {
             let y = TOP + i as f64 * ROW;
-            let label = format!("#{} {} · {} {:+.2}", r.rank, r.option, r.zone, r.addition_d);
-            let tooltip = format!("{label}: {}", r.words);
+            let label = format!("{}. {} · {} {:+.2}", r.index + 1, r.task, r.zone, r.addition_d);
+            let tooltip = format!("{label}: {}, {}", r.words, r.focus);
+            let (symbol, class, _) = verdict_mark(r.focus);
             let focus = r.in_focus.map(|s| view! {
                 <rect class="band-focus" x=s.x_near y={y + 5.0} width={(s.x_far - s.x_near).max(1.0)} height={ROW - 10.0} />
             });
@@ -57,6 +62,8 @@ pub fn range_chart(plan: &Plan) -> impl IntoView {
                     <text class="row-label" x=LABEL_END y={y + ROW / 2.0 + 4.0} text-anchor="end">{label}</text>
                     {focus}
                     {comfort}
+                    <circle class=format!("task-dot {class}") cx=r.x_task cy={y + ROW / 2.0} r="6" />
+                    <text class="dot-symbol" x=r.x_task y={y + ROW / 2.0 + 4.0} text-anchor="middle" aria-hidden="true">{symbol}</text>
                 </g>
             }
         })
@@ -111,11 +118,12 @@ pub fn range_chart(plan: &Plan) -> impl IntoView {
                 {marks}
             </svg>
             <figcaption id="range-chart-caption">
-                "Range of clear vision of each lens zone on a dioptric scale (equal steps are equal changes of focus). "
+                {format!("#{} {}: ", option.rank, option.option.label)}
+                "range of clear vision at the point of the lens where each task is seen, on a dioptric scale (equal steps are equal changes of focus). "
                 <span class="key key-focus">"Light: in focus with full effort."</span>
                 " "
                 <span class="key key-comfort">"Dark: comfortable for sustained work."</span>
-                " Numbered lines: the tasks."
+                " Dots: each task's own distance, marked by its focus verdict. Numbered lines: the tasks."
             </figcaption>
         </figure>
     }
