@@ -28,7 +28,6 @@ pub use strain::{pitch_strain, turn_strain, Strain};
 
 use crate::core::lens::{LensError, LensPoint, NamedBounds, VerticalExtent};
 use crate::core::units::{Degrees, Dioptres, Metres, Millimetres, PrismDioptres};
-use crate::scenario::{Correction, Task, VerticalPosition, Wearer};
 use nalgebra::{Point3, Rotation3, Vector3};
 
 /// The eye's centre of rotation behind the cornea, in millimetres: about
@@ -106,22 +105,6 @@ pub enum TaskVertical {
     GazeAngle(Degrees),
     /// Height of the task centre above (positive) or below eye level, in metres.
     Height(Metres),
-}
-
-impl TaskPosition {
-    /// The position of a scenario task.
-    pub fn of_task(task: &Task) -> TaskPosition {
-        TaskPosition {
-            distance: Metres(task.distance_m),
-            vertical: match task.vertical {
-                VerticalPosition::GazeAngle { degrees } => {
-                    TaskVertical::GazeAngle(Degrees(degrees))
-                }
-                VerticalPosition::HeightFromEyes { metres } => TaskVertical::Height(Metres(metres)),
-            },
-            sideways: Metres(task.sideways_m),
-        }
-    }
 }
 
 /// A task located in the head frame with the head upright, in millimetres
@@ -203,30 +186,6 @@ impl Fitting {
             params,
             right: frame(Eye::Right),
             left: frame(Eye::Left),
-        })
-    }
-
-    /// The fitting of a scenario's wearer: monocular PDs, vertex distance
-    /// (0 for contact lenses, for which the lens-plane model is only a rough
-    /// stand-in, since a contact lens moves with the eye), pantoscopic tilt and
-    /// the lens's extent, with the CoR [`COR_BEHIND_CORNEA_MM`] behind the
-    /// cornea and no face-form wrap (the scenario does not record one).
-    pub fn from_wearer(wearer: &Wearer) -> Result<Fitting, LensError> {
-        let vertex = match wearer.correction {
-            Correction::Spectacles { vertex_mm } => vertex_mm,
-            Correction::ContactLenses => 0.0,
-        };
-        Fitting::new(FittingParams {
-            pd_right: Millimetres(wearer.pd_right_mm),
-            pd_left: Millimetres(wearer.pd_left_mm),
-            vertex: Millimetres(vertex),
-            cor_behind_cornea: Millimetres(COR_BEHIND_CORNEA_MM),
-            pantoscopic_tilt: Degrees(wearer.pantoscopic_tilt_deg),
-            face_form: Degrees(0.0),
-            extent: VerticalExtent::from_frame(
-                Millimetres(wearer.fitting_height_mm),
-                Millimetres(wearer.lens_height_mm),
-            )?,
         })
     }
 

@@ -353,8 +353,11 @@ fn posture(options: &[OptionPlan], out: &mut Vec<Caution>) {
         .iter()
         .map(|t| {
             format!(
-                "\"{}\" ({}, head turn {:.0}°)",
-                t.task.name, t.posture, t.field.head_turn.0
+                "\"{}\" ({}, head turned {:.0}° and sweeping {:.0}° more)",
+                t.task.name,
+                t.posture,
+                t.field.held_turn.0,
+                t.field.head_turn.0 - t.field.held_turn.0
             )
         })
         .collect();

@@ -33,7 +33,7 @@ use crate::core::acuity::defocus_for_decimal_acuity;
 use crate::core::clear_range::Viewer;
 use crate::core::depth_of_field::{self, task_half_depth, DEFAULT_BLUR_TO_DETAIL};
 use crate::core::gaze::{
-    keep_on_lens, subtended_angle, Eye, Fitting, FittingParams, TaskPosition, COR_BEHIND_CORNEA_MM,
+    keep_on_lens, subtended_angle, Eye, Fitting, FittingParams, COR_BEHIND_CORNEA_MM,
     TYPICAL_LENS_HALF_WIDTH_MM,
 };
 use crate::core::lens::VerticalExtent;
@@ -575,7 +575,7 @@ fn prepare_task(
     let usable = viewer.usable().of(viewer.amplitude()).0;
     let f = distance_power.0;
     let point = fitting
-        .locate(&TaskPosition::of_task(t))
+        .locate(&t.position())
         .map_err(PlanError::lens(field))?;
     let mut heights = [0.0; PITCH_SAMPLES];
     for (i, h) in heights.iter_mut().enumerate() {

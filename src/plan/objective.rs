@@ -67,6 +67,9 @@ pub struct TaskChoice {
     pub verdict: Verdict,
     /// Total head turn needed to sweep the task, degrees.
     pub turn: f64,
+    /// The part of `turn` held all the time the task is worked on (towards
+    /// a task beyond the lens edge or beside a corridor's usable zone), degrees.
+    pub held_turn: f64,
     /// The task's contribution to the objective, weighted hours.
     pub value: f64,
     /// The lens carries a power that would make the task comfortable, but no
@@ -175,6 +178,7 @@ fn at(design: &LensDesign, prep: &TaskPrep, y: f64, pitch: f64, centre: f64) -> 
         addition,
         verdict,
         turn: zone_turn,
+        held_turn: zone_turn,
         value,
         out_of_reach: false,
         gap,
@@ -194,6 +198,7 @@ fn with_turn(design: &LensDesign, prep: &TaskPrep, mut c: TaskChoice) -> TaskCho
     };
     let more = prep.side_turn + sweep;
     c.turn += more;
+    c.held_turn += prep.side_turn;
     c.value -= prep.hours * TURN_WEIGHT_PER_DEG * more;
     c
 }
@@ -353,6 +358,7 @@ impl Default for TaskChoice {
             addition: 0.0,
             verdict: Verdict::Blurred,
             turn: 0.0,
+            held_turn: 0.0,
             value: 0.0,
             out_of_reach: false,
             gap: 0.0,

@@ -704,7 +704,11 @@ pub struct FieldFit {
     pub task_angle: Degrees,
     /// Total head turn needed to sweep the task, in degrees (0 when the zone is wide enough).
     pub head_turn: Degrees,
-    /// How sustainable that head turn is.
+    /// The part of the head turn held while the task is worked on (towards a
+    /// task beyond the lens edge or beside a corridor's usable zone), in degrees.
+    pub held_turn: Degrees,
+    /// How sustainable the head turn is, judged at its widest excursion:
+    /// the held turn plus half the sweep.
     pub turn_strain: Strain,
 }
 

@@ -210,7 +210,10 @@ pub fn task_plan(
             zone_angle: zone_angle(design, choice.y, prep.cor_to_lens).map(Degrees),
             task_angle: Degrees(prep.width_deg),
             head_turn: Degrees(choice.turn),
-            turn_strain: turn_strain(Degrees(choice.turn)),
+            held_turn: Degrees(choice.held_turn),
+            turn_strain: turn_strain(Degrees(
+                choice.held_turn + 0.5 * (choice.turn - choice.held_turn),
+            )),
         },
         near_vision: Centration {
             near_pd,

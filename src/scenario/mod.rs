@@ -1,6 +1,7 @@
 //! The planning case as the user enters and saves it, and the single gate
 //! that checks it before the optics runs.
 
+mod convert;
 mod defaults;
 mod model;
 mod validate;

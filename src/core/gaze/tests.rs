@@ -353,59 +353,6 @@ fn a_task_far_to_the_side_misses_the_segment() {
     ));
 }
 
-#[test]
-fn scenario_tasks_convert_to_positions() {
-    use crate::scenario::{Task, TaskFlags, VerticalPosition};
-    let t = Task {
-        name: "bench vice".to_string(),
-        distance_m: 0.5,
-        vertical: VerticalPosition::HeightFromEyes { metres: -0.3 },
-        sideways_m: 0.1,
-        width_m: 0.2,
-        detail_mm: 1.0,
-        hours_per_day: 2.0,
-        flags: TaskFlags::default(),
-    };
-    assert_eq!(
-        TaskPosition::of_task(&t),
-        task(0.5, TaskVertical::Height(Metres(-0.3)), 0.1)
-    );
-}
-
-#[test]
-fn a_scenario_wearer_gives_a_fitting() {
-    use crate::scenario::*;
-    let rx = Prescription {
-        sphere_d: 1.0,
-        cylinder_d: 0.0,
-        axis_deg: 0.0,
-        prism: Default::default(),
-    };
-    // Demo wearer (fictional values within the usual ranges).
-    let wearer = Wearer {
-        age_years: 55.0,
-        measured_amplitude: None,
-        right: rx,
-        left: rx,
-        prescribed_addition_d: Some(2.0),
-        correction: Correction::Spectacles { vertex_mm: 12.0 },
-        pd_right_mm: 31.5,
-        pd_left_mm: 32.5,
-        fitting_height_mm: 20.0,
-        lens_height_mm: 34.0,
-        pantoscopic_tilt_deg: 9.0,
-        pupil: PupilSource::Measured { diameter_mm: 4.0 },
-        usable_fraction: 0.5,
-        blur_tolerance: BlurTolerance::FromDetail,
-    };
-    let f = Fitting::from_wearer(&wearer).unwrap();
-    close(f.lens_to_cor().0, 25.5, 1e-12, "12 + 13.5 mm");
-    close(f.params().extent.top().0, 14.0, 1e-12, "34 - 20 mm");
-    let mut bad = wearer;
-    bad.fitting_height_mm = 40.0;
-    assert!(Fitting::from_wearer(&bad).is_err());
-}
-
 use proptest::prelude::*;
 
 fn any_fitting() -> impl Strategy<Value = Fitting> {

@@ -12,12 +12,12 @@ use super::limits::{
 };
 use super::progressive::DEFAULT_NEAR_INSET_MM;
 use super::trifocal::DEFAULT_BAND_HEIGHT_MM;
+use super::FamilyChoice;
 use super::{
     Bifocal, Degressive, DoubleSegment, Family, LensDesign, Parameter, Progressive, SegmentShape,
     SingleVision, Trifocal,
 };
 use crate::core::units::{Dioptres, Millimetres};
-use crate::scenario::FamilyChoice;
 
 /// Evenly spaced values from `first` to `last` inclusive, `step` apart, in
 /// the unit of the parameter it belongs to (stated on each grid).

@@ -15,6 +15,7 @@
 
 mod bifocal;
 mod catalogue;
+mod choice;
 mod degressive;
 mod double_segment;
 mod error;
@@ -35,6 +36,7 @@ pub use catalogue::{
     ADDITION_GRID, DEGRESSION_GRID, INTERMEDIATE_RATIO_GRID, PROGRESSION_LENGTH_GRID,
     SEGMENT_TOP_GRID, SINGLE_VISION_ADDITION_GRID, UPPER_BOTTOM_GRID,
 };
+pub use choice::FamilyChoice;
 pub use degressive::{Degressive, DEGRESSION_HEIGHT_MM, NEAR_REFERENCE_MM};
 pub use double_segment::DoubleSegment;
 pub use error::LensError;
@@ -49,7 +51,6 @@ pub use single_vision::SingleVision;
 pub use trifocal::{Trifocal, DEFAULT_BAND_HEIGHT_MM, DEFAULT_INTERMEDIATE_RATIO};
 
 use crate::core::units::{Dioptres, Millimetres};
-use crate::scenario::FamilyChoice;
 use serde::Serialize;
 use std::fmt;
 
