@@ -181,3 +181,101 @@ proptest! {
         }
     }
 }
+
+prop_compose! {
+    /// A wearer drawn over the whole range the scenario gate accepts.
+    fn any_valid_range_wearer()(
+        age in 5.0..100.0f64, measured in proptest::option::of((0.0..25.0f64, any::<bool>(), any::<bool>())),
+        rs in -30.0..30.0f64, rc in -10.0..10.0f64, ra in 0.0..180.0f64,
+        aniso in -15.0..15.0f64, lc in -10.0..10.0f64, la in 0.0..180.0f64,
+        prism in 0.0..20.0f64, add in proptest::option::of(0.0..4.0f64),
+        vertex in proptest::option::of(0.0..25.0f64),
+        pd in (20.0..45.0f64, 20.0..45.0f64), heights in (0.0..1.0f64, 15.0..70.0f64),
+        tilt in -5.0..25.0f64, pupil in prop_oneof![
+            (1.0..9.0f64).prop_map(|d| PupilSource::Measured { diameter_mm: d }),
+            (0.001..100_000.0f64).prop_map(|l| PupilSource::FromLighting { luminance_cd_m2: l }),
+        ],
+        usable in 0.2..1.0f64, blur in proptest::option::of(0.05..1.5f64),
+    ) -> Wearer {
+        let eye = |sphere_d, cylinder_d, axis_deg| Prescription {
+            sphere_d, cylinder_d, axis_deg,
+            prism: Prism { vertical_pd: prism, ..Prism::default() },
+        };
+        Wearer {
+            age_years: age,
+            measured_amplitude: measured.map(|(d, push_up, ocular)| MeasuredAmplitude {
+                dioptres: d,
+                method: if push_up { AmplitudeMethod::PushUp } else { AmplitudeMethod::MinusLens },
+                plane: if ocular { ReferencePlane::Ocular } else { ReferencePlane::Spectacle },
+            }),
+            right: eye(rs, rc, ra),
+            left: eye((rs + aniso).clamp(-30.0, 30.0), lc, la),
+            prescribed_addition_d: add,
+            correction: vertex.map_or(Correction::ContactLenses, |v| Correction::Spectacles { vertex_mm: v }),
+            pd_right_mm: pd.0,
+            pd_left_mm: pd.1,
+            // Anywhere from 8 mm to 1 mm below the top of the lens (or 45 mm).
+            fitting_height_mm: 8.0 + heights.0 * ((heights.1 - 1.0).min(45.0) - 8.0),
+            lens_height_mm: heights.1,
+            pantoscopic_tilt_deg: tilt,
+            pupil,
+            usable_fraction: usable,
+            blur_tolerance: blur.map_or(BlurTolerance::FromDetail, |h| BlurTolerance::Clinical { half_depth_d: h }),
+        }
+    }
+}
+
+prop_compose! {
+    /// A task drawn over the whole range the scenario gate accepts.
+    fn any_valid_range_task()(
+        d in prop_oneof![0.1..2.0f64, 0.1..1000.0f64], up in -1.0..1.0f64, by_height in any::<bool>(),
+        side in -1.0..1.0f64, width in 0.0..20.0f64, detail in 0.01..1000.0f64, hours in 0.0..6.0f64,
+        flags in (any::<bool>(), any::<bool>(), any::<bool>(), any::<bool>()),
+    ) -> Task {
+        let mut t = task("task", d, 80.0 * up, hours);
+        if by_height {
+            t.vertical = VerticalPosition::HeightFromEyes { metres: (0.99 * d * up).clamp(-5.0, 5.0) };
+        }
+        t.sideways_m = (0.99 * d * side).clamp(-20.0, 20.0);
+        t.width_m = width;
+        t.detail_mm = detail;
+        t.flags.driving = flags.0;
+        t.flags.moving_machinery = flags.1;
+        t.flags.overhead = flags.2;
+        t.flags.hazards.impact = flags.3;
+        t
+    }
+}
+
+proptest! {
+    #![proptest_config(ProptestConfig::with_cases(64))]
+
+    /// Invariant: whatever passes the scenario gate plans without an error,
+    /// over the full validated ranges (not narrower ones).
+    #[test]
+    fn every_validated_scenario_plans(
+        w in any_valid_range_wearer(),
+        tasks in proptest::collection::vec(any_valid_range_task(), 1..5),
+        rounding in any::<bool>(), prescribed in any::<bool>(),
+        acuity in 0.1..1.0f64, prism_limit in 0.25..5.0f64,
+    ) {
+        let s = Scenario {
+            name: "full range".to_string(),
+            settings: PlanSettings {
+                driving_acuity_decimal: acuity,
+                vertical_imbalance_limit_pd: prism_limit,
+                addition_rounding: if rounding { AdditionRounding::Nearest } else { AdditionRounding::Up },
+                use_prescribed_addition: prescribed,
+            },
+            wearer: w,
+            tasks,
+            options: all_families_open(),
+        };
+        let checked = validate(s);
+        prop_assume!(checked.is_ok(), "the generator aims inside the gate");
+        if let Ok(valid) = checked {
+            let planned = plan(&valid);
+            prop_assert!(planned.is_ok(), "{:?}", planned.err());
+        }
+    }
+}

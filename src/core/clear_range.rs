@@ -25,8 +25,8 @@ use super::vergence::{
     check_power, object_vergence, CorrectedEye, MAX_OBJECT_DISTANCE_M, MIN_OBJECT_DISTANCE_M,
 };
 
-/// Largest amplitude of accommodation accepted, in dioptres.
-const MAX_AMPLITUDE_D: f64 = 25.0;
+/// Largest ocular amplitude of accommodation accepted, in dioptres.
+pub const MAX_AMPLITUDE_D: f64 = 25.0;
 
 /// One eye as the planner sees it: its distance correction, its ocular
 /// amplitude of accommodation, the share usable for sustained work, and

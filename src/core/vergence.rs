@@ -33,7 +33,7 @@ pub const MAX_OBJECT_DISTANCE_M: f64 = 100_000.0;
 /// of the eye, far outside spectacle practice.
 const MIN_TRANSFER_DENOMINATOR: f64 = 0.1;
 /// `vF` above this is refused for a distance correction (K would exceed 2F).
-const MAX_VERTEX_TIMES_POWER: f64 = 0.5;
+pub const MAX_VERTEX_TIMES_POWER: f64 = 0.5;
 
 /// Checks a vertex distance: finite, 0 to 30 mm.
 pub fn check_vertex(vertex: Metres) -> Result<Metres, OpticsError> {

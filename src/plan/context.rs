@@ -30,7 +30,7 @@ use super::outcome::{
 };
 use crate::core::accommodation::{ocular_from_spectacle, AgeModel, UsableShare};
 use crate::core::acuity::defocus_for_decimal_acuity;
-use crate::core::clear_range::Viewer;
+use crate::core::clear_range::{Viewer, MAX_AMPLITUDE_D};
 use crate::core::depth_of_field::{self, task_half_depth, DEFAULT_BLUR_TO_DETAIL};
 use crate::core::gaze::{
     keep_on_lens, subtended_angle, Eye, Fitting, FittingParams, COR_BEHIND_CORNEA_MM,
@@ -433,7 +433,10 @@ impl Context {
 /// `standard` (decimal) with [`DRIVING_MARGIN_LOGMAR`] to spare through `pupil`.
 fn driving_defocus(standard: f64, pupil: Millimetres) -> Dioptres {
     let required = (standard * 10f64.powf(DRIVING_MARGIN_LOGMAR)).min(1.0);
-    defocus_for_decimal_acuity(required, pupil).unwrap_or(Dioptres(0.0))
+    let limit = defocus_for_decimal_acuity(required, pupil).unwrap_or(Dioptres(0.0));
+    // Beyond the depth-of-field model's range the geometric blur disc no
+    // longer describes the image; the model's own limit applies.
+    Dioptres(limit.0.min(depth_of_field::MAX_HALF_DEPTH_D))
 }
 
 /// The amplitude as stated (measured, or Hofstetter's minimum for the age)
@@ -482,11 +485,22 @@ fn amplitude_of(
             .map_err(PlanError::optics("wearer.correction"))?,
         AmplitudeSource::Measured { .. } => *eye,
     };
-    let ocular = match plane {
+    let converted = match plane {
         ReferencePlane::Spectacle => ocular_from_spectacle(&through, stated)
             .map_err(PlanError::optics("wearer.measured_amplitude"))?,
         ReferencePlane::Ocular => stated,
     };
+    // A spectacle-plane figure through a strong lens can exceed what any
+    // eye accommodates; the model's ceiling applies, and the plan says so.
+    let ocular = Dioptres(converted.0.min(MAX_AMPLITUDE_D));
+    if ocular != converted {
+        clamped.push((
+            "the accommodation model",
+            "ocular amplitude",
+            converted.0,
+            ocular.0,
+        ));
+    }
     Ok((
         AmplitudeUsed {
             source,

@@ -46,9 +46,22 @@ pub fn plan(scenario: &ValidScenario) -> Result<Plan, PlanError> {
     let from_prescription = prescribed.filter(|_| s.settings.use_prescribed_addition);
     for (i, o) in s.options.iter().enumerate() {
         let field = format!("options[{i}]");
-        let family = from_prescription.map_or(o.family, |add| with_near_addition(&o.family, add));
-        let solution =
-            solver::solve(&family, &ctx.tasks, ctx.extent).map_err(PlanError::lens(field))?;
+        // The prescribed addition is taken where the design can carry it (a
+        // degressive lens needs at least its minimum near addition and more
+        // than its degression); otherwise the option is planned as entered.
+        let prescribed_solution = from_prescription.and_then(|add| {
+            let family = with_near_addition(&o.family, add);
+            solver::solve(&family, &ctx.tasks, ctx.extent)
+                .ok()
+                .map(|s| (family, s))
+        });
+        let (family, solution) = match prescribed_solution {
+            Some(found) => found,
+            None => (
+                o.family,
+                solver::solve(&o.family, &ctx.tasks, ctx.extent).map_err(PlanError::lens(field))?,
+            ),
+        };
         let sc = score(&solution.design, &ctx.tasks, ctx.extent, Some(&mut choices));
         let centre = objective::optical_centre(&solution.design, &ctx.tasks, ctx.extent);
         let tasks = choices

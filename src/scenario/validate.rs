@@ -5,6 +5,8 @@
 
 use super::model::*;
 use crate::core::bounds::{unit_suffix, Bounds, RangeFault};
+use crate::core::lens::MIN_LENS_ABOVE_FITTING_MM;
+use crate::core::vergence::MAX_VERTEX_TIMES_POWER;
 use std::fmt;
 
 /// A problem with one field of a scenario, addressed by its path
@@ -232,6 +234,22 @@ impl Checker {
         );
         if let Correction::Spectacles { vertex_mm } = w.correction {
             self.number("wearer.correction.vertex_mm", vertex_mm, &VERTEX);
+            // The vergence relations hold while vertex x power stays small
+            // (the core's limit); a stronger lens needs a shorter vertex.
+            let strongest = [&w.right, &w.left]
+                .iter()
+                .flat_map(|rx| [rx.sphere_d, rx.sphere_d + rx.cylinder_d])
+                .map(f64::abs)
+                .fold(0.0, f64::max);
+            if vertex_mm / 1000.0 * strongest >= MAX_VERTEX_TIMES_POWER {
+                self.fail(
+                    "wearer.correction.vertex_mm",
+                    Problem::Inconsistent(
+                        "is too long for so strong a prescription (vertex distance in metres x \
+                         the strongest power must stay below 0.5); measure it again",
+                    ),
+                );
+            }
         }
         self.number("wearer.pd_right_mm", w.pd_right_mm, &PD);
         self.number("wearer.pd_left_mm", w.pd_left_mm, &PD);
@@ -243,11 +261,11 @@ impl Checker {
         self.number("wearer.lens_height_mm", w.lens_height_mm, &LENS_HEIGHT);
         if w.fitting_height_mm.is_finite()
             && w.lens_height_mm.is_finite()
-            && w.fitting_height_mm >= w.lens_height_mm
+            && w.fitting_height_mm > w.lens_height_mm - MIN_LENS_ABOVE_FITTING_MM
         {
             self.fail(
                 "wearer.fitting_height_mm",
-                Problem::Inconsistent("must be less than the lens height"),
+                Problem::Inconsistent("must be at least 1 mm less than the lens height"),
             );
         }
         self.number("wearer.pantoscopic_tilt_deg", w.pantoscopic_tilt_deg, &TILT);
@@ -292,10 +310,24 @@ impl Checker {
             }
         }
         self.number(&p("sideways_m"), t.sideways_m, &SIDEWAYS);
-        if t.sideways_m.is_finite() && t.distance_m > 0.0 && t.sideways_m.abs() >= t.distance_m {
+        // The gaze geometry places the task on a sphere around the eyes:
+        // its sideways offset must fit within the horizontal part of the
+        // viewing distance left by its height or gaze angle.
+        let horizontal = match t.vertical {
+            VerticalPosition::GazeAngle { degrees } => t.distance_m * degrees.to_radians().cos(),
+            VerticalPosition::HeightFromEyes { metres } => (t.distance_m * t.distance_m
+                - metres * metres)
+                .max(0.0)
+                .sqrt(),
+        };
+        // (A height beyond the distance is reported on its own field.)
+        if t.sideways_m.is_finite() && horizontal > 0.0 && t.sideways_m.abs() >= horizontal {
             self.fail(
                 &p("sideways_m"),
-                Problem::Inconsistent("must be smaller than the viewing distance"),
+                Problem::Inconsistent(
+                    "must be smaller than the task's horizontal distance (the viewing distance \
+                     less what its height or gaze angle takes up)",
+                ),
             );
         }
         self.number(&p("width_m"), t.width_m, &WIDTH);
@@ -496,6 +528,27 @@ mod tests {
         assert_eq!(paths, ["wearer.right.prism.vertical_pd"]);
         let paths = problems_after(|s| s.settings.driving_acuity_decimal = 2.0);
         assert_eq!(paths, ["settings.driving_acuity_decimal"]);
+        // A fitting point 0.5 mm under the top of a 35 mm lens leaves no lens above it.
+        let paths = problems_after(|s| {
+            s.wearer.lens_height_mm = 35.0;
+            s.wearer.fitting_height_mm = 34.5;
+        });
+        assert_eq!(paths, ["wearer.fitting_height_mm"]);
+        // 40 cm away and 30 cm up leaves 26.5 cm of horizontal distance: a
+        // 30 cm sideways offset cannot fit.
+        let paths = problems_after(|s| {
+            s.tasks[0].distance_m = 0.4;
+            s.tasks[0].vertical = VerticalPosition::HeightFromEyes { metres: 0.3 };
+            s.tasks[0].sideways_m = 0.3;
+        });
+        assert_eq!(paths, ["tasks[0].sideways_m"]);
+        // +25 D at 25 mm: vertex x power 0.625, beyond the vergence relations.
+        let paths = problems_after(|s| {
+            s.wearer.right.sphere_d = 25.0;
+            s.wearer.left.sphere_d = 25.0;
+            s.wearer.correction = Correction::Spectacles { vertex_mm: 25.0 };
+        });
+        assert_eq!(paths, ["wearer.correction.vertex_mm"]);
     }
 
     #[test]

@@ -149,16 +149,26 @@ pub struct VerticalExtent {
     top: f64,
 }
 
+/// Least lens above the fitting point, in millimetres: a fitting point on
+/// the rim leaves nothing to look through (a product choice).
+pub const MIN_LENS_ABOVE_FITTING_MM: f64 = 1.0;
+
 impl VerticalExtent {
     /// The extent of a lens of height `lens_height` whose fitting point is
-    /// `fitting_height` above its lowest point (both in millimetres).
+    /// `fitting_height` above its lowest point (both in millimetres), at
+    /// least [`MIN_LENS_ABOVE_FITTING_MM`] below its top.
     pub fn from_frame(
         fitting_height: Millimetres,
         lens_height: Millimetres,
     ) -> Result<VerticalExtent, LensError> {
         let lens_height = NamedBounds::new("lens height", 15.0, 70.0, "mm").check(lens_height.0)?;
-        let fitting_height = NamedBounds::new("fitting height", 1.0, lens_height - 1.0, "mm")
-            .check(fitting_height.0)?;
+        let fitting_height = NamedBounds::new(
+            "fitting height",
+            1.0,
+            lens_height - MIN_LENS_ABOVE_FITTING_MM,
+            "mm",
+        )
+        .check(fitting_height.0)?;
         Ok(VerticalExtent {
             bottom: -fitting_height,
             top: lens_height - fitting_height,
