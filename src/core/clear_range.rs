@@ -26,7 +26,7 @@ use super::vergence::{
 };
 
 /// Largest ocular amplitude of accommodation accepted, in dioptres.
-pub const MAX_AMPLITUDE_D: f64 = 25.0;
+pub const MAX_AMPLITUDE_D: f64 = super::limits::AMPLITUDE.max;
 
 /// One eye as the planner sees it: its distance correction, its ocular
 /// amplitude of accommodation, the share usable for sustained work, and

@@ -27,6 +27,7 @@ pub use posture::{ComfortRange, Posture, PostureOutcome, HEAD_PITCH_LIMIT_DEG};
 pub use strain::{pitch_strain, turn_strain, Strain};
 
 use crate::core::lens::{LensError, LensPoint, NamedBounds, VerticalExtent};
+use crate::core::limits;
 use crate::core::units::{Degrees, Dioptres, Metres, Millimetres, PrismDioptres};
 use nalgebra::{Point3, Rotation3, Vector3};
 
@@ -140,17 +141,17 @@ pub struct LensCrossing {
     pub on_lens: bool,
 }
 
-const PD_RIGHT: NamedBounds = NamedBounds::new("right monocular PD", 20.0, 45.0, "mm");
-const PD_LEFT: NamedBounds = NamedBounds::new("left monocular PD", 20.0, 45.0, "mm");
-const VERTEX: NamedBounds = NamedBounds::new("vertex distance", 0.0, 25.0, "mm");
+const PD_RIGHT: NamedBounds = NamedBounds::of("right monocular PD", limits::PD);
+const PD_LEFT: NamedBounds = NamedBounds::of("left monocular PD", limits::PD);
+const VERTEX: NamedBounds = NamedBounds::of("vertex distance", limits::VERTEX);
 const COR: NamedBounds = NamedBounds::new("CoR behind cornea", 10.0, 18.0, "mm");
-const TILT: NamedBounds = NamedBounds::new("pantoscopic tilt", -5.0, 25.0, "°");
+const TILT: NamedBounds = NamedBounds::of("pantoscopic tilt", limits::TILT);
 const WRAP: NamedBounds = NamedBounds::new("face-form angle", 0.0, 30.0, "°");
 /// Task distance from the spectacle plane, in metres.
-pub(crate) const DISTANCE: NamedBounds = NamedBounds::new("task distance", 0.1, 1000.0, "m");
-const SIDEWAYS: NamedBounds = NamedBounds::new("task sideways offset", -20.0, 20.0, "m");
-const GAZE_ANGLE: NamedBounds = NamedBounds::new("task gaze angle", -80.0, 80.0, "°");
-const HEIGHT: NamedBounds = NamedBounds::new("task height", -5.0, 5.0, "m");
+pub(crate) const DISTANCE: NamedBounds = NamedBounds::of("task distance", limits::DISTANCE);
+const SIDEWAYS: NamedBounds = NamedBounds::of("task sideways offset", limits::SIDEWAYS);
+const GAZE_ANGLE: NamedBounds = NamedBounds::of("task gaze angle", limits::GAZE_ANGLE);
+const HEIGHT: NamedBounds = NamedBounds::of("task height", limits::HEIGHT);
 
 impl Fitting {
     /// Checks the measurements and sets up both lens planes.

@@ -11,6 +11,7 @@ pub mod depth_of_field;
 pub mod error;
 pub mod gaze;
 pub mod lens;
+pub mod limits;
 pub mod magnification;
 pub mod prescription;
 pub mod pupil;

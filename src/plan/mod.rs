@@ -245,7 +245,7 @@ fn unserved(ctx: &Context, options: &[OptionPlan]) -> Vec<UnservedTask> {
 }
 
 /// The strongest addition any lens in the catalogue makes, in dioptres.
-const STRONGEST_MADE_D: f64 = 4.0;
+const STRONGEST_MADE_D: f64 = crate::core::lens::SINGLE_VISION_ADDITION_GRID.last;
 
 /// What would serve task `i` (context `tc`), seen as `seen` through the
 /// option that came closest.

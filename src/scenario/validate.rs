@@ -6,6 +6,7 @@
 use super::model::*;
 use crate::core::bounds::{unit_suffix, Bounds, RangeFault};
 use crate::core::lens::MIN_LENS_ABOVE_FITTING_MM;
+use crate::core::limits::*;
 use crate::core::vergence::MAX_VERTEX_TIMES_POWER;
 use std::fmt;
 
@@ -97,41 +98,6 @@ pub const MAX_OPTIONS: usize = 12;
 /// The longest name or label, in characters.
 pub const MAX_NAME_CHARS: usize = 120;
 
-/// Age range the amplitude models are applied over, in years.
-const AGE: Bounds = Bounds::new(5.0, 100.0, "years");
-const AMPLITUDE: Bounds = Bounds::new(0.0, 25.0, "D");
-const SPHERE: Bounds = Bounds::new(-30.0, 30.0, "D");
-const CYLINDER: Bounds = Bounds::new(-10.0, 10.0, "D");
-const AXIS: Bounds = Bounds::new(0.0, 180.0, "°");
-const ADDITION: Bounds = Bounds::new(0.0, 4.0, "D");
-const VERTEX: Bounds = Bounds::new(0.0, 25.0, "mm");
-const PD: Bounds = Bounds::new(20.0, 45.0, "mm");
-const FITTING_HEIGHT: Bounds = Bounds::new(8.0, 45.0, "mm");
-const LENS_HEIGHT: Bounds = Bounds::new(15.0, 70.0, "mm");
-const TILT: Bounds = Bounds::new(-5.0, 25.0, "°");
-const PUPIL: Bounds = Bounds::new(1.0, 9.0, "mm");
-const LUMINANCE: Bounds = Bounds::new(0.001, 100_000.0, "cd/m²");
-const USABLE_FRACTION: Bounds = Bounds::new(0.2, 1.0, "");
-const HALF_DEPTH: Bounds = Bounds::new(0.05, 1.5, "D");
-const DISTANCE: Bounds = Bounds::new(0.1, 1000.0, "m");
-const GAZE_ANGLE: Bounds = Bounds::new(-80.0, 80.0, "°");
-const HEIGHT: Bounds = Bounds::new(-5.0, 5.0, "m");
-const SIDEWAYS: Bounds = Bounds::new(-20.0, 20.0, "m");
-const WIDTH: Bounds = Bounds::new(0.0, 20.0, "m");
-const DETAIL: Bounds = Bounds::new(0.01, 1000.0, "mm");
-const HOURS: Bounds = Bounds::new(0.0, 24.0, "h");
-const SEGMENT_TOP: Bounds = Bounds::new(-20.0, 5.0, "mm");
-const INTERMEDIATE_RATIO: Bounds = Bounds::new(0.3, 0.8, "");
-const PROGRESSION: Bounds = Bounds::new(10.0, 24.0, "mm");
-const NEAR_ADDITION: Bounds = Bounds::new(0.5, 4.0, "D");
-const DEGRESSION: Bounds = Bounds::new(0.5, 2.5, "D");
-const UPPER_BOTTOM: Bounds = Bounds::new(3.0, 25.0, "mm");
-/// Prescribed prism per component and eye (ground-in prisms rarely exceed
-/// 10 Δ; a product choice leaving room for unusual prescriptions).
-const PRISM: Bounds = Bounds::new(0.0, 20.0, "Δ");
-/// Driving acuity standards in use lie between 0.1 and 1.0 decimal.
-const DRIVING_ACUITY: Bounds = Bounds::new(0.1, 1.0, "");
-const IMBALANCE_LIMIT: Bounds = Bounds::new(0.25, 5.0, "Δ");
 /// The largest difference between the eyes' spherical equivalents accepted,
 /// in dioptres. Anisometropia beyond about 20 D (a unilateral aphakic eye
 /// beside a high myope) is exceedingly rare, while a sign typed wrongly is
@@ -370,7 +336,7 @@ impl Checker {
                 self.optional(
                     &p("progression_length_mm"),
                     progression_length_mm,
-                    &PROGRESSION,
+                    &PROGRESSION_LENGTH,
                 );
             }
             FamilyChoice::Degressive {

@@ -66,7 +66,7 @@ pub const ADDITION_GRID: Grid = Grid {
 /// lenses are made well beyond it; common practice).
 pub const SINGLE_VISION_ADDITION_GRID: Grid = Grid {
     first: 0.0,
-    last: 4.0,
+    last: crate::core::limits::ADDITION.max,
     step: 0.25,
 };
 

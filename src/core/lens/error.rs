@@ -130,6 +130,11 @@ impl NamedBounds {
         }
     }
 
+    /// The range `bounds` of the parameter called `parameter`.
+    pub(crate) const fn of(parameter: &'static str, bounds: Bounds) -> NamedBounds {
+        NamedBounds { parameter, bounds }
+    }
+
     /// Checks that `value` is finite and within `[min, max]`.
     pub(crate) fn check(&self, value: f64) -> Result<f64, LensError> {
         let Bounds { min, max, unit } = self.bounds;

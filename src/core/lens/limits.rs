@@ -1,32 +1,36 @@
-//! The ranges of design parameters the lens models accept. They match the
-//! ranges the scenario gate allows, so a checked scenario builds a design;
-//! the narrower grids of what is usually made live in `catalogue`.
+//! The ranges of design parameters the lens models accept, named for their
+//! messages: the scenario gate's own ranges from [`crate::core::limits`], so
+//! a checked scenario builds a design, and the model-only ranges (band
+//! height, corridor inset). The narrower grids of what is usually made live
+//! in `catalogue`.
 
 use super::error::NamedBounds;
+use crate::core::limits;
 
 /// Any addition over the distance power, in dioptres.
-pub(crate) const ADDITION: NamedBounds = NamedBounds::new("addition", 0.0, 4.0, "D");
+pub(crate) const ADDITION: NamedBounds = NamedBounds::of("addition", limits::ADDITION);
 
 /// Near addition of a degressive lens, in dioptres.
-pub(crate) const NEAR_ADDITION: NamedBounds = NamedBounds::new("near addition", 0.5, 4.0, "D");
+pub(crate) const NEAR_ADDITION: NamedBounds =
+    NamedBounds::of("near addition", limits::NEAR_ADDITION);
 
 /// Degression of a degressive lens, in dioptres.
-pub(crate) const DEGRESSION: NamedBounds = NamedBounds::new("degression", 0.5, 2.5, "D");
+pub(crate) const DEGRESSION: NamedBounds = NamedBounds::of("degression", limits::DEGRESSION);
 
 /// Progression length, fitting point to near reference point, in millimetres.
 pub(crate) const PROGRESSION_LENGTH: NamedBounds =
-    NamedBounds::new("progression length", 10.0, 24.0, "mm");
+    NamedBounds::of("progression length", limits::PROGRESSION_LENGTH);
 
 /// Segment top relative to the fitting point, in millimetres.
-pub(crate) const SEGMENT_TOP: NamedBounds = NamedBounds::new("segment top", -20.0, 5.0, "mm");
+pub(crate) const SEGMENT_TOP: NamedBounds = NamedBounds::of("segment top", limits::SEGMENT_TOP);
 
 /// Bottom edge of an upper segment relative to the fitting point, in millimetres.
 pub(crate) const UPPER_BOTTOM: NamedBounds =
-    NamedBounds::new("upper segment bottom", 3.0, 25.0, "mm");
+    NamedBounds::of("upper segment bottom", limits::UPPER_BOTTOM);
 
 /// Trifocal intermediate power as a share of the near addition.
 pub(crate) const INTERMEDIATE_RATIO: NamedBounds =
-    NamedBounds::new("intermediate ratio", 0.3, 0.8, "");
+    NamedBounds::of("intermediate ratio", limits::INTERMEDIATE_RATIO);
 
 /// Height of a trifocal intermediate band, in millimetres.
 pub(crate) const BAND_HEIGHT: NamedBounds =

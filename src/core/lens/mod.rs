@@ -161,7 +161,8 @@ impl VerticalExtent {
         fitting_height: Millimetres,
         lens_height: Millimetres,
     ) -> Result<VerticalExtent, LensError> {
-        let lens_height = NamedBounds::new("lens height", 15.0, 70.0, "mm").check(lens_height.0)?;
+        let lens_height = NamedBounds::of("lens height", crate::core::limits::LENS_HEIGHT)
+            .check(lens_height.0)?;
         let fitting_height = NamedBounds::new(
             "fitting height",
             1.0,
