@@ -267,3 +267,56 @@ fn a_high_monitor_through_a_progressive_is_graded_and_cautioned() {
         "some raised monitor needs more than 15° of chin lift"
     );
 }
+
+#[test]
+fn age_norms_describe_eyes_and_lenses_act_on_the_demand() {
+    // Three wearers of 45 (Hofstetter minimum 3.75 D), distance single vision
+    // at 12 mm, a book 40 cm from the spectacle plane (L = -2.50 D). Worked
+    // by hand from the vergence relations (Bennett & Rabbetts, Clinical
+    // Visual Optics): K = F / (1 - vF); L' = L + F; L'e = L' / (1 - vL');
+    // A = K - L'e.
+    //   -10.00 D: K = -8.9286, L' = -12.50, L'e = -10.8696, A = 1.9410 D
+    //    plano:   K = 0,       L' = -2.50,  L'e = -2.4272,  A = 2.4272 D
+    //   +8.00 D:  K = 8.8496,  L' = +5.50,  L'e = 5.8887,   A = 2.9609 D
+    // The same eyes in contact lenses, with the book read through a plano
+    // over-pair at 12 mm, all need the plano figure. The amplitude, an eye's
+    // own, is the same for all.
+    let cases = [
+        (-10.0, Some(12.0), 1.9410),
+        (0.0, Some(12.0), 2.4272),
+        (8.0, Some(12.0), 2.9609),
+        (-10.0, None, 2.4272),
+        (8.0, None, 2.4272),
+    ];
+    let mut amplitudes = Vec::new();
+    for (sphere, vertex, expected) in cases {
+        let (mut w, settings) = presbyope(45.0, AdditionRounding::Up);
+        w.right = rx(sphere);
+        w.left = rx(sphere);
+        w.correction = vertex.map_or(Correction::ContactLenses, |v| Correction::Spectacles {
+            vertex_mm: v,
+        });
+        let p = plan_with(
+            w,
+            settings,
+            vec![task("book", 0.4, -25.0, 2.0)],
+            vec![option(
+                "distance",
+                FamilyChoice::SingleVision {
+                    addition_d: Some(0.0),
+                },
+            )],
+        );
+        close(
+            p.options[0].tasks[0].accommodation.0,
+            expected,
+            1e-4,
+            &format!("{sphere} D, vertex {vertex:?}"),
+        );
+        amplitudes.push(p.amplitude.ocular.0);
+    }
+    assert!(
+        amplitudes.windows(2).all(|a| (a[0] - a[1]).abs() < 1e-12),
+        "the age norm does not depend on the lenses: {amplitudes:?}"
+    );
+}
