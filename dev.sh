@@ -5,6 +5,8 @@
 #   ./dev.sh test    formatting, clippy (native and wasm32), native tests,
 #                    the release wasm build and the browser journeys
 #   ./dev.sh size    print the release wasm size, raw and gzip-compressed
+#   ./dev.sh measure build, then print the browser figures (download, edit,
+#                    first plan) measured in headless Chromium
 #   ./dev.sh bench   run the native benchmarks
 set -euo pipefail
 cd "$(dirname "$0")"
@@ -96,11 +98,19 @@ case "${1:-}" in
     build_app
     wasm_size
     ;;
+  measure)
+    ensure_rust_tools
+    ensure_node_tools
+    ensure_chromium
+    build_app
+    wasm_size
+    (cd "$BROWSER_DIR" && npm run measure)
+    ;;
   bench)
     cargo bench
     ;;
   *)
-    echo "usage: ./dev.sh serve | test | size | bench" >&2
+    echo "usage: ./dev.sh serve | test | size | measure | bench" >&2
     exit 2
     ;;
 esac
