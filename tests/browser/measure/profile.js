@@ -1,0 +1,75 @@
+// A CPU profile of distance edits on a 20-task day, in headless Chromium
+// through the DevTools protocol: where the main thread spends the time of
+// an edit, summed by function (self time) and printed as the top entries.
+// A measurement, not a test. Run with `npm run profile` after a release
+// build; wasm functions show their names when the build keeps them.
+import { readFile } from "node:fs/promises";
+import { join, resolve } from "node:path";
+import { serveDist, launchBrowser, watchedPage } from "../support/harness.js";
+import { PlannerPage, VIEWPORTS } from "../support/planner-page.js";
+
+const ROOT = resolve(import.meta.dirname, "../../..");
+const TASKS = 20;
+const EDITS = 40;
+const NAME = "Fictional twenty-task day";
+
+async function twentyTaskFile() {
+  const demo = JSON.parse(await readFile(join(ROOT, "scenarios", "office-two-monitors.json"), "utf8"));
+  const item = structuredClone(demo.scenarios[0]);
+  const pattern = item.scenario.tasks;
+  item.scenario.name = NAME;
+  item.note = "Fictional: generated for the profile.";
+  item.scenario.tasks = Array.from({ length: TASKS }, (_, i) => ({
+    ...structuredClone(pattern[i % pattern.length]),
+    name: `Task ${i + 1}`,
+    hours_per_day: 0.4,
+  }));
+  return JSON.stringify({ ...demo, scenarios: [item] });
+}
+
+const server = await serveDist();
+const browser = await launchBrowser();
+try {
+  const context = await browser.newContext({ viewport: VIEWPORTS.desktop });
+  const page = await watchedPage(context, server.url);
+  const planner = new PlannerPage(page, server.url);
+  await planner.open();
+  await planner.importFile("twenty-tasks.json", await twentyTaskFile());
+  await page.waitForFunction(
+    (name) => document.querySelector('[data-testid="scenario-title"]')?.textContent.trim() === name,
+    NAME,
+  );
+  const cdp = await context.newCDPSession(page);
+  await cdp.send("Profiler.enable");
+  await cdp.send("Profiler.setSamplingInterval", { interval: 100 });
+  await cdp.send("Profiler.start");
+  for (let i = 0; i < EDITS; i += 1) {
+    await page.evaluate(
+      async ({ index, cm }) => {
+        const input = document.querySelector(`[data-testid="tasks-${index}--distance_m"]`);
+        input.value = String(cm);
+        input.dispatchEvent(new Event("input", { bubbles: true }));
+        await new Promise((done) => requestAnimationFrame(() => requestAnimationFrame(done)));
+      },
+      { index: (i * 7) % TASKS, cm: 40 + (i % 30) },
+    );
+  }
+  const { profile } = await cdp.send("Profiler.stop");
+  const byId = new Map(profile.nodes.map((n) => [n.id, n]));
+  const self = new Map();
+  const dt = profile.timeDeltas;
+  profile.samples.forEach((id, k) => {
+    const node = byId.get(id);
+    const f = node.callFrame;
+    const key = `${f.functionName || "(anonymous)"} ${f.url ? f.url.split("/").pop() : ""}`.trim();
+    self.set(key, (self.get(key) ?? 0) + (dt[k] ?? 0) / 1000);
+  });
+  const total = [...self.values()].reduce((a, b) => a + b, 0);
+  const top = [...self.entries()].filter(([k]) => k !== "(idle)").sort((a, b) => b[1] - a[1]).slice(0, 25);
+  console.log(`${EDITS} edits, ${total.toFixed(0)} ms sampled; self time by function:`);
+  for (const [k, ms] of top) console.log(`  ${(ms / EDITS).toFixed(2).padStart(7)} ms/edit  ${k}`);
+  await context.close();
+} finally {
+  await browser.close();
+  await server.close();
+}
