@@ -117,6 +117,7 @@ fn scenario() -> ValidScenario {
                 },
             ),
         ],
+        chosen_option: None,
     };
     match validate(s) {
         Ok(v) => v,

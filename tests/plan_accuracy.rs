@@ -320,3 +320,50 @@ fn age_norms_describe_eyes_and_lenses_act_on_the_demand() {
         "the age norm does not depend on the lenses: {amplitudes:?}"
     );
 }
+
+#[test]
+fn the_order_follows_the_dispensers_choice_and_says_how_it_differs() {
+    let (w, settings) = presbyope(55.0, AdditionRounding::Up);
+    let day = vec![
+        task("monitor", 0.65, -15.0, 5.0),
+        task("papers", 0.4, -35.0, 2.0),
+    ];
+    let options = vec![
+        option(
+            "progressive",
+            FamilyChoice::Progressive {
+                addition_d: None,
+                progression_length_mm: None,
+            },
+        ),
+        option(
+            "distance only",
+            FamilyChoice::SingleVision {
+                addition_d: Some(0.0),
+            },
+        ),
+    ];
+    let mut s = Scenario {
+        name: "choice".to_string(),
+        settings,
+        wearer: w,
+        tasks: day,
+        options,
+        chosen_option: None,
+    };
+    let recommended = plan(&validate(s.clone()).expect("valid")).expect("plans");
+    let first = recommended.options[0].option.clone();
+    assert_eq!(recommended.order.as_ref().map(|o| &o.option), Some(&first));
+    // Choosing the option ranked second writes the order for it and says
+    // what the recommendation would have given.
+    let other = recommended.options[1].option.clone();
+    s.chosen_option = Some(other.index);
+    let chosen = plan(&validate(s).expect("valid")).expect("plans");
+    let choice = chosen.choice.expect("options exist");
+    assert_eq!(choice.chosen, other);
+    assert_eq!(choice.recommended, first);
+    assert!(choice.by_dispenser);
+    let d = choice.difference.expect("they differ");
+    assert!(d.score_h >= 0.0);
+    assert_eq!(chosen.order.map(|o| o.option), Some(other));
+}

@@ -270,6 +270,7 @@ proptest! {
             wearer: w,
             tasks,
             options: all_families_open(),
+            chosen_option: None,
         };
         let checked = validate(s);
         prop_assume!(checked.is_ok(), "the generator aims inside the gate");

@@ -115,7 +115,11 @@ pub fn plan(scenario: &ValidScenario) -> Result<Plan, PlanError> {
     mark_near_ties(&mut options);
     let unserved = unserved(&ctx, &options);
     let cautions = cautions::cautions(s, &ctx, &options);
-    let order = options.first().map(|best| order_summary(s, &ctx, best));
+    let choice = choice_of(s.chosen_option, &options);
+    let order = choice
+        .as_ref()
+        .and_then(|c| options.iter().find(|o| o.option == c.chosen))
+        .map(|chosen| order_summary(s, &ctx, chosen));
     Ok(Plan {
         scenario_name: s.name.clone(),
         amplitude: ctx.amplitude,
@@ -127,7 +131,29 @@ pub fn plan(scenario: &ValidScenario) -> Result<Plan, PlanError> {
         options,
         unserved,
         cautions,
+        choice,
         order,
+    })
+}
+
+/// The option the order is written for: the dispenser's `chosen` (an input
+/// index), else the best-ranked; with how the recommendation compares.
+fn choice_of(chosen: Option<usize>, ranked: &[OptionPlan]) -> Option<Choice> {
+    let recommended = ranked.first()?;
+    let picked = chosen
+        .and_then(|i| ranked.iter().find(|o| o.option.index == i))
+        .unwrap_or(recommended);
+    let difference = (picked.option != recommended.option).then(|| ChoiceDifference {
+        score_h: recommended.score.total - picked.score.total,
+        recommended_comfortable_h: recommended.score.comfortable_hours,
+        chosen_comfortable_h: picked.score.comfortable_hours,
+        chosen_unfit_for_driving: picked.driving.as_ref().is_some_and(|d| !d.is_fit()),
+    });
+    Some(Choice {
+        chosen: picked.option.clone(),
+        recommended: recommended.option.clone(),
+        by_dispenser: chosen.is_some(),
+        difference,
     })
 }
 
@@ -279,7 +305,7 @@ fn remedies(ctx: &Context, i: usize, tc: &TaskContext, seen: &TaskPlan) -> Vec<R
     out
 }
 
-/// The order for the best-ranked option.
+/// The order for the chosen option.
 fn order_summary(s: &crate::scenario::Scenario, ctx: &Context, best: &OptionPlan) -> OrderSummary {
     let w = &s.wearer;
     let (addition, degression) = match best.design {

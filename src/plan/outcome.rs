@@ -43,8 +43,61 @@ pub struct Plan {
     pub unserved: Vec<UnservedTask>,
     /// Warnings drawn from the scenario, most important first.
     pub cautions: Vec<Caution>,
-    /// What to order for the best-ranked option; `None` when there are no options.
+    /// Which option the order is written for, and how it stands against the
+    /// planner's recommendation; `None` when there are no options.
+    pub choice: Option<Choice>,
+    /// What to order for the chosen option (the best-ranked unless the
+    /// dispenser chose another); `None` when there are no options.
     pub order: Option<OrderSummary>,
+}
+
+/// The dispenser's choice beside the planner's recommendation.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Choice {
+    /// The option the order is written for.
+    pub chosen: OptionRef,
+    /// The planner's recommendation (the best-ranked option).
+    pub recommended: OptionRef,
+    /// Whether the dispenser chose it (rather than following the recommendation).
+    pub by_dispenser: bool,
+    /// How the recommendation scores against the chosen option, when they differ.
+    pub difference: Option<ChoiceDifference>,
+}
+
+/// How the recommended option scores against a different chosen one.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+pub struct ChoiceDifference {
+    /// Recommended minus chosen score, in hours of the working day.
+    pub score_h: f64,
+    /// Comfortable hours of the recommended option.
+    pub recommended_comfortable_h: f64,
+    /// Comfortable hours of the chosen option.
+    pub chosen_comfortable_h: f64,
+    /// The chosen option is not fit for driving on a day that includes driving.
+    pub chosen_unfit_for_driving: bool,
+}
+
+impl fmt::Display for Choice {
+    /// "Chosen by the dispenser; the planner recommends "X": ..." or nothing to add.
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        let Some(d) = self.difference else {
+            return if self.by_dispenser {
+                f.write_str("chosen by the dispenser, as the planner recommends")
+            } else {
+                f.write_str("the planner's recommendation")
+            };
+        };
+        write!(
+            f,
+            "chosen by the dispenser; the planner recommends \"{}\", which scores {:.2} h a \
+             day more (comfortable {:.1} h against {:.1} h)",
+            self.recommended.label, d.score_h, d.recommended_comfortable_h, d.chosen_comfortable_h
+        )?;
+        if d.chosen_unfit_for_driving {
+            write!(f, "; \"{}\" is not fit for driving", self.chosen.label)?;
+        }
+        Ok(())
+    }
 }
 
 /// A reference to one task: its input index and its name, so a message can

@@ -187,9 +187,12 @@ pub fn render(plan: &Plan) -> String {
     if let Some(o) = &plan.order {
         let _ = writeln!(
             out,
-            "\nOrder for \"{}\" ({}):",
+            "\nOrder for \"{}\" ({}){}:",
             o.option.label,
-            family_name(&o.design)
+            family_name(&o.design),
+            plan.choice
+                .as_ref()
+                .map_or(String::new(), |c| format!(", {c}"))
         );
         for line in order_lines(o) {
             let _ = writeln!(out, "   {line}");

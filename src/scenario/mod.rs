@@ -3,6 +3,7 @@
 
 mod convert;
 mod defaults;
+mod edit;
 mod model;
 mod validate;
 

@@ -21,6 +21,11 @@ pub struct Scenario {
     pub tasks: Vec<Task>,
     /// The lens options to compare.
     pub options: Vec<LensOption>,
+    /// The option the dispenser chose (its position in `options`); `None`
+    /// follows the planner's recommendation. The order and the printed
+    /// sheet are written for it.
+    #[serde(default)]
+    pub chosen_option: Option<usize>,
 }
 
 /// Limits a plan is judged against that local rules or the practitioner may

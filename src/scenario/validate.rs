@@ -413,6 +413,15 @@ pub fn validate(scenario: Scenario) -> Result<ValidScenario, Vec<FieldError>> {
     for (i, o) in scenario.options.iter().enumerate() {
         c.option(i, o);
     }
+    if scenario
+        .chosen_option
+        .is_some_and(|i| i >= scenario.options.len())
+    {
+        c.fail(
+            "chosen_option",
+            Problem::Inconsistent("names a lens option the scenario does not have"),
+        );
+    }
     if c.errors.is_empty() {
         Ok(ValidScenario(scenario))
     } else {

@@ -236,13 +236,7 @@ fn option_card(i: usize) -> impl IntoView {
             }
         })
     });
-    let remove = move |_| {
-        state.reshape(|s| {
-            if i < s.options.len() {
-                s.options.remove(i);
-            }
-        })
-    };
+    let remove = move |_| state.reshape(|s| s.remove_option(i));
     view! {
         <li class="option-card" data-testid="option-card">
             <div class="task-head">

@@ -20,8 +20,6 @@ pub struct AppState {
     pub checked: Memo<Result<ValidScenario, Vec<FieldError>>>,
     /// The plan on screen, re-planned on every edit.
     pub outcome: Memo<Outcome>,
-    /// The lens option shown in the lens map (input index); `None`: the best ranked.
-    pub chosen_option: RwSignal<Option<usize>>,
     /// The task whose numbers are shown in detail (input index).
     pub chosen_task: RwSignal<Option<usize>>,
     /// Counts the times what the fields show was replaced from elsewhere
@@ -78,7 +76,6 @@ impl AppState {
             unit: RwSignal::new(opening.unit),
             checked,
             outcome,
-            chosen_option: RwSignal::new(None),
             chosen_task: RwSignal::new(None),
             era: RwSignal::new(0),
             unparsed: RwSignal::new(BTreeSet::new()),
@@ -95,6 +92,18 @@ impl AppState {
                 .find(|e| e.path == path)
                 .map(|e| e.problem.clone()),
         })
+    }
+
+    /// The lens option the dispenser chose (input index), saved with the
+    /// scenario; `None` follows the planner's recommendation.
+    pub fn chosen_option(&self) -> Option<usize> {
+        self.scenario.with(|s| s.chosen_option)
+    }
+
+    /// Chooses the lens option at input index `index` for the order and the
+    /// printed sheet, and stores the scenario.
+    pub fn choose_option(&self, index: usize) {
+        self.edit(|s| s.chosen_option = Some(index));
     }
 
     /// Applies `edit` to the scenario being edited and stores the result.

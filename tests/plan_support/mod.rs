@@ -83,6 +83,7 @@ pub fn plan_with(
         wearer,
         tasks,
         options,
+        chosen_option: None,
     };
     let valid = validate(s).unwrap_or_else(|e| panic!("invalid test scenario: {e:?}"));
     plan(&valid).unwrap_or_else(|e| panic!("plan failed: {e}"))

@@ -114,11 +114,10 @@ fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
 pub fn LensMap() -> impl IntoView {
     let state = use_app_state();
     let chosen = Memo::new(move |_| {
-        let wanted = state.chosen_option.get();
         state.outcome.with(|o| {
             o.plan
                 .as_ref()
-                .and_then(|p| super::shown_option(p, wanted).cloned())
+                .and_then(|p| super::shown_option(p).cloned())
         })
     });
     let geometry = Memo::new(move |_| {

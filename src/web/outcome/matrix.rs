@@ -37,12 +37,12 @@ pub fn comparison(plan: &Plan) -> impl IntoView {
             let index = o.option.index;
             let label = o.option.label.clone();
             let pressed = move || {
-                let chosen = state.chosen_option.get();
+                let chosen = state.chosen_option();
                 if chosen == Some(index) { "true" } else { "false" }
             };
             view! {
                 <th scope="col">
-                    <button type="button" class="option-head" aria-pressed=pressed on:click=move |_| state.chosen_option.set(Some(index))>
+                    <button type="button" class="option-head" aria-pressed=pressed on:click=move |_| state.choose_option(index)>
                         <span class="rank">{format!("#{}", o.rank)}</span>
                         <span>{label}</span>
                     </button>

@@ -125,12 +125,27 @@ fn task_detail(plan: &Plan, t: usize) -> impl IntoView {
     .into_any()
 }
 
-/// The option the charts show: the one chosen in the comparison (its input
-/// index), or the best-ranked.
-fn shown_option(plan: &Plan, chosen: Option<usize>) -> Option<&OptionPlan> {
+/// The option the charts, the lens map and the order show: the plan's
+/// chosen option (the dispenser's choice, else the recommendation).
+fn shown_option(plan: &Plan) -> Option<&OptionPlan> {
+    let chosen = plan.choice.as_ref().map(|c| &c.chosen);
     chosen
-        .and_then(|i| plan.options.iter().find(|o| o.option.index == i))
+        .and_then(|c| plan.options.iter().find(|o| &o.option == c))
         .or_else(|| plan.options.first())
+}
+
+/// The dispenser's choice when it differs from the recommendation, and why
+/// the planner ranks another option first.
+fn chosen_note(plan: &Plan) -> Option<impl IntoView> {
+    let choice = plan.choice.as_ref()?;
+    choice.by_dispenser.then(|| {
+        view! {
+            <p class="chosen-note" data-testid="chosen-note">
+                <strong>{format!("Chosen: {}", choice.chosen.label)}</strong>
+                {format!(" — {choice}.")}
+            </p>
+        }
+    })
 }
 
 /// The outcome panel.
@@ -160,6 +175,7 @@ pub fn OutcomePanel() -> impl IntoView {
             <div class="plan" class:is-stale=stale data-testid="plan">
                 {cautions(&plan)}
                 {plan.options.first().map(recommendation)}
+                {chosen_note(&plan)}
                 {unserved(&plan)}
                 <p class="detail">
                     {amplitude_line(&plan.amplitude)}" · "{refraction_line(&plan.refraction)}" · "
@@ -167,8 +183,7 @@ pub fn OutcomePanel() -> impl IntoView {
                 </p>
                 {matrix::comparison(&plan)}
                 {detail}
-                {shown_option(&plan, state.chosen_option.get())
-                    .map(|o| range_chart::range_chart(&plan, o))}
+                {shown_option(&plan).map(|o| range_chart::range_chart(&plan, o))}
             </div>
         }
         .into_any()
