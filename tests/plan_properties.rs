@@ -15,7 +15,9 @@ use plan_support::*;
 use proptest::prelude::*;
 
 /// JSON keys whose value may be null because the field is an `Option`.
-const OPTIONAL_KEYS: [&str; 21] = [
+const OPTIONAL_KEYS: [&str; 23] = [
+    "choice",
+    "difference",
     "near_tie",
     "prescribed_addition",
     "segment_top_height",
