@@ -1,9 +1,11 @@
 //! The comparison table: one row per task, one column per lens option (best
 //! first), each cell the verdict with its symbol, the local addition and any
-//! head posture or head turn the task forces.
+//! head posture or head turn the task forces; below, what each option's
+//! score is made of, its fitness for driving, and when two options are
+//! practically equal. Choosing an option's heading writes the order for it.
 
 use super::marks::verdict_mark;
-use crate::plan::{OptionPlan, Plan};
+use crate::plan::{DrivingFitness, OptionPlan, Plan};
 use crate::web::state::use_app_state;
 use leptos::prelude::*;
 
@@ -27,6 +29,49 @@ fn cell(o: &OptionPlan, t: usize) -> impl IntoView {
     .into_any()
 }
 
+/// The rows under the table: what each option's score is made of.
+fn breakdown(plan: &Plan) -> impl IntoView {
+    let row = |label: &'static str, value: fn(&OptionPlan) -> String| {
+        let cells = plan
+            .options
+            .iter()
+            .map(|o| view! { <td class="detail">{value(o)}</td> })
+            .collect_view();
+        view! {
+            <tr>
+                <th scope="row">{label}</th>
+                {cells}
+            </tr>
+        }
+    };
+    view! {
+        <tfoot>
+            {row("Score (weighted hours a day)", |o| format!("{:.2} h", o.score.total))}
+            {row("Comfortable, tiring, blurred", |o| {
+                format!(
+                    "{:.1} h, {:.1} h, {:.1} h",
+                    o.score.comfortable_hours, o.score.tiring_hours, o.score.blurred_hours
+                )
+            })}
+            {row("Deducted: posture, prism, missing power, addition", |o| {
+                format!(
+                    "{:.2} h, {:.2} h, {:.2} h, {:.2} h",
+                    o.score.posture_penalty,
+                    o.score.prism_penalty,
+                    o.score.gap_penalty,
+                    o.score.addition_penalty
+                )
+            })}
+            {row("Driving", |o| match &o.driving {
+                None => "no driving task".to_string(),
+                Some(DrivingFitness::Fit) => "fit for driving".to_string(),
+                Some(DrivingFitness::Unfit { .. }) => "not for driving".to_string(),
+            })}
+            {row("Note", |o| o.near_tie.as_ref().map_or(String::new(), ToString::to_string))}
+        </tfoot>
+    }
+}
+
 /// The comparison table for `plan`.
 pub fn comparison(plan: &Plan) -> impl IntoView {
     let state = use_app_state();
@@ -43,7 +88,9 @@ pub fn comparison(plan: &Plan) -> impl IntoView {
             view! {
                 <th scope="col">
                     <button type="button" class="option-head" aria-pressed=pressed on:click=move |_| state.choose_option(index)>
-                        <span class="rank">{format!("#{}", o.rank)}</span>
+                        <span class="rank">
+                            {if o.rank == 1 { "#1 recommended".to_string() } else { format!("#{}", o.rank) }}
+                        </span>
                         <span>{label}</span>
                     </button>
                     <span class="score">{format!("{:.1} h comfortable", o.score.comfortable_hours)}</span>
@@ -75,7 +122,7 @@ pub fn comparison(plan: &Plan) -> impl IntoView {
         <h3 class="comparison-heading">"Comparison"</h3>
         <div class="table-scroll comparison-block">
             <table class="comparison" data-testid="comparison">
-                <caption>"Each task through each lens option (best first). Choose an option to draw its lens."</caption>
+                <caption>"Each task through each lens option (best first). Choose an option to write the order for it and draw its lens."</caption>
                 <thead>
                     <tr>
                         <th scope="col">"Task"</th>
@@ -83,6 +130,7 @@ pub fn comparison(plan: &Plan) -> impl IntoView {
                     </tr>
                 </thead>
                 <tbody>{rows}</tbody>
+                {breakdown(plan)}
             </table>
         </div>
     }

@@ -1,6 +1,8 @@
-//! The order sheet: the parameters a lab order needs for the recommended
-//! option, the tasks it was planned for and the cautions. On screen it is a
-//! summary; printed, it is the one-page plan sheet.
+//! The order sheet: the parameters a lab order needs for the chosen option,
+//! the wearer's age and prescription, each task with its distance, zone and
+//! verdict through that option, the date and a line for the practitioner's
+//! signature. On screen it is a summary; printed, it is the one-page plan
+//! sheet (the cautions print above it).
 
 use crate::plan::text::{family_name, order_lines};
 use crate::plan::Plan;
@@ -21,31 +23,77 @@ pub fn order_sheet(plan: &Plan) -> impl IntoView {
         }
     });
     let unit = state.unit.get();
+    let chosen = plan
+        .order
+        .as_ref()
+        .and_then(|o| plan.options.iter().find(|p| p.option == o.option));
     let tasks = plan
         .tasks
         .iter()
         .map(|t| {
+            let through =
+                chosen.and_then(|o| o.tasks.iter().find(|tp| tp.task.index == t.task.index));
             view! {
-                <li>
-                    {format!(
-                        "{}: {} {} at {:+.0}°, {:.1} h a day",
-                        t.task.name,
-                        crate::display::trim_number(unit.from_metres(t.distance), 0),
-                        unit.symbol(),
-                        t.gaze_elevation.0,
-                        t.hours_per_day
-                    )}
-                </li>
+                <tr>
+                    <td>{format!("{}. {}", t.task.index + 1, t.task.name)}</td>
+                    <td>
+                        {format!(
+                            "{} {}",
+                            crate::display::trim_number(unit.from_metres(t.distance), 0),
+                            unit.symbol()
+                        )}
+                    </td>
+                    <td>{through.map(|tp| tp.zone.to_string()).unwrap_or_default()}</td>
+                    <td>{through.map(|tp| tp.verdict.to_string()).unwrap_or_default()}</td>
+                    <td>{format!("{:.1} h", t.hours_per_day)}</td>
+                </tr>
             }
         })
         .collect_view();
+    let wearer = state.scenario.with(|s| {
+        let w = &s.wearer;
+        let eye = |rx: &crate::scenario::Prescription| {
+            format!(
+                "{} / {} x {:.0}",
+                crate::core::units::Dioptres(rx.sphere_d).signed(),
+                crate::core::units::Dioptres(rx.cylinder_d).signed(),
+                rx.axis_deg
+            )
+        };
+        format!(
+            "Wearer: {:.0} years; distance prescription R {} L {}{}",
+            w.age_years,
+            eye(&w.right),
+            eye(&w.left),
+            w.prescribed_addition_d.map_or(String::new(), |a| format!(
+                ", addition {}",
+                crate::core::units::Dioptres(a).signed()
+            ))
+        )
+    });
+    let date = String::from(
+        js_sys::Date::new_0().to_locale_date_string("en-GB", &wasm_bindgen::JsValue::UNDEFINED),
+    );
     view! {
         <section class="order-sheet" aria-labelledby="order-heading" data-testid="order-sheet">
             <h3 id="order-heading">"Order sheet"</h3>
             <p class="print-only">{format!("clearspan plan sheet: {}", plan.scenario_name)}</p>
+            <p class="detail">{format!("{wearer} · {date}")}</p>
             {order}
             <h4>"Tasks planned for"</h4>
-            <ol class="plain">{tasks}</ol>
+            <table class="sheet-tasks">
+                <thead>
+                    <tr>
+                        <th scope="col">"Task"</th>
+                        <th scope="col">"Distance"</th>
+                        <th scope="col">"Zone"</th>
+                        <th scope="col">"Verdict"</th>
+                        <th scope="col">"Time"</th>
+                    </tr>
+                </thead>
+                <tbody>{tasks}</tbody>
+            </table>
+            <p class="signature print-only">"Checked and confirmed by a licensed eye-care practitioner: name, signature, date ______________________________"</p>
             <button type="button" class="no-print" on:click=move |_| {
                 if let Some(w) = web_sys::window() {
                     let _ = w.print();
