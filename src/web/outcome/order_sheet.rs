@@ -35,17 +35,18 @@ pub fn order_sheet(plan: &Plan) -> impl IntoView {
                 chosen.and_then(|o| o.tasks.iter().find(|tp| tp.task.index == t.task.index));
             view! {
                 <tr>
-                    <td>{format!("{}. {}", t.task.index + 1, t.task.name)}</td>
                     <td>
                         {format!(
-                            "{} {}",
+                            "{}: {} {} at {:+.0}°, {:.1} h a day",
+                            t.task.name,
                             crate::display::trim_number(unit.from_metres(t.distance), 0),
-                            unit.symbol()
+                            unit.symbol(),
+                            t.gaze_elevation.0,
+                            t.hours_per_day
                         )}
                     </td>
                     <td>{through.map(|tp| tp.zone.to_string()).unwrap_or_default()}</td>
                     <td>{through.map(|tp| tp.verdict.to_string()).unwrap_or_default()}</td>
-                    <td>{format!("{:.1} h", t.hours_per_day)}</td>
                 </tr>
             }
         })
@@ -84,16 +85,14 @@ pub fn order_sheet(plan: &Plan) -> impl IntoView {
             <table class="sheet-tasks">
                 <thead>
                     <tr>
-                        <th scope="col">"Task"</th>
-                        <th scope="col">"Distance"</th>
+                        <th scope="col">"Task: distance, gaze, time"</th>
                         <th scope="col">"Zone"</th>
                         <th scope="col">"Verdict"</th>
-                        <th scope="col">"Time"</th>
                     </tr>
                 </thead>
                 <tbody>{tasks}</tbody>
             </table>
-            <p class="signature print-only">"Checked and confirmed by a licensed eye-care practitioner: name, signature, date ______________________________"</p>
+            <p class="signature">"Checked and confirmed by a licensed eye-care practitioner: name, signature, date ______________________________"</p>
             <button type="button" class="no-print" on:click=move |_| {
                 if let Some(w) = web_sys::window() {
                     let _ = w.print();

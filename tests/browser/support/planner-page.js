@@ -100,9 +100,10 @@ export class PlannerPage {
     );
   }
 
-  /** The "Tasks planned for" lines of the order sheet. */
+  /** The task cell ("name: distance at gaze, hours") of each row of the order sheet's task table. */
   async orderSheetTasks() {
-    return (await this.byTestId("order-sheet").locator("ol.plain li").allTextContents()).map((t) => t.trim());
+    const cells = this.byTestId("order-sheet").locator("table.sheet-tasks tbody tr td:first-child");
+    return (await cells.allTextContents()).map((t) => t.trim());
   }
 
   /** The text of every notice shown. */
