@@ -131,7 +131,7 @@ fn amplitude_from_age_uses_hofstetter_minimum() {
     assert!(matches!(
         p.amplitude.source,
         AmplitudeSource::AgeModel {
-            model: AgeModelName::HofstetterMinimum,
+            model: AgeModel::HofstetterMinimum,
             ..
         }
     ));

@@ -19,7 +19,8 @@ use super::units::{Dioptres, Metres};
 use super::vergence::{CorrectedEye, MIN_OBJECT_DISTANCE_M};
 
 /// A published model of the amplitude of accommodation against age.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+#[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize)]
+#[serde(rename_all = "snake_case")]
 pub enum AgeModel {
     /// Hofstetter (1950), lower bound of the clinical norm: 15 - 0.25 x age.
     HofstetterMinimum,

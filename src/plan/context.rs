@@ -25,8 +25,8 @@
 
 use super::error::PlanError;
 use super::outcome::{
-    AgeModelName, AmplitudeSource, AmplitudeUsed, HalfDepthBasis, PupilOrigin, PupilUsed,
-    RefractionBasis, RefractionUsed, TaskContext, TaskRef, Verdict,
+    AmplitudeSource, AmplitudeUsed, HalfDepthBasis, PupilOrigin, PupilUsed, RefractionBasis,
+    RefractionUsed, TaskContext, TaskRef, Verdict,
 };
 use crate::core::accommodation::{ocular_from_spectacle, AgeModel, UsableShare};
 use crate::core::acuity::defocus_for_decimal_acuity;
@@ -468,7 +468,7 @@ fn amplitude_of(
             };
             (
                 AmplitudeSource::AgeModel {
-                    model: AgeModelName::HofstetterMinimum,
+                    model,
                     age_years: age,
                 },
                 a,
