@@ -126,16 +126,12 @@ fn the_prescribed_addition_is_shown_and_can_be_planned_from() {
     let (mut w, settings) = presbyope(55.0, AdditionRounding::Up);
     w.prescribed_addition_d = Some(2.0);
     let day = vec![task("monitor", 0.7, -15.0, 6.0)];
-    let progressive = || {
-        vec![option(
-            "progressive",
-            FamilyChoice::Progressive {
-                addition_d: None,
-                progression_length_mm: None,
-            },
-        )]
-    };
-    let p = plan_with(w.clone(), settings, day.clone(), progressive());
+    let p = plan_with(
+        w.clone(),
+        settings,
+        day.clone(),
+        vec![progressive(None, None)],
+    );
     let c = p.options[0]
         .prescribed_addition
         .expect("an addition was prescribed");
@@ -145,7 +141,7 @@ fn the_prescribed_addition_is_shown_and_can_be_planned_from() {
         use_prescribed_addition: true,
         ..settings
     };
-    let p = plan_with(w, fixed, day, progressive());
+    let p = plan_with(w, fixed, day, vec![progressive(None, None)]);
     let add = &p.options[0].parameters[0];
     assert_eq!(add.source, ParameterSource::FromPrescription);
     assert_eq!(
@@ -169,13 +165,7 @@ fn a_progression_length_always_fits_the_fitting_height() {
             task("monitor", 0.65, -10.0, 5.0),
             task("papers", 0.4, -35.0, 2.0),
         ],
-        vec![option(
-            "progressive",
-            FamilyChoice::Progressive {
-                addition_d: None,
-                progression_length_mm: None,
-            },
-        )],
+        vec![progressive(None, None)],
     );
     let order = p.order.expect("an option");
     let pl = order.progression_length.expect("a progressive").0;
@@ -235,13 +225,7 @@ fn a_high_monitor_through_a_progressive_is_graded_and_cautioned() {
             w,
             settings,
             vec![task("raised monitor", 0.6, gaze, 6.0)],
-            vec![option(
-                "progressive",
-                FamilyChoice::Progressive {
-                    addition_d: Some(2.5),
-                    progression_length_mm: Some(14.0),
-                },
-            )],
+            vec![progressive(Some(2.5), Some(14.0))],
         );
         let t = &p.options[0].tasks[0];
         if !t.posture.reachable {
@@ -329,13 +313,7 @@ fn the_order_follows_the_dispensers_choice_and_says_how_it_differs() {
         task("papers", 0.4, -35.0, 2.0),
     ];
     let options = vec![
-        option(
-            "progressive",
-            FamilyChoice::Progressive {
-                addition_d: None,
-                progression_length_mm: None,
-            },
-        ),
+        progressive(None, None),
         option(
             "distance only",
             FamilyChoice::SingleVision {

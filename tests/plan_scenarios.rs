@@ -179,13 +179,7 @@ fn a_progressive_wearer_lifts_the_chin_for_a_high_monitor() {
     let p = plan_of(
         w,
         vec![task("high monitor", 0.6, 2.0, 4.0)],
-        vec![option(
-            "progressive",
-            FamilyChoice::Progressive {
-                addition_d: Some(2.5),
-                progression_length_mm: Some(14.0),
-            },
-        )],
+        vec![progressive(Some(2.5), Some(14.0))],
     );
     let t = &p.options[0].tasks[0];
     assert_eq!(t.verdict, Verdict::Comfortable);
@@ -204,13 +198,7 @@ fn a_progressive_wearer_lifts_the_chin_for_a_high_monitor() {
     let p = plan_of(
         wearer(0.0, 0.25),
         vec![task("very high monitor", 0.6, 10.0, 4.0)],
-        vec![option(
-            "progressive",
-            FamilyChoice::Progressive {
-                addition_d: Some(2.5),
-                progression_length_mm: Some(14.0),
-            },
-        )],
+        vec![progressive(Some(2.5), Some(14.0))],
     );
     assert!(!p.options[0].tasks[0].posture.reachable);
     assert_eq!(p.unserved[0].reason, UnservedReason::PowerOutOfReach);
@@ -238,13 +226,7 @@ fn cautions_follow_the_scenario() {
                     degression_d: None,
                 },
             ),
-            option(
-                "progressive",
-                FamilyChoice::Progressive {
-                    addition_d: None,
-                    progression_length_mm: None,
-                },
-            ),
+            progressive(None, None),
         ],
     );
     assert_eq!(p.cautions[0].kind, CautionKind::PlanningAid);

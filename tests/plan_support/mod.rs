@@ -65,6 +65,18 @@ pub fn option(label: &str, family: FamilyChoice) -> LensOption {
     }
 }
 
+/// A progressive-lens option with its addition and progression length
+/// fixed (`Some`) or left to the planner (`None`).
+pub fn progressive(addition_d: Option<f64>, progression_length_mm: Option<f64>) -> LensOption {
+    option(
+        "progressive",
+        FamilyChoice::Progressive {
+            addition_d,
+            progression_length_mm,
+        },
+    )
+}
+
 /// Validates and plans; panics with the problems if the test scenario is invalid.
 pub fn plan_of(wearer: Wearer, tasks: Vec<Task>, options: Vec<LensOption>) -> Plan {
     plan_with(wearer, PlanSettings::default(), tasks, options)
@@ -116,13 +128,7 @@ pub fn all_families_open() -> Vec<LensOption> {
                 segment_top_mm: None,
             },
         ),
-        option(
-            "progressive",
-            FamilyChoice::Progressive {
-                addition_d: None,
-                progression_length_mm: None,
-            },
-        ),
+        progressive(None, None),
         option(
             "degressive",
             FamilyChoice::Degressive {

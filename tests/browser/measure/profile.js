@@ -3,42 +3,15 @@
 // an edit, summed by function (self time) and printed as the top entries.
 // A measurement, not a test. Run with `npm run profile` after a release
 // build; wasm functions show their names when the build keeps them.
-import { readFile } from "node:fs/promises";
-import { join, resolve } from "node:path";
-import { serveDist, launchBrowser, watchedPage } from "../support/harness.js";
-import { PlannerPage, VIEWPORTS } from "../support/planner-page.js";
+import { serveDist, launchBrowser } from "../support/harness.js";
+import { openTwentyTaskDay, TASKS } from "./day.js";
 
-const ROOT = resolve(import.meta.dirname, "../../..");
-const TASKS = 20;
 const EDITS = 40;
-const NAME = "Fictional twenty-task day";
-
-async function twentyTaskFile() {
-  const demo = JSON.parse(await readFile(join(ROOT, "scenarios", "office-two-monitors.json"), "utf8"));
-  const item = structuredClone(demo.scenarios[0]);
-  const pattern = item.scenario.tasks;
-  item.scenario.name = NAME;
-  item.note = "Fictional: generated for the profile.";
-  item.scenario.tasks = Array.from({ length: TASKS }, (_, i) => ({
-    ...structuredClone(pattern[i % pattern.length]),
-    name: `Task ${i + 1}`,
-    hours_per_day: 0.4,
-  }));
-  return JSON.stringify({ ...demo, scenarios: [item] });
-}
 
 const server = await serveDist();
 const browser = await launchBrowser();
 try {
-  const context = await browser.newContext({ viewport: VIEWPORTS.desktop });
-  const page = await watchedPage(context, server.url);
-  const planner = new PlannerPage(page, server.url);
-  await planner.open();
-  await planner.importFile("twenty-tasks.json", await twentyTaskFile());
-  await page.waitForFunction(
-    (name) => document.querySelector('[data-testid="scenario-title"]')?.textContent.trim() === name,
-    NAME,
-  );
+  const { context, page } = await openTwentyTaskDay(browser, server.url);
   const cdp = await context.newCDPSession(page);
   await cdp.send("Profiler.enable");
   await cdp.send("Profiler.setSamplingInterval", { interval: 100 });

@@ -15,31 +15,13 @@
 // 3. First plan on screen: from navigation start to the range chart in the
 //    DOM, in a fresh context (cold cache), median of several loads.
 import { readFile } from "node:fs/promises";
-import { join, resolve } from "node:path";
-import { serveDist, launchBrowser, watchedPage } from "../support/harness.js";
-import { PlannerPage, VIEWPORTS } from "../support/planner-page.js";
+import { join } from "node:path";
+import { serveDist, launchBrowser } from "../support/harness.js";
+import { VIEWPORTS } from "../support/planner-page.js";
+import { openTwentyTaskDay, ROOT, TASKS } from "./day.js";
 
-const ROOT = resolve(import.meta.dirname, "../../..");
-const TASKS = 20;
 const WARM_UP = 3;
 const SAMPLES = 30;
-const NAME = "Fictional twenty-task day";
-
-/** An export file with one scenario of `TASKS` tasks, built on the office demo's wearer and options. */
-async function twentyTaskFile() {
-  const demo = JSON.parse(await readFile(join(ROOT, "scenarios", "office-two-monitors.json"), "utf8"));
-  const item = structuredClone(demo.scenarios[0]);
-  const pattern = item.scenario.tasks;
-  item.scenario.name = NAME;
-  item.note = "Fictional: generated for the redraw measurement.";
-  item.scenario.tasks = Array.from({ length: TASKS }, (_, i) => {
-    const task = structuredClone(pattern[i % pattern.length]);
-    task.name = `Task ${i + 1}`;
-    task.hours_per_day = 0.4;
-    return task;
-  });
-  return JSON.stringify({ ...demo, scenarios: [item] });
-}
 
 /**
  * One edit: types `cm` into task `index`'s distance; measures the work up to
@@ -116,18 +98,7 @@ const server = await serveDist();
 const browser = await launchBrowser();
 let failed = false;
 try {
-  const context = await browser.newContext({ viewport: VIEWPORTS.desktop });
-  const page = await watchedPage(context, server.url);
-  const planner = new PlannerPage(page, server.url);
-  await planner.open();
-  await planner.importFile("twenty-tasks.json", await twentyTaskFile());
-  await page.waitForFunction(
-    (name) => document.querySelector('[data-testid="scenario-title"]')?.textContent.trim() === name,
-    NAME,
-  );
-  const count = await planner.taskCount();
-  if (count !== TASKS) throw new Error(`expected ${TASKS} task cards, found ${count}`);
-  await planner.byTestId("range-chart").waitFor();
+  const { context, page } = await openTwentyTaskDay(browser, server.url);
 
   const download = await downloadBytes();
   console.log(`download (wasm + JavaScript, gzip -9): ${download.total} bytes (${download.parts.join(", ")})`);

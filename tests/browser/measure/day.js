@@ -1,0 +1,46 @@
+// The working day the measurements edit: a scenario of 20 tasks built on the
+// office demo's wearer and options (fictional, generated), opened in a page.
+import { readFile } from "node:fs/promises";
+import { join, resolve } from "node:path";
+import { watchedPage } from "../support/harness.js";
+import { PlannerPage, VIEWPORTS } from "../support/planner-page.js";
+
+const ROOT = resolve(import.meta.dirname, "../../..");
+/** Tasks in the measured day. */
+export const TASKS = 20;
+const NAME = "Fictional twenty-task day";
+
+/** An export file with one scenario of `TASKS` tasks. */
+async function twentyTaskFile() {
+  const demo = JSON.parse(await readFile(join(ROOT, "scenarios", "office-two-monitors.json"), "utf8"));
+  const item = structuredClone(demo.scenarios[0]);
+  const pattern = item.scenario.tasks;
+  item.scenario.name = NAME;
+  item.note = "Fictional: generated for the measurements.";
+  item.scenario.tasks = Array.from({ length: TASKS }, (_, i) => ({
+    ...structuredClone(pattern[i % pattern.length]),
+    name: `Task ${i + 1}`,
+    hours_per_day: 0.4,
+  }));
+  return JSON.stringify({ ...demo, scenarios: [item] });
+}
+
+/** A desktop page with the twenty-task day open and its chart drawn; resolves to { context, page }. */
+export async function openTwentyTaskDay(browser, url) {
+  const context = await browser.newContext({ viewport: VIEWPORTS.desktop });
+  const page = await watchedPage(context, url);
+  const planner = new PlannerPage(page, url);
+  await planner.open();
+  await planner.importFile("twenty-tasks.json", await twentyTaskFile());
+  await page.waitForFunction(
+    (name) => document.querySelector('[data-testid="scenario-title"]')?.textContent.trim() === name,
+    NAME,
+  );
+  const count = await planner.taskCount();
+  if (count !== TASKS) throw new Error(`expected ${TASKS} task cards, found ${count}`);
+  await planner.byTestId("range-chart").waitFor();
+  return { context, page };
+}
+
+/** The root of the checkout. */
+export { ROOT };
