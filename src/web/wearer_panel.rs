@@ -56,39 +56,6 @@ fn prism_fields(
     pick: fn(&Scenario) -> &Prescription,
     pick_mut: fn(&mut Scenario) -> &mut Prescription,
 ) -> impl IntoView {
-    let state = use_app_state();
-    let horizontal_base = Signal::derive(move || {
-        state
-            .scenario
-            .with(|s| match pick(s).prism.horizontal_base {
-                HorizontalBase::In => "in",
-                HorizontalBase::Out => "out",
-            })
-    });
-    let vertical_base = Signal::derive(move || {
-        state.scenario.with(|s| match pick(s).prism.vertical_base {
-            VerticalBase::Up => "up",
-            VerticalBase::Down => "down",
-        })
-    });
-    let on_horizontal = Callback::new(move |v: String| {
-        state.edit(|s| {
-            pick_mut(s).prism.horizontal_base = if v == "out" {
-                HorizontalBase::Out
-            } else {
-                HorizontalBase::In
-            }
-        })
-    });
-    let on_vertical = Callback::new(move |v: String| {
-        state.edit(|s| {
-            pick_mut(s).prism.vertical_base = if v == "down" {
-                VerticalBase::Down
-            } else {
-                VerticalBase::Up
-            }
-        })
-    });
     view! {
         {scenario_number(
             "Horizontal prism",
@@ -98,12 +65,12 @@ fn prism_fields(
             move |s, v| pick_mut(s).prism.horizontal_pd = v.unwrap_or(0.0),
             false,
         )}
-        <ChoiceField
-            label=format!("{eye} horizontal base")
-            choices=vec![("in", "Base in"), ("out", "Base out")]
-            value=horizontal_base
-            on_change=on_horizontal
-        />
+        {scenario_choice(
+            format!("{eye} horizontal base"),
+            [("in", "Base in", HorizontalBase::In), ("out", "Base out", HorizontalBase::Out)],
+            move |s| pick(s).prism.horizontal_base,
+            move |s, v| pick_mut(s).prism.horizontal_base = v,
+        )}
         {scenario_number(
             "Vertical prism",
             format!("wearer.{key}.prism.vertical_pd"),
@@ -112,11 +79,42 @@ fn prism_fields(
             move |s, v| pick_mut(s).prism.vertical_pd = v.unwrap_or(0.0),
             false,
         )}
+        {scenario_choice(
+            format!("{eye} vertical base"),
+            [("up", "Base up", VerticalBase::Up), ("down", "Base down", VerticalBase::Down)],
+            move |s| pick(s).prism.vertical_base,
+            move |s, v| pick_mut(s).prism.vertical_base = v,
+        )}
+    }
+}
+
+/// A choice between two values of a scenario field: each a machine name,
+/// the words shown and the value; `get` reads the field, `set` writes it.
+fn scenario_choice<T: Copy + PartialEq + Send + Sync + 'static>(
+    label: String,
+    choices: [(&'static str, &'static str, T); 2],
+    get: impl Fn(&Scenario) -> T + Copy + Send + Sync + 'static,
+    set: impl Fn(&mut Scenario, T) + Copy + Send + Sync + 'static,
+) -> impl IntoView {
+    let state = use_app_state();
+    let value = Signal::derive(move || {
+        let current = state.scenario.with(get);
+        choices
+            .iter()
+            .find(|c| c.2 == current)
+            .map_or(choices[0].0, |c| c.0)
+    });
+    let on_change = Callback::new(move |name: String| {
+        if let Some(c) = choices.iter().find(|c| c.0 == name) {
+            state.edit(|s| set(s, c.2));
+        }
+    });
+    view! {
         <ChoiceField
-            label=format!("{eye} vertical base")
-            choices=vec![("up", "Base up"), ("down", "Base down")]
-            value=vertical_base
-            on_change=on_vertical
+            label=label
+            choices=choices.iter().map(|c| (c.0, c.1)).collect()
+            value=value
+            on_change=on_change
         />
     }
 }
@@ -124,32 +122,20 @@ fn prism_fields(
 /// How additions are rounded, and whether the prescribed addition is planned from.
 fn addition_settings() -> impl IntoView {
     let state = use_app_state();
-    let rounding = Signal::derive(move || {
-        state.scenario.with(|s| match s.settings.addition_rounding {
-            AdditionRounding::Up => "up",
-            AdditionRounding::Nearest => "nearest",
-        })
-    });
-    let on_rounding = Callback::new(move |v: String| {
-        state.edit(|s| {
-            s.settings.addition_rounding = if v == "nearest" {
-                AdditionRounding::Nearest
-            } else {
-                AdditionRounding::Up
-            }
-        })
-    });
     let from_prescription =
         Signal::derive(move || state.scenario.with(|s| s.settings.use_prescribed_addition));
     let on_prescription =
         Callback::new(move |v: bool| state.edit(|s| s.settings.use_prescribed_addition = v));
     view! {
-        <ChoiceField
-            label="Round additions"
-            choices=vec![("up", "Up to the next 0.25 D"), ("nearest", "To the nearest 0.25 D")]
-            value=rounding
-            on_change=on_rounding
-        />
+        {scenario_choice(
+            "Round additions".to_string(),
+            [
+                ("up", "Up to the next 0.25 D", AdditionRounding::Up),
+                ("nearest", "To the nearest 0.25 D", AdditionRounding::Nearest),
+            ],
+            |s| s.settings.addition_rounding,
+            |s, v| s.settings.addition_rounding = v,
+        )}
         <CheckField
             label="Plan near additions from the prescribed addition"
             checked=from_prescription
