@@ -161,13 +161,19 @@ impl<S: KeyValueStore> Library<S> {
     /// and [`Library::load_all`] when the event names no key). Unsaved changes
     /// here are never dropped: they make a [`Conflict`] instead.
     pub fn reload(&mut self, id: &EntryId) -> Result<Reloaded, LibraryError> {
-        let state = self.stored_state(id).map_err(LibraryError::Storage)?;
+        let raw = self
+            .store
+            .get(&key_for(id))
+            .map_err(LibraryError::Storage)?;
         let Some(slot) = self.slots.get(id) else {
-            return Ok(self.adopt(id, state, false));
+            return Ok(self.adopt(id, StoredState::from_raw(raw), false));
         };
-        if state.matches(slot.base.as_ref()) {
+        // The same text as last seen needs no parsing: the common case when
+        // every open entry is checked.
+        if raw.as_deref() == slot.base.as_ref().map(|b| b.text.as_str()) {
             return Ok(Reloaded::Unchanged);
         }
+        let state = StoredState::from_raw(raw);
         let lost_write = slot.base.as_ref().is_some_and(|b| state.overwrote(b));
         if slot.unsaved.is_some() || lost_write {
             return Err(LibraryError::Conflict(self.conflicted(id, state)));
