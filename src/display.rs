@@ -128,6 +128,26 @@ pub fn describe_problem(problem: &Problem, unit: LengthUnit) -> String {
     }
 }
 
+/// A count as people read it, with a comma between thousands.
+///
+/// ```
+/// use clearspan::display::thousands;
+/// assert_eq!(thousands(100_000), "100,000");
+/// assert_eq!(thousands(999), "999");
+/// assert_eq!(thousands(1_234_567), "1,234,567");
+/// ```
+pub fn thousands(n: usize) -> String {
+    let digits = n.to_string();
+    let mut out = String::with_capacity(digits.len() + digits.len() / 3);
+    for (i, c) in digits.chars().enumerate() {
+        if i > 0 && (digits.len() - i) % 3 == 0 {
+            out.push(',');
+        }
+        out.push(c);
+    }
+    out
+}
+
 /// A download file name made from a scenario name: lower-case letters,
 /// digits and dashes only, at most 60 of them, never empty.
 pub fn file_name_for(name: &str) -> String {

@@ -7,9 +7,10 @@
 
 use super::format::{Entry, EntryId};
 use super::naming::unique_name;
-use super::read::{read_entry, ReadError};
+use super::read::ReadError;
+use super::status::Unsaved;
 use super::store::{KeyValueStore, StoreError};
-use crate::scenario::{FieldError, Scenario, MAX_NAME_CHARS};
+use crate::scenario::{validate, FieldError, Scenario, MAX_NAME_CHARS};
 use std::collections::BTreeMap;
 use std::fmt;
 
@@ -225,16 +226,60 @@ pub struct Summary {
     pub task_count: usize,
     /// True while a change is held in memory only (storage refused it or a conflict waits).
     pub unsaved: bool,
+    /// True while the scenario cannot be planned yet (a draft with a value to correct).
+    pub draft: bool,
+}
+
+/// What this tab last read from or wrote to storage for one entry.
+#[derive(Debug, Clone, PartialEq)]
+pub(super) struct Base {
+    /// The stored revision.
+    pub(super) revision: u64,
+    /// The stored text, exactly. Two tabs that write the same revision at the
+    /// same moment write different texts, so comparing texts finds a lost
+    /// update where comparing revisions cannot (nor at the integer maximum).
+    pub(super) text: String,
+    /// Whether this tab wrote it; a later stored text with a revision no
+    /// higher than this one's was written without seeing it.
+    pub(super) written_here: bool,
 }
 
 /// An entry in memory with what this tab knows of its stored copy.
 #[derive(Debug, Clone)]
 pub(super) struct Slot {
     pub(super) entry: Entry,
-    /// The revision this tab last read from or wrote to storage (`None`: not stored).
-    pub(super) base: Option<u64>,
-    /// A change is in memory that storage does not hold yet.
-    pub(super) unsaved: bool,
+    /// What storage held when this tab last read or wrote it (`None`: not stored).
+    pub(super) base: Option<Base>,
+    /// Why a change in memory is not in storage yet (`None`: storage holds it).
+    pub(super) unsaved: Option<Unsaved>,
+    /// Whether the scenario fails validation (kept up to date on every change).
+    pub(super) draft: bool,
+}
+
+impl Slot {
+    /// A slot for `entry`, its draft mark computed once here.
+    pub(super) fn new(entry: Entry, base: Option<Base>, unsaved: Option<Unsaved>) -> Self {
+        let draft = validate(entry.scenario.clone()).is_err();
+        Slot {
+            entry,
+            base,
+            unsaved,
+            draft,
+        }
+    }
+
+    /// Replaces the scenario, marking the change as waiting to be written.
+    pub(super) fn change(&mut self, scenario: Scenario, now_ms: u64) {
+        self.draft = validate(scenario.clone()).is_err();
+        self.entry.scenario = scenario;
+        self.touch(now_ms);
+    }
+
+    /// Records a change of the entry at `now_ms` that is not written yet.
+    pub(super) fn touch(&mut self, now_ms: u64) {
+        self.entry.changed_ms = now_ms;
+        self.unsaved = Some(Unsaved::Waiting);
+    }
 }
 
 /// Every scenario on the device, over a key-value store.
@@ -243,9 +288,9 @@ pub struct Library<S: KeyValueStore> {
     pub(super) store: S,
     pub(super) slots: BTreeMap<EntryId, Slot>,
     pub(super) set_aside: Vec<SetAside>,
-    /// Deleted entries, each with the revision storage still holds of it
+    /// Deleted entries, each with what storage still holds of it
     /// (`None` once its key is removed).
-    pub(super) deleted: Vec<(Entry, Option<u64>)>,
+    pub(super) deleted: Vec<(Entry, Option<Base>)>,
     pub(super) next_seq: u64,
     pub(super) storage_problem: Option<StoreError>,
 }
@@ -279,7 +324,7 @@ impl<S: KeyValueStore> Library<S> {
                 return report;
             }
         };
-        let mut found = BTreeMap::new();
+        let mut found: BTreeMap<EntryId, (Entry, String)> = BTreeMap::new();
         let mut set_aside = Vec::new();
         for key in keys.iter().filter(|k| k.starts_with(SCENARIO_PREFIX)) {
             let raw = match self.store.get(key) {
@@ -298,9 +343,9 @@ impl<S: KeyValueStore> Library<S> {
                 });
                 continue;
             };
-            match read_entry(&raw) {
+            match super::read::read_entry(&raw) {
                 Ok(body) => {
-                    found.insert(id.clone(), body.into_entry(id));
+                    found.insert(id.clone(), (body.into_entry(id), raw));
                 }
                 Err(e) => set_aside.push(SetAside {
                     key: key.clone(),
@@ -313,21 +358,18 @@ impl<S: KeyValueStore> Library<S> {
         // still be stored, so nothing is dropped from memory then.
         if report.storage.is_none() {
             self.slots
-                .retain(|id, slot| slot.unsaved || found.contains_key(id));
+                .retain(|id, slot| slot.unsaved.is_some() || found.contains_key(id));
         }
-        for (id, entry) in found {
-            if self.slots.get(&id).is_some_and(|s| s.unsaved) {
+        for (id, (entry, text)) in found {
+            if self.slots.get(&id).is_some_and(|s| s.unsaved.is_some()) {
                 continue;
             }
-            let base = Some(entry.revision);
-            self.slots.insert(
-                id,
-                Slot {
-                    entry,
-                    base,
-                    unsaved: false,
-                },
-            );
+            let base = Some(Base {
+                revision: entry.revision,
+                text,
+                written_here: false,
+            });
+            self.slots.insert(id, Slot::new(entry, base, None));
         }
         self.set_aside = set_aside;
         self.storage_problem = report.storage;
@@ -364,7 +406,8 @@ impl<S: KeyValueStore> Library<S> {
                 note: slot.entry.note.clone(),
                 changed_ms: slot.entry.changed_ms,
                 task_count: slot.entry.scenario.tasks.len(),
-                unsaved: slot.unsaved,
+                unsaved: slot.unsaved.is_some(),
+                draft: slot.draft,
             })
             .collect();
         rows.sort_by(|a, b| {
@@ -398,7 +441,7 @@ impl<S: KeyValueStore> Library<S> {
     pub fn unsaved_ids(&self) -> Vec<EntryId> {
         self.slots
             .iter()
-            .filter(|(_, s)| s.unsaved)
+            .filter(|(_, s)| s.unsaved.is_some())
             .map(|(id, _)| id.clone())
             .collect()
     }
@@ -422,36 +465,37 @@ impl<S: KeyValueStore> Library<S> {
         note: &str,
         now_ms: u64,
     ) -> (EntryId, Result<Persisted, LibraryError>) {
+        let id = self.create_unwritten(scenario, note, now_ms);
+        let result = self.persist(&id);
+        (id, result)
+    }
+
+    /// Adds a new scenario created at `now_ms` to memory only, waiting for
+    /// [`Library::save_unsaved`] (or any later write) to store it.
+    pub fn create_unwritten(&mut self, scenario: Scenario, note: &str, now_ms: u64) -> EntryId {
         self.insert_new(scenario, note, now_ms, now_ms)
     }
 
-    /// Adds a new entry with the given times and writes it.
+    /// Adds a new entry with the given times to memory, not written yet.
     pub(super) fn insert_new(
         &mut self,
         scenario: Scenario,
         note: &str,
         created_ms: u64,
-        now_ms: u64,
-    ) -> (EntryId, Result<Persisted, LibraryError>) {
-        let id = self.fresh_id(now_ms);
+        changed_ms: u64,
+    ) -> EntryId {
+        let id = self.fresh_id(changed_ms);
         let entry = Entry {
             id: id.clone(),
             revision: 0,
             created_ms,
-            changed_ms: now_ms,
+            changed_ms,
             note: note.to_string(),
             scenario,
         };
-        self.slots.insert(
-            id.clone(),
-            Slot {
-                entry,
-                base: None,
-                unsaved: true,
-            },
-        );
-        let result = self.persist(&id);
-        (id, result)
+        self.slots
+            .insert(id.clone(), Slot::new(entry, None, Some(Unsaved::Waiting)));
+        id
     }
 
     /// Renames entry `id` at `now_ms`.
@@ -464,10 +508,9 @@ impl<S: KeyValueStore> Library<S> {
         if name.chars().count() > MAX_NAME_CHARS {
             return Err(LibraryError::NameTooLong);
         }
-        let slot = self.slot_mut(id)?;
-        slot.entry.scenario.name = name.to_string();
-        slot.entry.changed_ms = now_ms;
-        slot.unsaved = true;
+        let mut scenario = self.slot(id)?.entry.scenario.clone();
+        scenario.name = name.to_string();
+        self.slot_mut(id)?.change(scenario, now_ms);
         self.persist(id)
     }
 
@@ -487,10 +530,10 @@ impl<S: KeyValueStore> Library<S> {
     /// [`Library::undo_delete`] until [`Library::discard_deleted`]. A newer
     /// revision written by another tab is never deleted unseen: that is a conflict.
     pub fn delete(&mut self, id: &EntryId) -> Result<Persisted, LibraryError> {
-        let base = self.slot(id)?.base;
+        let base = self.slot(id)?.base.clone();
         let (persisted, left_in_storage) = match self.stored_state(id) {
             Err(e) => (self.refused(e), base),
-            Ok(state) if state.matches(base) => match self.store.remove(&key_for(id)) {
+            Ok(state) if state.matches(base.as_ref()) => match self.store.remove(&key_for(id)) {
                 Ok(()) => (Persisted::Stored, None),
                 Err(e) => (self.refused(e), base),
             },
@@ -513,14 +556,8 @@ impl<S: KeyValueStore> Library<S> {
     ) -> Result<(EntryId, Result<Persisted, LibraryError>), LibraryError> {
         let (entry, base) = self.deleted.pop().ok_or(LibraryError::NothingToUndo)?;
         let id = entry.id.clone();
-        self.slots.insert(
-            id.clone(),
-            Slot {
-                entry,
-                base,
-                unsaved: true,
-            },
-        );
+        self.slots
+            .insert(id.clone(), Slot::new(entry, base, Some(Unsaved::Waiting)));
         let result = self.persist(&id);
         Ok((id, result))
     }

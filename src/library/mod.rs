@@ -13,6 +13,7 @@ pub mod format;
 pub mod migrate;
 mod naming;
 pub mod read;
+mod status;
 pub mod store;
 mod sync;
 mod transfer;
@@ -34,6 +35,7 @@ pub use read::{
     check_nesting, document_text, parse_limited, read_document, read_document_bytes, read_entry,
     ReadError, MAX_DOCUMENT_BYTES, MAX_NESTING,
 };
+pub use status::{SaveStatus, Unsaved};
 pub use store::{KeyValueStore, MemoryStore, SharedMemoryStore, StoreError};
 pub use sync::Reloaded;
 pub use transfer::{

@@ -1,31 +1,64 @@
-//! Writing entries safely when several tabs share one storage. Every entry
-//! carries a revision counter; a tab writes only if storage still holds the
-//! revision it last read or wrote, so a newer revision from another tab is
-//! never silently overwritten but reported as a [`Conflict`]. This file also
-//! reloads an entry after the browser reports an external change.
+//! Writing entries safely when several tabs share one storage. A tab writes
+//! only if storage still holds exactly the text it last read or wrote, so a
+//! change from another tab is never silently overwritten but reported as a
+//! [`Conflict`]. Because local storage is not updated atomically across
+//! tabs, two tabs can still write at the same instant; the browser then
+//! tells each about the other's write, and [`Library::reload`] finds the
+//! lost update (a stored text that replaced this tab's write without having
+//! seen it) and reports it the same way. Every successful write retries the
+//! entries still waiting. This file also reloads an entry after the browser
+//! reports an external change.
 
 use super::collection::{
-    key_for, Conflict, EntryProblem, Library, LibraryError, Persisted, SetAside, Theirs,
+    key_for, Base, Conflict, EntryProblem, Library, LibraryError, Persisted, SetAside, Slot, Theirs,
 };
 use super::format::{encode_entry, EntryId, StoredEntry};
 use super::read::{read_entry, ReadError};
+use super::status::Unsaved;
 use super::store::{KeyValueStore, StoreError};
 use crate::scenario::{FieldError, Problem, Scenario};
 
 /// What storage holds under an entry's key right now.
 pub(super) enum StoredState {
     Missing,
-    Readable(Box<StoredEntry>),
+    Readable { body: Box<StoredEntry>, raw: String },
     Unreadable { raw: String, error: ReadError },
 }
 
 impl StoredState {
-    /// True if storage holds exactly the revision `base` this tab started from.
-    pub(super) fn matches(&self, base: Option<u64>) -> bool {
+    /// What a stored text (or its absence) is to this tab.
+    fn from_raw(raw: Option<String>) -> Self {
+        match raw {
+            None => StoredState::Missing,
+            Some(raw) => match read_entry(&raw) {
+                Ok(body) => StoredState::Readable {
+                    body: Box::new(body),
+                    raw,
+                },
+                Err(error) => StoredState::Unreadable { raw, error },
+            },
+        }
+    }
+
+    /// True if storage holds exactly the text `base` this tab last read or wrote.
+    pub(super) fn matches(&self, base: Option<&Base>) -> bool {
+        match (self, base) {
+            (StoredState::Missing, None) => true,
+            (StoredState::Readable { raw, .. }, Some(base)) => *raw == base.text,
+            _ => false,
+        }
+    }
+
+    /// True if storage holds a text that replaced this tab's own write
+    /// `base` without having seen it: its revision is not above the one
+    /// written. (At the integer maximum no revision is above, so any other
+    /// text counts: a needless question is better than a silent loss.)
+    fn overwrote(&self, base: &Base) -> bool {
         match self {
-            StoredState::Missing => base.is_none(),
-            StoredState::Readable(body) => base == Some(body.revision),
-            StoredState::Unreadable { .. } => false,
+            StoredState::Readable { body, raw } => {
+                base.written_here && *raw != base.text && body.revision <= base.revision
+            }
+            _ => false,
         }
     }
 }
@@ -55,14 +88,27 @@ impl<S: KeyValueStore> Library<S> {
         scenario: Scenario,
         now_ms: u64,
     ) -> Result<Persisted, LibraryError> {
-        let slot = self.slot_mut(id)?;
-        if slot.entry.scenario == scenario && !slot.unsaved {
+        self.stage(id, scenario, now_ms)?;
+        if self.slot(id)?.unsaved.is_none() {
             return Ok(Persisted::Stored);
         }
-        slot.entry.scenario = scenario;
-        slot.entry.changed_ms = now_ms;
-        slot.unsaved = true;
         self.persist(id)
+    }
+
+    /// Replaces the scenario of entry `id` (changed at `now_ms`) in memory
+    /// only; [`Library::save_unsaved`] or any later write stores it. An
+    /// unchanged scenario changes nothing.
+    pub fn stage(
+        &mut self,
+        id: &EntryId,
+        scenario: Scenario,
+        now_ms: u64,
+    ) -> Result<(), LibraryError> {
+        let slot = self.slot_mut(id)?;
+        if slot.entry.scenario != scenario {
+            slot.change(scenario, now_ms);
+        }
+        Ok(())
     }
 
     /// Sets the note of entry `id` at `now_ms` and writes it.
@@ -74,20 +120,39 @@ impl<S: KeyValueStore> Library<S> {
     ) -> Result<Persisted, LibraryError> {
         let slot = self.slot_mut(id)?;
         slot.entry.note = note.to_string();
-        slot.entry.changed_ms = now_ms;
-        slot.unsaved = true;
+        slot.touch(now_ms);
         self.persist(id)
     }
 
-    /// Tries again to write every entry held in memory only (after the user
-    /// freed space or storage came back).
+    /// Writes every entry waiting in memory, or refused by storage before
+    /// (after the user freed space, or when storage came back), and returns
+    /// what each write did. Entries in conflict wait for the user's choice,
+    /// and entries holding a value that would not read back for a correction.
+    /// A refusal stops the round: storage would refuse the rest too, so they
+    /// are marked with the same refusal without asking it.
     pub fn save_unsaved(&mut self) -> Vec<(EntryId, Result<Persisted, LibraryError>)> {
-        self.unsaved_ids()
-            .into_iter()
-            .map(|id| {
-                let result = self.persist(&id);
-                (id, result)
-            })
+        let mut results = Vec::new();
+        let mut refusal = None;
+        for id in self.retryable_ids() {
+            if let Some(e) = refusal {
+                self.refused_write(&id, e);
+                continue;
+            }
+            let result = self.write(&id);
+            if let Ok(Persisted::KeptInMemory(e)) = result {
+                refusal = Some(e);
+            }
+            results.push((id, result));
+        }
+        results
+    }
+
+    /// The entries a retry may write, in id order.
+    fn retryable_ids(&self) -> Vec<EntryId> {
+        self.slots
+            .iter()
+            .filter(|(_, s)| s.unsaved.is_some_and(Unsaved::retryable))
+            .map(|(id, _)| id.clone())
             .collect()
     }
 
@@ -96,18 +161,42 @@ impl<S: KeyValueStore> Library<S> {
     /// and [`Library::load_all`] when the event names no key). Unsaved changes
     /// here are never dropped: they make a [`Conflict`] instead.
     pub fn reload(&mut self, id: &EntryId) -> Result<Reloaded, LibraryError> {
-        let state = self.stored_state(id).map_err(LibraryError::Storage)?;
-        let (open, base, unsaved) = match self.slots.get(id) {
-            Some(slot) => (true, slot.base, slot.unsaved),
-            None => (false, None, false),
+        let raw = self
+            .store
+            .get(&key_for(id))
+            .map_err(LibraryError::Storage)?;
+        let Some(slot) = self.slots.get(id) else {
+            return Ok(self.adopt(id, StoredState::from_raw(raw), false));
         };
-        if open && state.matches(base) {
+        // The same text as last seen needs no parsing: the common case when
+        // every open entry is checked.
+        if raw.as_deref() == slot.base.as_ref().map(|b| b.text.as_str()) {
             return Ok(Reloaded::Unchanged);
         }
-        if unsaved {
-            return Err(LibraryError::Conflict(self.conflict(id, state)));
+        let state = StoredState::from_raw(raw);
+        let lost_write = slot.base.as_ref().is_some_and(|b| state.overwrote(b));
+        if slot.unsaved.is_some() || lost_write {
+            return Err(LibraryError::Conflict(self.conflicted(id, state)));
         }
-        Ok(self.adopt(id, state, open))
+        Ok(self.adopt(id, state, true))
+    }
+
+    /// Reloads every open entry ([`Library::reload`] on each), when the
+    /// browser may have missed telling this tab of another's writes (after
+    /// the tab was hidden). Returns the entries that changed and every conflict.
+    pub fn reload_open(&mut self) -> (Vec<(EntryId, Reloaded)>, Vec<Conflict>) {
+        let mut changed = Vec::new();
+        let mut conflicts = Vec::new();
+        let ids: Vec<EntryId> = self.slots.keys().cloned().collect();
+        for id in ids {
+            match self.reload(&id) {
+                Ok(Reloaded::Unchanged) => {}
+                Ok(outcome) => changed.push((id, outcome)),
+                Err(LibraryError::Conflict(c)) => conflicts.push(c),
+                Err(_) => {}
+            }
+        }
+        (changed, conflicts)
     }
 
     /// Resolves a conflict by dropping this tab's version of `id` and taking
@@ -137,43 +226,81 @@ impl<S: KeyValueStore> Library<S> {
         Ok(self.create(scenario, &mine.note, now_ms))
     }
 
-    /// Writes entry `id` as the next revision if storage still holds the
-    /// revision this tab knows; the entry stays in memory whatever happens.
+    /// Writes entry `id`, then, if that worked, every other entry still
+    /// waiting or refused before: storage has room again.
     pub(super) fn persist(&mut self, id: &EntryId) -> Result<Persisted, LibraryError> {
+        let result = self.write(id);
+        if result == Ok(Persisted::Stored) {
+            self.save_unsaved();
+        }
+        result
+    }
+
+    /// Writes entry `id` as the next revision if storage still holds the
+    /// text this tab knows; the entry stays in memory whatever happens, and
+    /// its slot records why it is not stored when it is not.
+    fn write(&mut self, id: &EntryId) -> Result<Persisted, LibraryError> {
         let slot = self.slot(id)?;
-        let base = slot.base;
+        let base = slot.base.clone();
         let mut next = slot.entry.clone();
-        next.revision = slot.entry.revision.max(base.unwrap_or(0)).saturating_add(1);
-        let text = writable_text(&next)?;
-        let state = match self.stored_state(id) {
-            Ok(state) => state,
-            Err(e) => return Ok(self.refused(e)),
+        let known = base.as_ref().map_or(0, |b| b.revision);
+        next.revision = slot.entry.revision.max(known).saturating_add(1);
+        let text = match writable_text(&next) {
+            Ok(text) => text,
+            Err(e) => return Err(self.hold(id, Unsaved::NotStorable, e)),
         };
-        if !state.matches(base) {
-            return Err(LibraryError::Conflict(self.conflict(id, state)));
+        let stored = match self.store.get(&key_for(id)) {
+            Ok(stored) => stored,
+            Err(e) => return Ok(self.refused_write(id, e)),
+        };
+        if stored.as_deref() != base.as_ref().map(|b| b.text.as_str()) {
+            let conflict = self.conflicted(id, StoredState::from_raw(stored));
+            return Err(LibraryError::Conflict(conflict));
         }
         match self.store.set(&key_for(id), &text) {
             Ok(()) => {
                 let slot = self.slot_mut(id)?;
                 slot.entry.revision = next.revision;
-                slot.base = Some(next.revision);
-                slot.unsaved = false;
+                slot.base = Some(Base {
+                    revision: next.revision,
+                    text,
+                    written_here: true,
+                });
+                slot.unsaved = None;
                 self.storage_problem = None;
                 Ok(Persisted::Stored)
             }
-            Err(e) => Ok(self.refused(e)),
+            Err(e) => Ok(self.refused_write(id, e)),
         }
+    }
+
+    /// Marks entry `id` as held in memory for `why` and passes `error` on.
+    fn hold(&mut self, id: &EntryId, why: Unsaved, error: LibraryError) -> LibraryError {
+        if let Some(slot) = self.slots.get_mut(id) {
+            slot.unsaved = Some(why);
+        }
+        error
+    }
+
+    /// Records storage's refusal to write entry `id`.
+    fn refused_write(&mut self, id: &EntryId, e: StoreError) -> Persisted {
+        if let Some(slot) = self.slots.get_mut(id) {
+            slot.unsaved = Some(Unsaved::Refused(e));
+        }
+        self.refused(e)
+    }
+
+    /// Marks entry `id` as in conflict with what storage holds, and describes it.
+    fn conflicted(&mut self, id: &EntryId, state: StoredState) -> Conflict {
+        if let Some(slot) = self.slots.get_mut(id) {
+            slot.unsaved = Some(Unsaved::Conflict);
+        }
+        self.conflict(id, state)
     }
 
     /// Reads what storage holds under `id`'s key.
     pub(super) fn stored_state(&self, id: &EntryId) -> Result<StoredState, StoreError> {
-        Ok(match self.store.get(&key_for(id))? {
-            None => StoredState::Missing,
-            Some(raw) => match read_entry(&raw) {
-                Ok(body) => StoredState::Readable(Box::new(body)),
-                Err(error) => StoredState::Unreadable { raw, error },
-            },
-        })
+        Ok(StoredState::from_raw(self.store.get(&key_for(id))?))
     }
 
     /// Describes a conflict on `id` with what storage holds.
@@ -185,7 +312,7 @@ impl<S: KeyValueStore> Library<S> {
             .unwrap_or_default();
         let theirs = match state {
             StoredState::Missing => Theirs::Removed,
-            StoredState::Readable(body) => Theirs::Newer {
+            StoredState::Readable { body, .. } => Theirs::Newer {
                 revision: body.revision,
                 name: body.scenario.name,
             },
@@ -209,15 +336,15 @@ impl<S: KeyValueStore> Library<S> {
                     Reloaded::Unchanged
                 }
             }
-            StoredState::Readable(body) => {
-                let base = Some(body.revision);
+            StoredState::Readable { body, raw } => {
+                let base = Some(Base {
+                    revision: body.revision,
+                    text: raw,
+                    written_here: false,
+                });
                 self.slots.insert(
                     id.clone(),
-                    super::collection::Slot {
-                        entry: body.into_entry(id.clone()),
-                        base,
-                        unsaved: false,
-                    },
+                    Slot::new(body.into_entry(id.clone()), base, None),
                 );
                 if was_open {
                     Reloaded::Updated

@@ -395,11 +395,11 @@ fn erase_removes_only_the_apps_own_keys() {
 }
 
 #[test]
-fn import_renames_clashes_and_takes_good_scenarios_only() {
+fn import_renames_clashes_takes_drafts_as_drafts_and_refuses_what_does_not_decode() {
     let (mut lib, store, _, _) = two_entries();
-    let mut bad = sample("Bad one");
-    bad.tasks[0].distance_m = -3.0;
-    let items: Vec<ExportItem> = [sample("A"), bad, sample("A"), sample("New")]
+    let mut draft = sample("Draft one");
+    draft.tasks[0].distance_m = -3.0;
+    let items: Vec<ExportItem> = [sample("A"), draft, sample("A"), sample("New")]
         .into_iter()
         .map(|scenario| ExportItem {
             note: "n".into(),
@@ -408,39 +408,87 @@ fn import_renames_clashes_and_takes_good_scenarios_only() {
             scenario,
         })
         .collect();
-    let file = encode_export(&items, 20).expect("encodes");
-    let batch = parse_import(&file).expect("reads");
+    let mut file: Value =
+        serde_json::from_str(&encode_export(&items, 20).expect("encodes")).expect("JSON");
+    file["scenarios"]
+        .as_array_mut()
+        .expect("a list")
+        .push(json!({"scenario": {"name": "Not one", "tasks": 3}}));
+    let batch = parse_import(&file.to_string()).expect("reads");
+    assert_eq!(batch.accepted.len(), 4);
+    assert_eq!(batch.numbers, [1, 2, 3, 4]);
     assert_eq!(batch.rejected.len(), 1);
     let rejected = batch.rejected[0].to_string();
-    assert_eq!(
-        rejected,
-        "Scenario 2 (\"Bad one\") was not imported: scenarios[1].scenario.tasks[0].distance_m: \
-         -3 is outside the allowed range 0.1 to 1000 m"
+    contains(
+        &rejected,
+        "Scenario 5 (\"Not one\") was not imported: scenarios[4].scenario",
     );
     let report = lib.import(batch, 30);
-    let added: Vec<(&str, Option<&str>)> = report
+    let added: Vec<(&str, Option<&str>, bool)> = report
         .added
         .iter()
-        .map(|i| (i.name.as_str(), i.renamed_from.as_deref()))
+        .map(|i| (i.name.as_str(), i.renamed_from.as_deref(), i.is_draft()))
         .collect();
     assert_eq!(
         added,
-        [("A (2)", Some("A")), ("A (3)", Some("A")), ("New", None)]
+        [
+            ("A (2)", Some("A"), false),
+            ("Draft one", None, true),
+            ("A (3)", Some("A"), false),
+            ("New", None, false)
+        ]
     );
     let lines = report.messages();
     assert_eq!(
         lines[0],
         "Imported \"A\" as \"A (2)\" because that name was already taken"
     );
-    assert_eq!(lines[2], "Imported \"New\"");
-    assert_eq!(lines[3], rejected);
-    // The original "A" is untouched, and the import is stored.
-    assert_eq!(names(&lib), ["A (2)", "A (3)", "New", "B", "A"]);
-    let (reopened, _) = Library::open(store);
-    assert_eq!(reopened.list("").len(), 5);
     assert_eq!(
-        reopened.get(&report.added[2].id).map(|e| e.created_ms),
+        lines[1],
+        "Imported \"Draft one\" as a draft to correct (tasks[0].distance_m: -3 is outside the \
+         allowed range 0.1 to 1000 m)"
+    );
+    assert_eq!(lines[3], "Imported \"New\"");
+    assert_eq!(lines[4], rejected);
+    assert_eq!(
+        report.headline(),
+        "Imported 4 scenarios (1 as a draft to correct); 2 renamed because the name was taken; \
+         1 was not imported."
+    );
+    assert!(report.needs_attention());
+    // The original "A" is untouched, the import is stored, the draft marked.
+    assert_eq!(
+        names(&lib),
+        ["A (2)", "A (3)", "Draft one", "New", "B", "A"]
+    );
+    assert!(lib.list("Draft").iter().all(|s| s.draft));
+    let (reopened, _) = Library::open(store);
+    assert_eq!(reopened.list("").len(), 6);
+    assert_eq!(
+        reopened.get(&report.added[3].id).map(|e| e.created_ms),
         Some(7)
+    );
+}
+
+#[test]
+fn a_backup_comes_back_whole_drafts_and_times_included() {
+    let (mut lib, _, a, _) = two_entries();
+    let mut draft = sample("x".repeat(crate::scenario::MAX_NAME_CHARS + 7).as_str());
+    draft.wearer.age_years = 130.0;
+    draft.tasks[0].name = String::new();
+    assert_eq!(lib.save(&a, draft, 3), Ok(Persisted::Stored));
+    assert_eq!(lib.set_note(&a, "kept as typed", 4), Ok(Persisted::Stored));
+    let backup = lib.export_all(5).expect("exports");
+
+    let (mut restored, _) = Library::open(MemoryStore::new());
+    let report = restored.import(parse_import(&backup).expect("reads"), 99);
+    assert_eq!(report.added.len(), 2);
+    assert!(report.rejected.is_empty());
+    assert_eq!(report.added.iter().filter(|i| i.is_draft()).count(), 1);
+    assert_eq!(
+        restored.export_all(5).expect("exports"),
+        backup,
+        "byte for byte"
     );
 }
 
@@ -630,5 +678,217 @@ fn the_unknown_field_notice_names_the_first_few_and_counts_the_rest() {
             "7 fields in the file are not part of clearspan's format, so they were ignored \
              (misspellings?): f0, f1, f2, f3, f4 and 2 more."
         )
+    );
+}
+
+#[test]
+fn a_refused_edit_stays_marked_whatever_is_open_and_the_next_write_retries_it() {
+    let (mut lib, store, a, b) = two_entries();
+    assert_eq!(
+        lib.save_status(Some(&a)).to_string(),
+        "Saved on this device"
+    );
+    store.borrow_mut().set_capacity(Some(0));
+    assert_eq!(
+        lib.save(&a, sample("A edited"), 5),
+        Ok(Persisted::KeptInMemory(StoreError::Full))
+    );
+    let status = lib.save_status(Some(&a));
+    assert_eq!(status.open, Some(Unsaved::Refused(StoreError::Full)));
+    contains(
+        &status.to_string(),
+        "Kept in this tab only: the browser's storage",
+    );
+    // Opening B must not say "Saved" without a word about A.
+    let status = lib.save_status(Some(&b)).to_string();
+    contains(
+        &status,
+        "Saved on this device; 1 other scenario is kept in this tab only: the browser's storage",
+    );
+    assert!(lib.has_unsaved());
+    assert_eq!(
+        lib.save_status(None).to_string(),
+        "Kept in this tab only: not stored yet; your next edit stores it (1 other scenario is too)"
+    );
+
+    // Room again: a write of B writes A too.
+    store.borrow_mut().set_capacity(None);
+    assert_eq!(lib.save(&b, sample("B edited"), 6), Ok(Persisted::Stored));
+    assert!(!lib.has_unsaved());
+    let stored = read_entry(store.borrow().raw(&key_for(&a)).expect("stored")).expect("reads");
+    assert_eq!(stored.scenario.name, "A edited");
+}
+
+#[test]
+fn staged_changes_wait_until_written_and_a_refusal_stops_the_round() {
+    let (mut lib, store, a, b) = two_entries();
+    lib.stage(&a, sample("A staged"), 5).expect("open");
+    let c = lib.create_unwritten(sample("C staged"), "", 6);
+    assert_eq!(lib.save_status(Some(&a)).to_string(), "Saving…");
+    assert_eq!(
+        lib.stage(&b, sample("B"), 7),
+        Ok(()),
+        "unchanged: nothing to write"
+    );
+    assert_eq!(lib.unsaved_ids().len(), 2);
+
+    store.borrow_mut().set_capacity(Some(0));
+    let round = lib.save_unsaved();
+    assert_eq!(
+        round.len(),
+        1,
+        "storage refused the first, so the rest wait"
+    );
+    assert_eq!(lib.unsaved_ids().len(), 2);
+    assert_eq!(
+        lib.save_status(Some(&c)).open,
+        Some(Unsaved::Refused(StoreError::Full)),
+        "the one not tried is marked with the same refusal"
+    );
+
+    store.borrow_mut().set_capacity(None);
+    let round = lib.save_unsaved();
+    assert_eq!(
+        round,
+        [
+            (a.clone(), Ok(Persisted::Stored)),
+            (c, Ok(Persisted::Stored))
+        ]
+    );
+    let (reopened, _) = Library::open(store);
+    assert_eq!(names(&reopened), ["C staged", "A staged", "B"]);
+}
+
+#[test]
+fn a_write_lost_to_another_tab_writing_the_same_revision_is_a_conflict() {
+    let (mut tab1, store, a, _) = two_entries();
+    assert_eq!(
+        tab1.save(&a, sample("A from tab 1"), 10),
+        Ok(Persisted::Stored)
+    );
+    // Tab 2 had not seen that write and wrote the same revision at the same
+    // moment, as two browser tabs can; its text replaced tab 1's.
+    let key = key_for(&a);
+    let mine = store.borrow().raw(&key).expect("stored").to_string();
+    let theirs = mine.replace("A from tab 1", "A from tab 2");
+    store.borrow_mut().insert_raw(&key, &theirs);
+
+    let Err(LibraryError::Conflict(c)) = tab1.reload(&a) else {
+        panic!("the lost write must be reported")
+    };
+    assert_eq!(
+        c.theirs,
+        Theirs::Newer {
+            revision: 2,
+            name: "A from tab 2".into()
+        }
+    );
+    assert_eq!(
+        tab1.get(&a).map(|e| e.scenario.name.as_str()),
+        Some("A from tab 1"),
+        "this tab keeps its version"
+    );
+    assert_eq!(tab1.save_status(Some(&a)).open, Some(Unsaved::Conflict));
+    // Its next edit does not overwrite the other tab's text either.
+    assert!(matches!(
+        tab1.save(&a, sample("A again"), 11),
+        Err(LibraryError::Conflict(_))
+    ));
+    assert_eq!(store.borrow().raw(&key), Some(theirs.as_str()));
+    let (copy, result) = tab1.keep_mine_as_copy(&a, 12).expect("resolves");
+    assert_eq!(result, Ok(Persisted::Stored));
+    assert_eq!(
+        tab1.get(&copy).map(|e| e.scenario.name.as_str()),
+        Some("A again")
+    );
+
+    // A later write that saw tab 1's is simply newer.
+    let (mut tab3, _) = Library::open(Rc::clone(&store));
+    assert_eq!(
+        tab3.save(&copy, sample("copy edited"), 13),
+        Ok(Persisted::Stored)
+    );
+    assert_eq!(tab1.reload(&copy), Ok(Reloaded::Updated));
+    let (changed, conflicts) = tab1.reload_open();
+    assert!(changed.is_empty() && conflicts.is_empty());
+}
+
+#[test]
+fn a_stored_revision_at_the_integer_maximum_keeps_the_check_on() {
+    let store = shared();
+    let (mut setup, _) = Library::open(Rc::clone(&store));
+    let (a, _) = setup.create(sample("A"), "", 1);
+    let key = key_for(&a);
+    let at_max = store
+        .borrow()
+        .raw(&key)
+        .expect("stored")
+        .replace("\"revision\":1", &format!("\"revision\":{}", u64::MAX));
+    store.borrow_mut().insert_raw(&key, &at_max);
+
+    let (mut tab1, _) = Library::open(Rc::clone(&store));
+    let (mut tab2, _) = Library::open(Rc::clone(&store));
+    assert_eq!(
+        tab1.save(&a, sample("A from tab 1"), 2),
+        Ok(Persisted::Stored)
+    );
+    assert_eq!(tab1.get(&a).map(|e| e.revision), Some(u64::MAX));
+    assert!(
+        matches!(
+            tab2.save(&a, sample("A from tab 2"), 3),
+            Err(LibraryError::Conflict(_))
+        ),
+        "the same revision number does not hide tab 1's write"
+    );
+    assert_eq!(tab2.take_theirs(&a), Ok(Reloaded::Updated));
+    assert_eq!(
+        tab2.save(&a, sample("A from tab 2"), 4),
+        Ok(Persisted::Stored)
+    );
+    // Tab 1 cannot tell a successor from a rival at the maximum: it asks.
+    assert!(matches!(tab1.reload(&a), Err(LibraryError::Conflict(_))));
+}
+
+#[test]
+fn a_file_of_many_bad_items_is_summed_up_in_one_headline_and_a_bounded_list() {
+    let good = ExportItem {
+        note: String::new(),
+        created_ms: None,
+        changed_ms: None,
+        scenario: sample("Good"),
+    };
+    let mut file: Value =
+        serde_json::from_str(&encode_export(&[good], 1).expect("encodes")).expect("JSON");
+    let list = file["scenarios"].as_array_mut().expect("a list");
+    list.extend((0..100_000).map(|i| json!(i)));
+    let (mut lib, _) = Library::open(MemoryStore::new());
+    let report = lib.import(parse_import(&file.to_string()).expect("reads"), 2);
+    assert_eq!(
+        report.headline(),
+        "Imported 1 scenario; 100,000 were not imported."
+    );
+    let (lines, more) = report.details(200);
+    assert_eq!(lines.len(), 200);
+    assert_eq!(more, 100_001 - 200);
+    assert_eq!(lines[0], "Imported \"Good\"");
+    contains(&lines[1], "Scenario 2 was not imported: scenarios[1]");
+}
+
+#[test]
+fn headlines_count_what_happened() {
+    let (mut lib, _) = Library::open(MemoryStore::new());
+    let empty = parse_import(
+        "{\"format\": \"clearspan-scenario-export\", \"version\": 2, \"scenarios\": []}",
+    )
+    .expect("reads");
+    let report = lib.import(empty, 1);
+    assert_eq!(
+        report.headline(),
+        "Nothing was imported: the file holds no scenarios."
+    );
+    assert!(!report.needs_attention());
+    assert_eq!(
+        report.details(10),
+        (vec!["The file holds no scenarios.".to_string()], 0)
     );
 }

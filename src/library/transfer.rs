@@ -1,18 +1,24 @@
 //! Files in and out: export of one, some or all scenarios as one JSON file,
 //! and import of untrusted files. Import reads with the size and nesting
-//! caps, migrates, runs the scenario validation on each scenario, and takes
-//! the good ones even when others are bad; fields it does not know are
-//! listed so the user can be told. A name already in the library is never
-//! overwritten but gets the next free "… (2)".
+//! caps, migrates, and takes every scenario that decodes, even when others
+//! do not; one that fails the scenario validation comes in as a draft,
+//! marked with its problems, exactly as the form saved it, so whatever can
+//! be saved can be imported again and a backup restores every scenario with
+//! its times. Fields it does not know are listed so the user can be told.
+//! A name already in the library is never overwritten but gets the next
+//! free "… (2)". What an import did is summed up in one notice with counts
+//! and a list the user can open, however many items the file held.
 
 use super::collection::{Library, LibraryError, Persisted};
 use super::format::{encode_export, EntryId, ExportItem};
 use super::migrate::{migrate_export, ExportDocument};
 use super::read::{document_text, parse_limited, ReadError};
-use super::store::KeyValueStore;
+use super::store::{KeyValueStore, StoreError};
 use super::unknown;
+use crate::display::thousands;
 use crate::scenario::{validate, FieldError, Problem};
 use serde_json::Value;
+use std::collections::BTreeMap;
 use std::fmt;
 
 /// A scenario of an import file that was not taken, with every problem found.
@@ -42,8 +48,11 @@ impl fmt::Display for RejectedItem {
 /// An import file read and checked, before anything is added to the library.
 #[derive(Debug, Clone, PartialEq)]
 pub struct ImportBatch {
-    /// Scenarios that passed every check, in file order.
+    /// Scenarios that decoded, in file order (drafts that fail the scenario
+    /// validation included: they are imported as drafts).
     pub accepted: Vec<ExportItem>,
+    /// The position in the file of each accepted scenario, counting from 1.
+    pub numbers: Vec<usize>,
     /// Scenarios that did not, with their problems.
     pub rejected: Vec<RejectedItem>,
     /// Paths of the fields clearspan does not know, in the envelope and in
@@ -74,42 +83,28 @@ pub fn parse_import_value(document: &Value) -> Result<ImportBatch, ReadError> {
 fn check_items(document: &Value, doc: ExportDocument) -> ImportBatch {
     let mut batch = ImportBatch {
         accepted: Vec::new(),
+        numbers: Vec::new(),
         rejected: Vec::new(),
         unknown_fields: Vec::new(),
     };
     // Where each scenario of the file went in `accepted`, if it was taken.
     let mut taken: Vec<Option<usize>> = Vec::new();
     for (i, item) in doc.items.into_iter().enumerate() {
-        let problems = match item.item {
-            Ok(decoded) => match validate(decoded.scenario.clone()) {
-                Ok(_) => {
-                    taken.push(Some(batch.accepted.len()));
-                    batch.accepted.push(decoded);
-                    continue;
-                }
-                Err(errors) => {
-                    let prefix = if item.path.is_empty() {
-                        "scenario".to_string()
-                    } else {
-                        format!("{}.scenario", item.path)
-                    };
-                    errors
-                        .into_iter()
-                        .map(|e| FieldError {
-                            path: format!("{prefix}.{}", e.path),
-                            problem: e.problem,
-                        })
-                        .collect()
-                }
-            },
-            Err(errors) => errors,
-        };
-        taken.push(None);
-        batch.rejected.push(RejectedItem {
-            number: i + 1,
-            name: item.name,
-            problems,
-        });
+        match item.item {
+            Ok(decoded) => {
+                taken.push(Some(batch.accepted.len()));
+                batch.accepted.push(decoded);
+                batch.numbers.push(i + 1);
+            }
+            Err(problems) => {
+                taken.push(None);
+                batch.rejected.push(RejectedItem {
+                    number: i + 1,
+                    name: item.name,
+                    problems,
+                });
+            }
+        }
     }
     let items: Vec<Option<&ExportItem>> = taken
         .iter()
@@ -122,6 +117,8 @@ fn check_items(document: &Value, doc: ExportDocument) -> ImportBatch {
 /// One scenario added by an import.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Imported {
+    /// Its position in the file, counting from 1.
+    pub number: usize,
     /// The new entry.
     pub id: EntryId,
     /// The name it got.
@@ -130,6 +127,21 @@ pub struct Imported {
     pub renamed_from: Option<String>,
     /// Whether it reached storage.
     pub persisted: Result<Persisted, LibraryError>,
+    /// Why it cannot be planned yet, with paths inside the scenario
+    /// (`wearer.age_years`); empty unless it came in as a draft.
+    pub draft_problems: Vec<FieldError>,
+}
+
+impl Imported {
+    /// Whether it came in as a draft to correct.
+    pub fn is_draft(&self) -> bool {
+        !self.draft_problems.is_empty()
+    }
+
+    /// Whether storage holds it.
+    pub fn is_stored(&self) -> bool {
+        self.persisted == Ok(Persisted::Stored)
+    }
 }
 
 impl fmt::Display for Imported {
@@ -141,6 +153,14 @@ impl fmt::Display for Imported {
                 self.name
             )?,
             None => write!(f, "Imported \"{}\"", self.name)?,
+        }
+        if self.is_draft() {
+            let problems: Vec<String> = self
+                .draft_problems
+                .iter()
+                .map(FieldError::to_string)
+                .collect();
+            write!(f, " as a draft to correct ({})", problems.join("; "))?;
         }
         match &self.persisted {
             Ok(Persisted::Stored) => Ok(()),
@@ -165,14 +185,95 @@ pub struct ImportReport {
 const NAMED_UNKNOWN_FIELDS: usize = 5;
 
 impl ImportReport {
-    /// One plain-language line per scenario of the file.
+    /// One plain-language line per scenario of the file, in file order.
     pub fn messages(&self) -> Vec<String> {
-        let mut lines: Vec<String> = self.added.iter().map(Imported::to_string).collect();
-        lines.extend(self.rejected.iter().map(RejectedItem::to_string));
+        let mut added = self.added.iter().peekable();
+        let mut rejected = self.rejected.iter().peekable();
+        let mut lines = Vec::with_capacity(self.added.len() + self.rejected.len());
+        loop {
+            let line = match (added.peek(), rejected.peek()) {
+                (Some(a), Some(r)) if a.number < r.number => added.next().map(|a| a.to_string()),
+                (Some(_), Some(_)) | (None, Some(_)) => rejected.next().map(|r| r.to_string()),
+                (Some(_), None) => added.next().map(|a| a.to_string()),
+                (None, None) => break,
+            };
+            lines.extend(line);
+        }
         if lines.is_empty() {
             lines.push("The file holds no scenarios.".to_string());
         }
         lines
+    }
+
+    /// The one line that sums the import up: how many scenarios came in
+    /// (and how many of them as drafts, or renamed), how many did not, how
+    /// many storage refused, and how many unknown fields were ignored.
+    pub fn headline(&self) -> String {
+        let added = self.added.len();
+        let mut text = match added {
+            0 => "Nothing was imported".to_string(),
+            1 => "Imported 1 scenario".to_string(),
+            n => format!("Imported {} scenarios", thousands(n)),
+        };
+        let drafts = self.added.iter().filter(|a| a.is_draft()).count();
+        match drafts {
+            0 => {}
+            1 => text.push_str(" (1 as a draft to correct)"),
+            n => text.push_str(&format!(" ({} as drafts to correct)", thousands(n))),
+        }
+        let renamed = self
+            .added
+            .iter()
+            .filter(|a| a.renamed_from.is_some())
+            .count();
+        if renamed > 0 {
+            text.push_str(&format!(
+                "; {} renamed because the name was taken",
+                thousands(renamed)
+            ));
+        }
+        match self.rejected.len() {
+            0 => {}
+            1 => text.push_str("; 1 was not imported"),
+            n => text.push_str(&format!("; {} were not imported", thousands(n))),
+        }
+        let kept = self.added.iter().filter(|a| !a.is_stored()).count();
+        if kept > 0 {
+            text.push_str(&format!(
+                "; {} kept in this tab only until storage takes them",
+                thousands(kept)
+            ));
+        }
+        match self.unknown_fields.len() {
+            0 => {}
+            1 => text.push_str("; 1 unknown field ignored"),
+            n => text.push_str(&format!("; {} unknown fields ignored", thousands(n))),
+        }
+        if added == 0 && self.rejected.is_empty() {
+            text.push_str(": the file holds no scenarios");
+        }
+        text.push('.');
+        text
+    }
+
+    /// Whether something needs the user's attention (a scenario not taken, a
+    /// draft, storage refusing, unknown fields).
+    pub fn needs_attention(&self) -> bool {
+        !self.rejected.is_empty()
+            || !self.unknown_fields.is_empty()
+            || self.added.iter().any(|a| a.is_draft() || !a.is_stored())
+    }
+
+    /// The first `limit` lines of the list behind the headline (the unknown
+    /// fields first, then one line per scenario in file order) and how many
+    /// more there are, so a file of any size gives a list a page can show.
+    pub fn details(&self, limit: usize) -> (Vec<String>, usize) {
+        let mut lines: Vec<String> = self.unknown_fields_notice().into_iter().collect();
+        let messages = self.messages();
+        let total = lines.len() + messages.len();
+        lines.extend(messages.into_iter().take(limit.saturating_sub(lines.len())));
+        let more = total - lines.len();
+        (lines, more)
     }
 
     /// One warning naming the fields that were ignored, or `None` when there
@@ -212,27 +313,43 @@ impl ImportReport {
 impl<S: KeyValueStore> Library<S> {
     /// Adds every accepted scenario of `batch` as a new entry at `now_ms`,
     /// renaming any whose name is already taken (in the library or earlier in
-    /// the batch). The creation time in the file is kept; the change time is
-    /// the import, so imported scenarios head the list.
+    /// the batch), and writes them. The times in the file are kept (a backup
+    /// comes back as it was); a scenario without them gets `now_ms`. A
+    /// scenario that fails validation comes in as a draft with its problems.
     pub fn import(&mut self, batch: ImportBatch, now_ms: u64) -> ImportReport {
-        let added = batch
+        let mut added: Vec<Imported> = batch
             .accepted
             .into_iter()
-            .map(|item| {
+            .zip(batch.numbers)
+            .map(|(item, number)| {
+                let draft_problems = validate(item.scenario.clone()).err().unwrap_or_default();
                 let mut scenario = item.scenario;
                 let wanted = scenario.name.clone();
                 scenario.name = self.free_name(&wanted);
                 let name = scenario.name.clone();
-                let created_ms = item.created_ms.unwrap_or(now_ms);
-                let (id, persisted) = self.insert_new(scenario, &item.note, created_ms, now_ms);
+                let changed_ms = item.changed_ms.unwrap_or(now_ms);
+                let created_ms = item.created_ms.unwrap_or(changed_ms);
+                let id = self.insert_new(scenario, &item.note, created_ms, changed_ms);
                 Imported {
+                    number,
                     id,
                     renamed_from: (name != wanted).then_some(wanted),
                     name,
-                    persisted,
+                    persisted: Ok(Persisted::Stored),
+                    draft_problems,
                 }
             })
             .collect();
+        // One round of writes: a refusal stops it, and whatever storage
+        // refused waits in memory, marked, for the next write.
+        let mut written: BTreeMap<EntryId, Result<Persisted, LibraryError>> =
+            self.save_unsaved().into_iter().collect();
+        let refusal = self.storage_problem.unwrap_or(StoreError::Full);
+        for item in &mut added {
+            item.persisted = written
+                .remove(&item.id)
+                .unwrap_or(Ok(Persisted::KeptInMemory(refusal)));
+        }
         ImportReport {
             added,
             rejected: batch.rejected,

@@ -1,5 +1,6 @@
 //! The top-level layout of the app: masthead, the input panels and the outcome.
 
+use super::locks::with_write_lock;
 use super::options_panel::OptionsPanel;
 use super::outcome::OutcomePanel;
 use super::shelf::is_own_key;
@@ -22,6 +23,29 @@ pub fn App() -> impl IntoView {
         }
         if let Some(scenario) = state.shelf.follow_other_tab(key) {
             state.replace_scenario(scenario);
+        }
+    });
+    // Back in view (focus, or the tab shown again): write what storage
+    // refused before, and catch up with other tabs' writes.
+    let catch_up = move |_: web_sys::Event| {
+        with_write_lock(move || {
+            if let Some(scenario) = state.shelf.catch_up() {
+                state.replace_scenario(scenario);
+            }
+        })
+    };
+    let _focus = window_event_listener_untyped("focus", catch_up);
+    let _shown = window_event_listener_untyped("visibilitychange", move |ev| {
+        let visible = document().visibility_state() == web_sys::VisibilityState::Visible;
+        if visible {
+            catch_up(ev);
+        }
+    });
+    // Leaving while a change is in this tab only would lose it: ask first.
+    let _leaving = window_event_listener(leptos::ev::beforeunload, move |ev| {
+        if state.shelf.has_unsaved() {
+            ev.prevent_default();
+            ev.set_return_value("Some changes are kept in this tab only.");
         }
     });
     let unit_label = move || match state.unit.get() {

@@ -5,6 +5,7 @@ mod app;
 mod bind;
 mod fields;
 mod files;
+mod locks;
 mod options_panel;
 mod outcome;
 mod shelf;

@@ -2,22 +2,29 @@
 //! the library at start (importing the fictional demos on a first visit),
 //! autosaves every edit of the open scenario, follows changes made in other
 //! tabs, and turns every outcome the library reports into a notice the user
-//! sees. Storage faults never lose the open work: it stays in memory and the
-//! notice offers an export.
+//! sees. Storage faults never lose the open work: it stays in memory, marked,
+//! the notice offers an export, and every later write and every return of
+//! the tab into view tries again. Every write takes the app's write lock, so
+//! tabs write one at a time.
 
+use super::locks::with_write_lock;
 use super::storage::BrowserStore;
 use crate::display::LengthUnit;
 use crate::library::{
-    id_for_key, parse_import, Conflict, EntryId, KeyValueStore, Library, LibraryError, Persisted,
-    Reloaded, StoreError, APP_PREFIX, DEMO_FILES,
+    id_for_key, parse_import, Conflict, EntryId, ImportReport, KeyValueStore, Library,
+    LibraryError, Persisted, Reloaded, SaveStatus, APP_PREFIX, DEMO_FILES,
 };
 use crate::scenario::Scenario;
 use leptos::prelude::*;
 use serde::{Deserialize, Serialize};
+use std::sync::atomic::{AtomicU64, Ordering};
 
 /// The storage key of the user's settings (under the app prefix, so that
 /// erasing the app's data removes it too).
 const SETTINGS_KEY: &str = "clearspan/settings";
+
+/// How many lines the list behind an import notice shows; the rest are counted.
+const NOTICE_LIST_LINES: usize = 200;
 
 /// What the app remembers between visits besides the scenarios.
 #[derive(Debug, Clone, Default, Serialize, Deserialize)]
@@ -34,15 +41,36 @@ pub fn now_ms() -> u64 {
     js_sys::Date::now().max(0.0) as u64
 }
 
-/// A message for the user, with an optional action.
+/// A message for the user, with an optional action and an optional list.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Notice {
+    /// Identifies the notice while it is shown (lists are keyed by it).
+    pub id: u64,
     /// The words shown.
     pub text: String,
     /// Whether something went wrong (shown as a warning) or is information.
     pub warning: bool,
     /// A button offered with the notice.
     pub action: Option<NoticeAction>,
+    /// Lines the user can open under the notice (empty: none).
+    pub details: Vec<String>,
+    /// How many further lines exist beyond `details`.
+    pub more: usize,
+}
+
+impl Notice {
+    /// A notice without a list, with a fresh id.
+    fn new(text: String, warning: bool, action: Option<NoticeAction>) -> Self {
+        static NEXT: AtomicU64 = AtomicU64::new(0);
+        Notice {
+            id: NEXT.fetch_add(1, Ordering::Relaxed),
+            text,
+            warning,
+            action,
+            details: Vec::new(),
+            more: 0,
+        }
+    }
 }
 
 /// Buttons a notice can carry.
@@ -52,15 +80,6 @@ pub enum NoticeAction {
     UndoDelete,
     /// Save every scenario to a file (offered when storage refuses work).
     ExportAll,
-}
-
-/// Whether the open scenario is safely stored.
-#[derive(Debug, Clone, PartialEq)]
-pub enum SaveState {
-    /// Storage holds the latest edit.
-    Saved,
-    /// The latest edit is in this tab only, for the reason given.
-    InMemoryOnly(String),
 }
 
 /// The shelf's signals; cheap to copy.
@@ -74,8 +93,6 @@ pub struct Shelf {
     pub notices: RwSignal<Vec<Notice>>,
     /// A change made in another tab that clashes with this tab's edits.
     pub conflict: RwSignal<Option<Conflict>>,
-    /// Whether the open scenario is stored.
-    pub save_state: RwSignal<SaveState>,
 }
 
 /// The opened shelf, the scenario to show first and the unit to show it in.
@@ -92,15 +109,11 @@ impl Shelf {
     /// Opens the library from local storage. Entries that cannot be read are
     /// set aside and reported; an empty library gets the fictional demos.
     pub fn open() -> Opening {
-        let (mut library, report) = Library::open(BrowserStore);
+        let (mut library, report) = Library::open(BrowserStore::probe());
         let mut notices: Vec<Notice> = report
             .messages()
             .into_iter()
-            .map(|text| Notice {
-                text,
-                warning: true,
-                action: report.storage.map(|_| NoticeAction::ExportAll),
-            })
+            .map(|text| Notice::new(text, true, report.storage.map(|_| NoticeAction::ExportAll)))
             .collect();
         let settings = read_settings(&library);
         let mut current = settings
@@ -122,7 +135,6 @@ impl Shelf {
             current: RwSignal::new(current),
             notices: RwSignal::new(notices),
             conflict: RwSignal::new(None),
-            save_state: RwSignal::new(SaveState::Saved),
         };
         // A reload opens the same scenario, the first visit's demo included.
         shelf.remember(None);
@@ -133,69 +145,118 @@ impl Shelf {
         }
     }
 
+    /// What the save indicator says (reactive): worked out from the library
+    /// each time, so it is never "Saved" while anything waits.
+    pub fn status(&self) -> SaveStatus {
+        let current = self.current.get();
+        self.library.with(|lib| lib.save_status(current.as_ref()))
+    }
+
+    /// Whether closing the tab now would lose a change.
+    pub fn has_unsaved(&self) -> bool {
+        self.library.with_untracked(Library::has_unsaved)
+    }
+
     /// Adds a notice.
     pub fn tell(&self, text: impl Into<String>, warning: bool, action: Option<NoticeAction>) {
-        let notice = Notice {
-            text: text.into(),
-            warning,
-            action,
-        };
+        let notice = Notice::new(text.into(), warning, action);
         self.notices.update(|n| n.push(notice));
     }
 
-    /// Stores the edited scenario: into its entry, or as a new entry when none is open.
-    pub fn autosave(&self, scenario: &Scenario) {
-        let now = now_ms();
-        let result = match self.current.get_untracked() {
-            Some(id) => self
-                .library
-                .try_update(|lib| lib.save(&id, scenario.clone(), now))
-                .unwrap_or(Err(LibraryError::NotFound(id))),
-            None => {
-                let created = self
-                    .library
-                    .try_update(|lib| lib.create(scenario.clone(), "", now));
-                match created {
-                    Some((id, result)) => {
-                        self.current.set(Some(id));
-                        self.remember(None);
-                        result
-                    }
-                    None => Err(LibraryError::Storage(StoreError::Unavailable)),
-                }
-            }
-        };
-        self.show_persisted(result);
+    /// Adds a notice unless one with the same words is already shown.
+    fn tell_once(&self, text: String, warning: bool, action: Option<NoticeAction>) {
+        let shown = self
+            .notices
+            .with_untracked(|n| n.iter().any(|notice| notice.text == text));
+        if !shown {
+            self.tell(text, warning, action);
+        }
     }
 
-    /// Turns the outcome of a write into the save state and notices.
+    /// Removes the notice `id`.
+    pub fn dismiss(&self, id: u64) {
+        self.notices.update(|n| n.retain(|notice| notice.id != id));
+    }
+
+    /// Sums an import up in one notice, with the list behind it.
+    pub fn tell_import(&self, report: &ImportReport) {
+        let (details, more) = report.details(NOTICE_LIST_LINES);
+        let kept = report.added.iter().any(|a| !a.is_stored());
+        let mut notice = Notice::new(
+            report.headline(),
+            report.needs_attention(),
+            kept.then_some(NoticeAction::ExportAll),
+        );
+        notice.details = details;
+        notice.more = more;
+        self.notices.update(|n| n.push(notice));
+    }
+
+    /// Stores the edited scenario: into its entry, or as a new entry when
+    /// none is open. Memory takes the change at once (the indicator says
+    /// "Saving…"); storage takes it when this tab's turn to write comes.
+    pub fn autosave(&self, scenario: &Scenario) {
+        let now = now_ms();
+        let current = self.current.get_untracked();
+        let staged = current.as_ref().and_then(|id| {
+            self.library
+                .try_update(|lib| lib.stage(id, scenario.clone(), now).ok())
+                .flatten()
+        });
+        if staged.is_none() {
+            let created = self
+                .library
+                .try_update(|lib| lib.create_unwritten(scenario.clone(), "", now));
+            if let Some(id) = created {
+                self.current.set(Some(id));
+                self.remember(None);
+            }
+        }
+        let shelf = *self;
+        with_write_lock(move || shelf.write_waiting());
+    }
+
+    /// Writes every change waiting in memory or refused before, and says
+    /// what went wrong, if anything.
+    pub fn write_waiting(&self) {
+        let results = self
+            .library
+            .try_update(|lib| lib.save_unsaved())
+            .unwrap_or_default();
+        for (_, result) in results {
+            self.show_persisted(result);
+        }
+    }
+
+    /// After the tab comes back into view: writes what waits, and reloads
+    /// every open entry in case the browser did not report another tab's
+    /// write. Returns the scenario to show if the open one changed.
+    pub fn catch_up(&self) -> Option<Scenario> {
+        self.write_waiting();
+        let (changed, conflicts) = self
+            .library
+            .try_update(|lib| lib.reload_open())
+            .unwrap_or_default();
+        if let Some(c) = conflicts.into_iter().next() {
+            self.conflict.set(Some(c));
+        }
+        let current = self.current.get_untracked()?;
+        changed
+            .into_iter()
+            .find(|(id, _)| *id == current)
+            .and_then(|(id, outcome)| self.show_reloaded(&id, outcome))
+    }
+
+    /// Turns the outcome of a write into notices and the conflict banner;
+    /// the save indicator follows the library by itself.
     pub fn show_persisted(&self, result: Result<Persisted, LibraryError>) {
         match result {
-            Ok(Persisted::Stored) => self.save_state.set(SaveState::Saved),
+            Ok(Persisted::Stored) | Err(LibraryError::NotFound(_)) => {}
             Ok(Persisted::KeptInMemory(e)) => {
-                let first_time = self.save_state.get_untracked() == SaveState::Saved;
-                self.save_state.set(SaveState::InMemoryOnly(e.to_string()));
-                if first_time {
-                    self.tell(e.to_string(), true, Some(NoticeAction::ExportAll));
-                }
+                self.tell_once(e.to_string(), true, Some(NoticeAction::ExportAll));
             }
-            Err(LibraryError::Conflict(c)) => {
-                self.save_state.set(SaveState::InMemoryOnly(
-                    "another tab changed this scenario".into(),
-                ));
-                self.conflict.set(Some(c));
-            }
-            Err(LibraryError::NotFound(_)) => {
-                // The entry went away (deleted here or elsewhere): the work
-                // stays open and the next edit stores it as a new scenario.
-                self.current.set(None);
-                self.save_state
-                    .set(SaveState::InMemoryOnly("not stored yet".into()));
-            }
-            Err(e) => {
-                self.save_state.set(SaveState::InMemoryOnly(e.to_string()));
-                self.tell(e.to_string(), true, Some(NoticeAction::ExportAll));
-            }
+            Err(LibraryError::Conflict(c)) => self.conflict.set(Some(c)),
+            Err(e) => self.tell_once(e.to_string(), true, Some(NoticeAction::ExportAll)),
         }
     }
 
@@ -219,7 +280,6 @@ impl Shelf {
     /// Follows a change another tab made to `key` (the browser's storage
     /// event); returns the scenario to show if the open one changed.
     pub fn follow_other_tab(&self, key: Option<String>) -> Option<Scenario> {
-        let current = self.current.get_untracked();
         let Some(key) = key else {
             let report = self.library.try_update(|lib| lib.load_all())?;
             for text in report.messages() {
@@ -228,13 +288,28 @@ impl Shelf {
             return None;
         };
         let id = id_for_key(&key)?;
-        let outcome = self.library.try_update(|lib| lib.reload(&id))?;
-        let is_open = current.as_ref() == Some(&id);
+        match self.library.try_update(|lib| lib.reload(&id))? {
+            Ok(outcome) => self.show_reloaded(&id, outcome),
+            Err(LibraryError::Conflict(c)) => {
+                self.conflict.set(Some(c));
+                None
+            }
+            Err(e) => {
+                self.tell(e.to_string(), true, None);
+                None
+            }
+        }
+    }
+
+    /// Says what reloading entry `id` did; returns the scenario to show if
+    /// it is the open one and changed.
+    fn show_reloaded(&self, id: &EntryId, outcome: Reloaded) -> Option<Scenario> {
+        let is_open = self.current.get_untracked().as_ref() == Some(id);
         match outcome {
-            Ok(Reloaded::Updated) if is_open => self
+            Reloaded::Updated if is_open => self
                 .library
-                .with_untracked(|lib| lib.get(&id).map(|e| e.scenario.clone())),
-            Ok(Reloaded::Removed) if is_open => {
+                .with_untracked(|lib| lib.get(id).map(|e| e.scenario.clone())),
+            Reloaded::Removed if is_open => {
                 self.current.set(None);
                 self.tell(
                     "This scenario was deleted in another tab. It stays open here; your next \
@@ -244,7 +319,7 @@ impl Shelf {
                 );
                 None
             }
-            Ok(Reloaded::SetAside) => {
+            Reloaded::SetAside => {
                 self.tell(
                     "Another program wrote a scenario this version cannot read; it is kept \
                      under \"Set aside\" for recovery.",
@@ -253,15 +328,7 @@ impl Shelf {
                 );
                 None
             }
-            Ok(_) => None,
-            Err(LibraryError::Conflict(c)) => {
-                self.conflict.set(Some(c));
-                None
-            }
-            Err(e) => {
-                self.tell(e.to_string(), true, None);
-                None
-            }
+            _ => None,
         }
     }
 }
@@ -289,11 +356,11 @@ fn import_demos(library: &mut Library<BrowserStore>, notices: &mut Vec<Notice>) 
                     first = report.added.first().map(|a| a.id.clone());
                 }
             }
-            Err(e) => notices.push(Notice {
-                text: format!("The demo {} could not be read: {e}", demo.file_name),
-                warning: true,
-                action: None,
-            }),
+            Err(e) => notices.push(Notice::new(
+                format!("The demo {} could not be read: {e}", demo.file_name),
+                true,
+                None,
+            )),
         }
     }
     first

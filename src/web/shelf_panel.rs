@@ -1,12 +1,15 @@
 //! The shelf panel: the scenarios kept on this device, with new, duplicate,
 //! delete (with undo), export, import, recovery of set-aside entries and
 //! erasing all local data; and the notice bar that reports what happened.
+//! Every action that writes runs in this tab's turn to write
+//! ([`with_write_lock`]).
 
 use super::fields::TextField;
 use super::files::{download_json, read_text};
-use super::shelf::{now_ms, Notice, NoticeAction, SaveState, Shelf};
+use super::locks::with_write_lock;
+use super::shelf::{now_ms, NoticeAction, Shelf};
 use super::state::{use_app_state, AppState};
-use crate::display::file_name_for;
+use crate::display::{file_name_for, thousands};
 use crate::library::{parse_import, EntryId, MAX_DOCUMENT_BYTES};
 use crate::scenario::Scenario;
 use leptos::prelude::*;
@@ -21,7 +24,6 @@ pub fn open_entry(state: AppState, id: EntryId) {
     if let Some(scenario) = scenario {
         shelf.current.set(Some(id));
         state.replace_scenario(scenario);
-        shelf.save_state.set(SaveState::Saved);
         shelf.remember(None);
     }
 }
@@ -41,10 +43,40 @@ pub fn export_all(shelf: Shelf) {
 /// Restores the scenario deleted last and opens it.
 pub fn undo_delete(state: AppState) {
     let shelf = state.shelf;
-    match shelf.library.try_update(|lib| lib.undo_delete()) {
-        Some(Ok((id, persisted))) => {
-            shelf.show_persisted(persisted);
-            open_entry(state, id);
+    with_write_lock(
+        move || match shelf.library.try_update(|lib| lib.undo_delete()) {
+            Some(Ok((id, persisted))) => {
+                shelf.show_persisted(persisted);
+                open_entry(state, id);
+            }
+            Some(Err(e)) => shelf.tell(e.to_string(), true, None),
+            None => {}
+        },
+    );
+}
+
+/// Deletes entry `id` (offering Undo) and opens the next scenario.
+fn delete_entry(state: AppState, id: EntryId) {
+    let shelf = state.shelf;
+    let name = state.scenario.with_untracked(|s| s.name.clone());
+    match shelf.library.try_update(|lib| lib.delete(&id)) {
+        Some(Ok(persisted)) => {
+            shelf.show_persisted(Ok(persisted));
+            shelf.tell(
+                format!("Deleted \"{name}\"."),
+                false,
+                Some(NoticeAction::UndoDelete),
+            );
+            let next = shelf
+                .library
+                .with_untracked(|lib| lib.list("").first().map(|s| s.id.clone()));
+            match next {
+                Some(next) => open_entry(state, next),
+                None => {
+                    shelf.current.set(None);
+                    state.replace_scenario(Scenario::untitled());
+                }
+            }
         }
         Some(Err(e)) => shelf.tell(e.to_string(), true, None),
         None => {}
@@ -65,19 +97,12 @@ fn when(ms: u64) -> String {
 pub fn NoticeBar() -> impl IntoView {
     let state = use_app_state();
     let shelf = state.shelf;
-    let dismiss = move |i: usize| {
-        shelf.notices.update(|n| {
-            if i < n.len() {
-                n.remove(i);
-            }
-        })
-    };
-    let numbered_notices = move || {
-        let notices: Vec<(usize, Notice)> = shelf.notices.get().into_iter().enumerate().collect();
-        notices
-    };
     let keep_mine = move |_| {
-        if let Some(c) = shelf.conflict.get_untracked() {
+        let Some(c) = shelf.conflict.get_untracked() else {
+            return;
+        };
+        shelf.conflict.set(None);
+        with_write_lock(move || {
             match shelf
                 .library
                 .try_update(|lib| lib.keep_mine_as_copy(&c.id, now_ms()))
@@ -89,18 +114,18 @@ pub fn NoticeBar() -> impl IntoView {
                 Some(Err(e)) => shelf.tell(e.to_string(), true, None),
                 None => {}
             }
-        }
-        shelf.conflict.set(None);
+        });
     };
     let take_theirs = move |_| {
-        if let Some(c) = shelf.conflict.get_untracked() {
-            match shelf.library.try_update(|lib| lib.take_theirs(&c.id)) {
-                Some(Ok(_)) => open_entry(state, c.id.clone()),
-                Some(Err(e)) => shelf.tell(e.to_string(), true, None),
-                None => {}
-            }
-        }
+        let Some(c) = shelf.conflict.get_untracked() else {
+            return;
+        };
         shelf.conflict.set(None);
+        match shelf.library.try_update(|lib| lib.take_theirs(&c.id)) {
+            Some(Ok(_)) => open_entry(state, c.id.clone()),
+            Some(Err(e)) => shelf.tell(e.to_string(), true, None),
+            None => {}
+        }
     };
     view! {
         <div class="notices" role="status" aria-live="polite" data-testid="notices">
@@ -112,12 +137,12 @@ pub fn NoticeBar() -> impl IntoView {
                 </div>
             </Show>
             <For
-                each=numbered_notices
-                key=|(i, n)| (*i, n.text.clone())
-                let:item
+                each=move || shelf.notices.get()
+                key=|n| n.id
+                let:notice
             >
                 {
-                    let (i, notice) = item;
+                    let id = notice.id;
                     let action = notice.action.map(|a| {
                         let (words, run): (&str, Box<dyn Fn() + Send + Sync>) = match a {
                             NoticeAction::UndoDelete => ("Undo", Box::new(move || undo_delete(state))),
@@ -126,15 +151,28 @@ pub fn NoticeBar() -> impl IntoView {
                         view! {
                             <button type="button" on:click=move |_| {
                                 run();
-                                dismiss(i);
+                                shelf.dismiss(id);
                             }>{words}</button>
                         }
+                    });
+                    let more = notice.more;
+                    let list = (!notice.details.is_empty()).then(|| view! {
+                        <details class="notice-list">
+                            <summary>"Show the list"</summary>
+                            <ul>
+                                {notice.details.into_iter().map(|line| view! { <li>{line}</li> }).collect_view()}
+                            </ul>
+                            {(more > 0).then(|| view! {
+                                <div class="hint">{format!("and {} more, not listed here", thousands(more))}</div>
+                            })}
+                        </details>
                     });
                     view! {
                         <div class="notice" class:warning=notice.warning data-testid="notice">
                             <p>{notice.text}</p>
+                            {list}
                             {action}
-                            <button type="button" class="quiet" aria-label="Dismiss this message" on:click=move |_| dismiss(i)>
+                            <button type="button" class="quiet" aria-label="Dismiss this message" on:click=move |_| shelf.dismiss(id)>
                                 "Dismiss"
                             </button>
                         </div>
@@ -156,54 +194,36 @@ pub fn ShelfPanel() -> impl IntoView {
     let current = move || shelf.current.get();
 
     let new_scenario = move |_| {
-        let created = shelf
-            .library
-            .try_update(|lib| lib.create(Scenario::untitled(), "", now_ms()));
-        if let Some((id, persisted)) = created {
-            shelf.show_persisted(persisted);
-            open_entry(state, id);
-        }
+        with_write_lock(move || {
+            let created = shelf
+                .library
+                .try_update(|lib| lib.create(Scenario::untitled(), "", now_ms()));
+            if let Some((id, persisted)) = created {
+                shelf.show_persisted(persisted);
+                open_entry(state, id);
+            }
+        });
     };
     let duplicate = move |_| {
         let Some(id) = shelf.current.get_untracked() else {
             return;
         };
-        match shelf.library.try_update(|lib| lib.duplicate(&id, now_ms())) {
-            Some(Ok((copy, persisted))) => {
-                shelf.show_persisted(persisted);
-                open_entry(state, copy);
+        with_write_lock(move || {
+            match shelf.library.try_update(|lib| lib.duplicate(&id, now_ms())) {
+                Some(Ok((copy, persisted))) => {
+                    shelf.show_persisted(persisted);
+                    open_entry(state, copy);
+                }
+                Some(Err(e)) => shelf.tell(e.to_string(), true, None),
+                None => {}
             }
-            Some(Err(e)) => shelf.tell(e.to_string(), true, None),
-            None => {}
-        }
+        });
     };
     let delete = move |_| {
         let Some(id) = shelf.current.get_untracked() else {
             return;
         };
-        let name = state.scenario.with_untracked(|s| s.name.clone());
-        match shelf.library.try_update(|lib| lib.delete(&id)) {
-            Some(Ok(persisted)) => {
-                shelf.show_persisted(Ok(persisted));
-                shelf.tell(
-                    format!("Deleted \"{name}\"."),
-                    false,
-                    Some(NoticeAction::UndoDelete),
-                );
-                let next = shelf
-                    .library
-                    .with_untracked(|lib| lib.list("").first().map(|s| s.id.clone()));
-                match next {
-                    Some(next) => open_entry(state, next),
-                    None => {
-                        shelf.current.set(None);
-                        state.replace_scenario(Scenario::untitled());
-                    }
-                }
-            }
-            Some(Err(e)) => shelf.tell(e.to_string(), true, None),
-            None => {}
-        }
+        with_write_lock(move || delete_entry(state, id));
     };
     let export_current = move |_| {
         let Some(id) = shelf.current.get_untracked() else {
@@ -244,42 +264,38 @@ pub fn ShelfPanel() -> impl IntoView {
                 }
             };
             match parse_import(&text) {
-                Ok(batch) => {
+                Ok(batch) => with_write_lock(move || {
                     let report = shelf.library.try_update(|lib| lib.import(batch, now_ms()));
                     if let Some(report) = report {
-                        let warning = !report.rejected.is_empty();
-                        for line in report.messages() {
-                            shelf.tell(line, warning, None);
-                        }
-                        if let Some(notice) = report.unknown_fields_notice() {
-                            shelf.tell(notice, true, None);
-                        }
+                        shelf.tell_import(&report);
                         if let Some(first) = report.added.first() {
                             open_entry(state, first.id.clone());
                         }
                     }
-                }
+                }),
                 Err(e) => shelf.tell(format!("Nothing was imported: {e}"), true, None),
             }
         });
     };
     let erase = move |_| {
-        match shelf.library.try_update(|lib| lib.erase_all_local_data()) {
-            Some(Ok(count)) => {
-                shelf.current.set(None);
-                state.replace_scenario(Scenario::untitled());
-                shelf.tell(
-                    format!(
-                        "Erased all of clearspan's data on this device ({count} stored items)."
-                    ),
-                    false,
-                    None,
-                );
-            }
-            Some(Err(e)) => shelf.tell(e.to_string(), true, None),
-            None => {}
-        }
         confirming_erase.set(false);
+        with_write_lock(
+            move || match shelf.library.try_update(|lib| lib.erase_all_local_data()) {
+                Some(Ok(count)) => {
+                    shelf.current.set(None);
+                    state.replace_scenario(Scenario::untitled());
+                    shelf.tell(
+                        format!(
+                            "Erased all of clearspan's data on this device ({count} stored items)."
+                        ),
+                        false,
+                        None,
+                    );
+                }
+                Some(Err(e)) => shelf.tell(e.to_string(), true, None),
+                None => {}
+            },
+        );
     };
     let set_aside = move || shelf.library.with(|lib| lib.set_aside().to_vec());
     let name = Signal::derive(move || state.scenario.with(|s| s.name.clone()));
@@ -302,22 +318,21 @@ pub fn ShelfPanel() -> impl IntoView {
             );
             return;
         };
-        if let Some(result) = shelf
-            .library
-            .try_update(|lib| lib.set_note(&id, &v, now_ms()))
-        {
-            shelf.show_persisted(result);
-        }
+        with_write_lock(move || {
+            if let Some(result) = shelf
+                .library
+                .try_update(|lib| lib.set_note(&id, &v, now_ms()))
+            {
+                shelf.show_persisted(result);
+            }
+        });
     });
 
     view! {
         <aside class="panel shelf" aria-labelledby="shelf-heading" data-testid="shelf">
             <h2 id="shelf-heading">"Scenario shelf"</h2>
             <p class="save-state" data-testid="save-state">
-                {move || match shelf.save_state.get() {
-                    SaveState::Saved => "Saved on this device".to_string(),
-                    SaveState::InMemoryOnly(why) => format!("Kept in this tab only: {why}"),
-                }}
+                {move || shelf.status().to_string()}
             </p>
             <TextField label="Scenario name" value=name on_input=on_name problem=name_problem test_id="scenario-name" />
             <TextField label="Note" value=note on_input=on_note problem=no_problem test_id="scenario-note" />
@@ -348,7 +363,7 @@ pub fn ShelfPanel() -> impl IntoView {
                 />
             </div>
             <ul class="shelf-list" data-testid="shelf-list">
-                <For each=summaries key=|s| (s.id.clone(), s.name.clone(), s.changed_ms) let:summary>
+                <For each=summaries key=|s| (s.id.clone(), s.name.clone(), s.changed_ms, s.unsaved, s.draft) let:summary>
                     {
                         let id = summary.id.clone();
                         let is_current = {
@@ -366,10 +381,11 @@ pub fn ShelfPanel() -> impl IntoView {
                                     <span class="shelf-name">{summary.name.clone()}</span>
                                     <span class="shelf-meta">
                                         {format!(
-                                            "{} task{} · {}{}",
+                                            "{} task{} · {}{}{}",
                                             summary.task_count,
                                             if summary.task_count == 1 { "" } else { "s" },
                                             when(summary.changed_ms),
+                                            if summary.draft { " · draft" } else { "" },
                                             if summary.unsaved { " · not stored" } else { "" },
                                         )}
                                     </span>
@@ -397,10 +413,13 @@ pub fn ShelfPanel() -> impl IntoView {
                                         }
                                     }>"Download its text"</button>
                                     <button type="button" on:click=move |_| {
-                                        let outcome = shelf.library.try_update(|lib| lib.discard_set_aside(&key));
-                                        if let Some(Err(e)) = outcome {
-                                            shelf.tell(e.to_string(), true, None);
-                                        }
+                                        let key = key.clone();
+                                        with_write_lock(move || {
+                                            let outcome = shelf.library.try_update(|lib| lib.discard_set_aside(&key));
+                                            if let Some(Err(e)) = outcome {
+                                                shelf.tell(e.to_string(), true, None);
+                                            }
+                                        });
                                     }>"Discard"</button>
                                 </li>
                             }

@@ -1,6 +1,6 @@
 // Storage journeys: work survives a reload, damaged or foreign stored items
 // are set aside without losing the good ones, bad import files are refused
-// item by item, a full storage keeps the work in the tab and offers an
+// item by item (drafts come in as drafts), a full storage keeps the work in the tab and offers an
 // export, two tabs follow each other, delete can be undone, and erasing
 // removes everything the app stored (and nothing else).
 import { test } from "node:test";
@@ -8,33 +8,20 @@ import assert from "node:assert/strict";
 import { readFile } from "node:fs/promises";
 import { join, resolve } from "node:path";
 import { appUnderTest, watchedPage } from "../support/harness.js";
-import { freshPlanner, PlannerPage, SCENARIO_PREFIX } from "../support/planner-page.js";
+import { storageThatFills } from "../support/faults.js";
+import {
+  AGE,
+  DEMO_COUNT,
+  FORMAT_VERSION,
+  freshPlanner,
+  OFFICE_DEMO,
+  PlannerPage,
+  SCENARIO_PREFIX,
+} from "../support/planner-page.js";
 
 const ROOT = resolve(import.meta.dirname, "../../..");
-const OFFICE_DEMO = "Demo — fictional office worker with two monitors";
-const AGE = "wearer-age_years";
-// The demo days shipped in scenarios/ and the saved-format version this build writes.
-const DEMO_COUNT = 7;
-const FORMAT_VERSION = 2;
 
 const app = appUnderTest();
-
-/** Waits until the save state reads `text` exactly (or starts with it, for a prefix ending in ':'). */
-async function waitForSaveState(page, text) {
-  await page.waitForFunction((wanted) => {
-    const shown = document.querySelector('[data-testid="save-state"]')?.textContent.trim() ?? "";
-    return wanted.endsWith(":") ? shown.startsWith(wanted) : shown === wanted;
-  }, text);
-}
-
-/** The stored entry (parsed) whose scenario is named `name`, with its key. */
-async function storedByName(planner, name) {
-  for (const [key, raw] of Object.entries(await planner.storedScenarios())) {
-    const entry = JSON.parse(raw);
-    if (entry.scenario?.name === name) return { key, entry };
-  }
-  return undefined;
-}
 
 test("a reload keeps the edited value and the open scenario", async () => {
   const { context, page, planner } = await freshPlanner(app.browser(), app.url());
@@ -42,8 +29,8 @@ test("a reload keeps the edited value and the open scenario", async () => {
   const electronics = "Demo — fictional electronics bench technician";
   await planner.openFromShelf(electronics);
   await planner.setNumber(AGE, "53");
-  await waitForSaveState(page, "Saved on this device");
-  const stored = await storedByName(planner, electronics);
+  await planner.waitForSaveState("Saved on this device");
+  const stored = await planner.storedByName(electronics);
   assert.equal(stored.entry.format, "clearspan-scenario-entry");
   assert.equal(stored.entry.version, FORMAT_VERSION);
   assert.equal(stored.entry.scenario.wearer.age_years, 53);
@@ -55,8 +42,8 @@ test("a reload keeps the edited value and the open scenario", async () => {
 
   // A second edit in the reloaded page is stored under the same key, not as a copy.
   await planner.setNumber(AGE, "54");
-  await waitForSaveState(page, "Saved on this device");
-  const again = await storedByName(planner, electronics);
+  await planner.waitForSaveState("Saved on this device");
+  const again = await planner.storedByName(electronics);
   assert.equal(again.key, stored.key);
   assert.equal(again.entry.scenario.wearer.age_years, 54);
   assert.equal(Object.keys(await planner.storedScenarios()).length, DEMO_COUNT);
@@ -126,78 +113,72 @@ test("damaged and foreign stored items are set aside, the good scenarios still l
   await context.close();
 });
 
-test("a bad import file is refused with a notice; a mixed file imports only the good scenario", async () => {
+test("a bad import file is refused with a notice; a mixed file imports the good scenario and the draft", async () => {
   const { context, page, planner } = await freshPlanner(app.browser(), app.url());
   await planner.open();
   const before = await planner.shelfNames();
 
   await planner.importFile("notes.json", "these are my notes, not a scenario file");
-  await page.waitForFunction(() =>
-    [...document.querySelectorAll('[data-testid="notice"] p')].some((p) => p.textContent.startsWith("Nothing was imported")),
-  );
+  await planner.waitForNotice("Nothing was imported");
   const refusal = (await planner.notices()).find((n) => n.startsWith("Nothing was imported"));
   assert.match(refusal, /not valid JSON/);
   assert.deepEqual(await planner.shelfNames(), before);
   assert.equal(Object.keys(await planner.storedScenarios()).length, DEMO_COUNT);
 
   const demo = JSON.parse(await readFile(join(ROOT, "scenarios", "office-two-monitors.json"), "utf8"));
-  const good = structuredClone(demo.scenarios[0]);
-  good.scenario.name = "Fictional import: good";
-  const bad = structuredClone(demo.scenarios[0]);
-  bad.scenario.name = "Fictional import: bad";
-  bad.scenario.tasks[0].distance_m = -1;
-  const file = { ...demo, scenarios: [good, bad] };
-  await planner.importFile("mixed.json", JSON.stringify(file, null, 2));
+  const named = (name, change) => {
+    const item = structuredClone(demo.scenarios[0]);
+    item.scenario.name = name;
+    change(item.scenario);
+    return item;
+  };
+  const good = named("Fictional import: good", () => {});
+  const draft = named("Fictional import: draft", (s) => {
+    s.tasks[0].distance_m = -1;
+  });
+  const bad = named("Fictional import: bad", (s) => {
+    s.tasks[0].distance_m = "far";
+  });
+  await planner.importFile("mixed.json", JSON.stringify({ ...demo, scenarios: [good, draft, bad] }, null, 2));
 
   await page.waitForFunction(
     () => document.querySelector('[data-testid="scenario-title"]')?.textContent.trim() === "Fictional import: good",
   );
-  const notices = await planner.notices();
-  assert.ok(notices.includes('Imported "Fictional import: good"'), JSON.stringify(notices));
-  const rejected = notices.find((n) => n.startsWith("Scenario 2"));
-  assert.ok(rejected, `a notice for the rejected scenario: ${JSON.stringify(notices)}`);
-  assert.match(rejected, /"Fictional import: bad"/);
-  assert.match(rejected, /was not imported/);
-  assert.match(rejected, /scenarios\[1\]\.scenario\.tasks\[0\]\.distance_m/);
+  const notice = planner.byTestId("notice").filter({ hasText: "Imported 2 scenarios" });
+  assert.equal(
+    (await notice.locator("p").textContent()).trim(),
+    "Imported 2 scenarios (1 as a draft to correct); 1 was not imported.",
+  );
+  await notice.getByText("Show the list").click();
+  const lines = (await notice.locator("li").allTextContents()).map((t) => t.trim());
+  assert.equal(lines[0], 'Imported "Fictional import: good"');
+  assert.match(lines[1], /^Imported "Fictional import: draft" as a draft to correct \(tasks\[0\]\.distance_m: /);
+  assert.match(lines[2], /^Scenario 3 \("Fictional import: bad"\) was not imported: /);
+  assert.match(lines[2], /scenarios\[2\]\.scenario\.tasks\[0\]\.distance_m/);
 
   const names = await planner.shelfNames();
-  assert.equal(names.length, before.length + 1);
+  assert.equal(names.length, before.length + 2);
   assert.ok(names.includes("Fictional import: good"));
+  assert.ok(names.includes("Fictional import: draft"));
   assert.ok(!names.includes("Fictional import: bad"));
-  assert.ok(await storedByName(planner, "Fictional import: good"), "the good scenario is stored");
-  assert.equal(await storedByName(planner, "Fictional import: bad"), undefined);
+  assert.ok(await planner.storedByName("Fictional import: good"), "the good scenario is stored");
+  assert.ok(await planner.storedByName("Fictional import: draft"), "the draft is stored");
+  assert.equal(await planner.storedByName("Fictional import: bad"), undefined);
 
   assert.deepEqual(page.problems(), []);
   await context.close();
 });
-
-// Wraps setItem so the test can make storage full once the app has started
-// (and give it room again).
-function storageThatFills() {
-  const original = Storage.prototype.setItem;
-  let full = false;
-  window.__fillStorageForTest = () => {
-    full = true;
-  };
-  window.__freeStorageForTest = () => {
-    full = false;
-  };
-  Storage.prototype.setItem = function setItem(key, value) {
-    if (full) throw new DOMException("full", "QuotaExceededError");
-    return original.call(this, key, value);
-  };
-}
 
 test("full storage keeps the edit in the tab and offers an export", async () => {
   const { context, page, planner } = await freshPlanner(app.browser(), app.url(), { initScript: storageThatFills });
   await planner.open();
   await planner.byTestId("recommendation").waitFor();
   const title = await planner.title();
-  const storedAge = (await storedByName(planner, title)).entry.scenario.wearer.age_years;
+  const storedAge = (await planner.storedByName(title)).entry.scenario.wearer.age_years;
   await page.evaluate(() => window.__fillStorageForTest());
 
   await planner.setNumber(AGE, "58");
-  await waitForSaveState(page, "Kept in this tab only:");
+  await planner.waitForSaveState("Kept in this tab only:");
   assert.match(await planner.saveState(), /storage for this app is full/);
   const notice = planner.byTestId("notice").filter({ hasText: "full" });
   assert.equal(await notice.count(), 1, JSON.stringify(await planner.notices()));
@@ -206,7 +187,7 @@ test("full storage keeps the edit in the tab and offers an export", async () => 
   assert.equal(await planner.valueOf(AGE), "58", "the edited value stays on screen");
   await page.waitForFunction(() => document.querySelector('[data-testid="plan"]')?.textContent.includes("x 58 years"));
   assert.equal(
-    (await storedByName(planner, title)).entry.scenario.wearer.age_years,
+    (await planner.storedByName(title)).entry.scenario.wearer.age_years,
     storedAge,
     "storage still holds the last value it accepted",
   );
@@ -221,8 +202,8 @@ test("full storage keeps the edit in the tab and offers an export", async () => 
   // With room again, the next edit reaches storage and the state says so.
   await page.evaluate(() => window.__freeStorageForTest());
   await planner.setNumber(AGE, "59");
-  await waitForSaveState(page, "Saved on this device");
-  assert.equal((await storedByName(planner, title)).entry.scenario.wearer.age_years, 59);
+  await planner.waitForSaveState("Saved on this device");
+  assert.equal((await planner.storedByName(title)).entry.scenario.wearer.age_years, 59);
 
   assert.deepEqual(page.problems(), []);
   await context.close();
@@ -245,7 +226,7 @@ test("an edit in one tab shows in the other", async () => {
   assert.notEqual(await first.valueOf(AGE), "61");
 
   await first.setNumber(AGE, "61");
-  await waitForSaveState(first.page, "Saved on this device");
+  await first.waitForSaveState("Saved on this device");
   await second.page.waitForFunction(
     (id) => document.querySelector(`[data-testid="${id}"]`)?.value === "61",
     AGE,
@@ -256,7 +237,7 @@ test("an edit in one tab shows in the other", async () => {
 
   // And back: the second tab's edit builds on the revision it received.
   await second.setNumber("tasks-0--distance_m", "72");
-  await waitForSaveState(second.page, "Saved on this device");
+  await second.waitForSaveState("Saved on this device");
   await first.page.waitForFunction(
     () => document.querySelector('[data-testid="tasks-0--distance_m"]')?.value === "72",
   );
@@ -281,8 +262,8 @@ test("a scenario deleted in one tab stays open in the other and is stored again 
   assert.ok(!(await second.shelfNames()).includes(OFFICE_DEMO));
 
   await second.setNumber(AGE, "50");
-  await waitForSaveState(second.page, "Saved on this device");
-  const restored = await storedByName(second, OFFICE_DEMO);
+  await second.waitForSaveState("Saved on this device");
+  const restored = await second.storedByName(OFFICE_DEMO);
   assert.equal(restored.entry.scenario.wearer.age_years, 50);
   await first.page.waitForFunction(
     (name) => [...document.querySelectorAll('[data-testid="shelf-list"] .shelf-name')].some((n) => n.textContent.trim() === name),
@@ -298,7 +279,7 @@ test("a deleted scenario comes back with Undo", async () => {
   const { context, page, planner } = await freshPlanner(app.browser(), app.url());
   await planner.open();
   const names = await planner.shelfNames();
-  const { key } = await storedByName(planner, OFFICE_DEMO);
+  const { key } = await planner.storedByName(OFFICE_DEMO);
 
   await planner.byTestId("delete-scenario").click();
   await page.waitForFunction(
@@ -316,7 +297,7 @@ test("a deleted scenario comes back with Undo", async () => {
     OFFICE_DEMO,
   );
   assert.deepEqual(await planner.shelfNames(), names);
-  assert.ok(await storedByName(planner, OFFICE_DEMO), "the entry is stored again");
+  assert.ok(await planner.storedByName(OFFICE_DEMO), "the entry is stored again");
   await planner.byTestId("recommendation").waitFor();
   assert.equal(await planner.byTestId("notice").filter({ hasText: "Deleted" }).count(), 0);
 
@@ -363,8 +344,8 @@ test("renaming the open scenario and giving it a note are kept across a reload",
   );
   assert.ok((await planner.shelfNames()).includes("Workstation 4, fictional"), "the shelf follows");
   await planner.byTestId("scenario-note").fill("second floor, left desk");
-  await waitForSaveState(page, "Saved on this device");
-  const stored = await storedByName(planner, "Workstation 4, fictional");
+  await planner.waitForSaveState("Saved on this device");
+  const stored = await planner.storedByName("Workstation 4, fictional");
   assert.equal(stored.entry.note, "second floor, left desk");
 
   await planner.reload();

@@ -9,7 +9,8 @@ import { before, after } from "node:test";
 import { chromium } from "playwright-core";
 
 const ROOT = resolve(import.meta.dirname, "../../..");
-const DIST = join(ROOT, "dist");
+/** The built app that trunk writes. */
+export const DIST = join(ROOT, "dist");
 /** Screenshots for review are kept here. */
 export const SHOTS = join(ROOT, "target", "screenshots");
 
@@ -20,15 +21,16 @@ const TYPES = {
   ".css": "text/css",
   ".json": "application/json",
   ".svg": "image/svg+xml",
+  ".png": "image/png",
   ".webmanifest": "application/manifest+json",
 };
 
-/** Serves dist/ on 127.0.0.1 at a free port; resolves to { url, close }. */
-export async function serveDist() {
+/** Serves `root` (dist/ unless given) on 127.0.0.1 at a free port; resolves to { url, close }. */
+export async function serveDist(root = DIST) {
   const server = createServer(async (req, res) => {
     const path = decodeURIComponent(new URL(req.url, "http://x").pathname);
-    const file = normalize(join(DIST, path === "/" ? "index.html" : path));
-    if (!file.startsWith(DIST)) {
+    const file = normalize(join(root, path === "/" ? "index.html" : path));
+    if (!file.startsWith(root)) {
       res.writeHead(403).end();
       return;
     }

@@ -12,6 +12,14 @@ export const VIEWPORTS = {
 
 /** The storage key prefix of stored scenarios. */
 export const SCENARIO_PREFIX = "clearspan/scenario/";
+/** The demo days shipped in scenarios/ (a first visit opens the office demo). */
+export const DEMO_COUNT = 7;
+/** The demo a first visit opens. */
+export const OFFICE_DEMO = "Demo — fictional office worker with two monitors";
+/** The saved-format version this build writes. */
+export const FORMAT_VERSION = 2;
+/** The test id of the wearer's age field. */
+export const AGE = "wearer-age_years";
 
 /**
  * Opens a fresh browser context (empty storage) with a watched page and a
@@ -118,6 +126,36 @@ export class PlannerPage {
 
   async saveState() {
     return (await this.byTestId("save-state").textContent()).trim();
+  }
+
+  /** Waits until the save state reads `text` exactly (or starts with it, for a prefix ending in ':'). */
+  async waitForSaveState(text) {
+    await this.page.waitForFunction((wanted) => {
+      const shown = document.querySelector('[data-testid="save-state"]')?.textContent.trim() ?? "";
+      return wanted.endsWith(":") ? shown.startsWith(wanted) : shown === wanted;
+    }, text);
+  }
+
+  /** Waits until a notice's text contains `part`. */
+  async waitForNotice(part) {
+    await this.page.waitForFunction(
+      (wanted) => [...document.querySelectorAll('[data-testid="notice"] p')].some((p) => p.textContent.includes(wanted)),
+      part,
+    );
+  }
+
+  /** The stored entry (parsed) whose scenario is named `name`, with its key. */
+  async storedByName(name) {
+    for (const [key, raw] of Object.entries(await this.storedScenarios())) {
+      const entry = JSON.parse(raw);
+      if (entry.scenario?.name === name) return { key, entry };
+    }
+    return undefined;
+  }
+
+  /** Whether the conflict banner is shown. */
+  async showsConflict() {
+    return (await this.byTestId("conflict").count()) > 0;
   }
 
   /** Every key and value in local storage of the app's origin. */
