@@ -17,8 +17,15 @@ mod wearer_panel;
 
 use leptos::prelude::*;
 
-/// Installs the panic hook and mounts the app into the document body.
+/// Installs the panic hook, removes the note the page shows while the app
+/// loads, and mounts the app into the document body.
 pub fn start() {
     console_error_panic_hook::set_once();
+    if let Some(note) = web_sys::window()
+        .and_then(|w| w.document())
+        .and_then(|d| d.get_element_by_id("starting"))
+    {
+        note.remove();
+    }
     mount_to_body(app::App);
 }

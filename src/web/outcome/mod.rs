@@ -164,6 +164,14 @@ pub fn OutcomePanel() -> impl IntoView {
             }
             .into_any();
         };
+        if plan.tasks.is_empty() && !stale {
+            return view! {
+                <p class="hint" data-testid="no-tasks">
+                    "Add the tasks of the working day (\"Add task\") to see which lenses serve them."
+                </p>
+            }
+            .into_any();
+        }
         let detail = state.chosen_task.get().map(|t| task_detail(&plan, t));
         view! {
             <Show when=move || stale>
