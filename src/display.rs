@@ -99,8 +99,11 @@ pub fn parse_number(text: &str) -> Result<f64, ParseNumberError> {
     }
 }
 
-/// A field problem restated for a form: ranges of lengths stored in metres
-/// are given in the user's length unit, everything else as stored.
+/// A field problem restated for a form as a sentence: ranges of lengths
+/// stored in metres are given in the user's length system, each bound in
+/// the unit that reads best (centimetres below a metre and metres above it,
+/// or inches below a yard and feet above it); large numbers carry
+/// thousands separators.
 pub fn describe_problem(problem: &Problem, unit: LengthUnit) -> String {
     match problem {
         Problem::OutOfRange {
@@ -109,22 +112,72 @@ pub fn describe_problem(problem: &Problem, unit: LengthUnit) -> String {
             unit: "m",
             ..
         } => format!(
-            "allowed: {} to {} {}",
-            trim_number(unit.from_metres(Metres(*min)), 1),
-            trim_number(unit.from_metres(Metres(*max)), 1),
-            unit.symbol()
+            "Must be between {} and {}.",
+            readable_length(*min, unit),
+            readable_length(*max, unit)
         ),
         Problem::OutOfRange {
             min, max, unit: u, ..
         } => {
             let space = if u.is_empty() || *u == "°" { "" } else { " " };
             format!(
-                "allowed: {} to {}{space}{u}",
-                trim_number(*min, 2),
-                trim_number(*max, 2)
+                "Must be between {}{space}{u} and {}{space}{u}.",
+                readable_number(*min, 2),
+                readable_number(*max, 2)
             )
         }
-        other => other.to_string(),
+        Problem::Empty => "Must not be empty.".to_string(),
+        other => {
+            let text = other.to_string();
+            let mut chars = text.chars();
+            match chars.next() {
+                Some(first) => format!("{}{}.", first.to_uppercase(), chars.as_str()),
+                None => text,
+            }
+        }
+    }
+}
+
+/// A length of `metres` in the user's system, in the unit that reads best.
+fn readable_length(metres: f64, unit: LengthUnit) -> String {
+    match unit {
+        LengthUnit::Centimetres if metres.abs() >= 1.0 => {
+            format!("{} m", readable_number(metres, 1))
+        }
+        LengthUnit::Centimetres => format!("{} cm", readable_number(metres * 100.0, 1)),
+        LengthUnit::Inches => {
+            let inches = unit.from_metres(Metres(metres));
+            if inches.abs() >= 36.0 {
+                format!("{} ft", readable_number(inches / 12.0, 1))
+            } else {
+                format!("{} in", readable_number(inches, 1))
+            }
+        }
+    }
+}
+
+/// A number with at most `decimals` decimals and thousands separators.
+///
+/// ```
+/// use clearspan::display::readable_number;
+/// assert_eq!(readable_number(100_000.0, 1), "100,000");
+/// assert_eq!(readable_number(-1234.5, 1), "-1,234.5");
+/// assert_eq!(readable_number(0.25, 2), "0.25");
+/// ```
+pub fn readable_number(value: f64, decimals: usize) -> String {
+    let text = trim_number(value, decimals);
+    let (sign, rest) = text
+        .strip_prefix('-')
+        .map_or(("", text.as_str()), |r| ("-", r));
+    let (whole, fraction) = rest
+        .split_once('.')
+        .map_or((rest, None), |(w, f)| (w, Some(f)));
+    let grouped = whole
+        .parse::<usize>()
+        .map_or_else(|_| whole.to_string(), thousands);
+    match fraction {
+        Some(f) => format!("{sign}{grouped}.{f}"),
+        None => format!("{sign}{grouped}"),
     }
 }
 
@@ -257,23 +310,27 @@ mod tests {
         check(
             range(0.1, 1000.0, "m"),
             LengthUnit::Centimetres,
-            "allowed: 10 to 100000 cm",
+            "Must be between 10 cm and 1,000 m.",
         );
         check(
             range(0.1, 2.54, "m"),
             LengthUnit::Inches,
-            "allowed: 3.9 to 100 in",
+            "Must be between 3.9 in and 8.3 ft.",
         );
         check(
             range(20.0, 45.0, "mm"),
             LengthUnit::Inches,
-            "allowed: 20 to 45 mm",
+            "Must be between 20 mm and 45 mm.",
         );
         check(
             range(-80.0, 80.0, "°"),
             LengthUnit::Inches,
-            "allowed: -80 to 80°",
+            "Must be between -80° and 80°.",
         );
-        check(Problem::Empty, LengthUnit::Centimetres, "must not be empty");
+        check(
+            Problem::Empty,
+            LengthUnit::Centimetres,
+            "Must not be empty.",
+        );
     }
 }

@@ -30,10 +30,10 @@ use crate::scenario::FamilyChoice;
 fn typed(kind: ParameterKind, v: f64) -> ParameterValue {
     match kind {
         ParameterKind::IntermediateRatio => ParameterValue::Ratio(v),
+        ParameterKind::ProgressionLength => ParameterValue::Length(Millimetres(v)),
         ParameterKind::SegmentTop
-        | ParameterKind::ProgressionLength
         | ParameterKind::LowerSegmentTop
-        | ParameterKind::UpperSegmentBottom => ParameterValue::Length(Millimetres(v)),
+        | ParameterKind::UpperSegmentBottom => ParameterValue::Height(Millimetres(v)),
         _ => ParameterValue::Power(Dioptres(v)),
     }
 }

@@ -109,12 +109,12 @@ fn option_block(out: &mut String, o: &OptionPlan, plan_half_depth: f64) {
     }
     let _ = writeln!(
         out,
-        "   {:<22} {:<13} {:>13} {:<34} {:>8} {:>6} {:<20} {:<22} {:>7} {:<24} {:>6} {:>7} {:>6}",
+        "   {:<22} {:<13} {:>13} {:<34} {:>13} {:>6} {:<20} {:<22} {:>7} {:<24} {:>6} {:>7} {:>6}",
         "task",
         "zone",
         "point x,y mm",
         "local power",
-        "accomm.",
+        "accommodation",
         "share",
         "verdict",
         "comfortable here",
@@ -128,7 +128,7 @@ fn option_block(out: &mut String, o: &OptionPlan, plan_half_depth: f64) {
         let name: String = t.task.name.chars().take(22).collect();
         let _ = writeln!(
             out,
-            "   {:<22} {:<13} {:>13} {:<34} {:>8} {:>6} {:<20} {:<22} {:>7.1} {:<24} {:>6.0} {:>7.1} {:>6.1}",
+            "   {:<22} {:<13} {:>13} {:<34} {:>13} {:>6} {:<20} {:<22} {:>7.1} {:<24} {:>6.0} {:>7.1} {:>6.1}",
             name,
             t.zone.to_string(),
             format!("{:+.1},{:+.1}", t.lens_point.x.0, t.lens_point.y.0),

@@ -186,8 +186,10 @@ pub use crate::core::lens::Parameter as ParameterKind;
 pub enum ParameterValue {
     /// A power, in dioptres.
     Power(Dioptres),
-    /// A height or length on the lens, in millimetres.
+    /// A length on the lens, in millimetres.
     Length(Millimetres),
+    /// A height on the lens above (positive) or below the fitting point, in millimetres.
+    Height(Millimetres),
     /// A ratio of two powers (no unit).
     Ratio(f64),
 }
@@ -356,7 +358,14 @@ impl fmt::Display for ParameterValue {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         match self {
             ParameterValue::Power(d) => write!(f, "{d}"),
-            ParameterValue::Length(mm) => write!(f, "{:+.0} mm", mm.0),
+            ParameterValue::Length(mm) => write!(f, "{:.0} mm", mm.0),
+            ParameterValue::Height(mm) if mm.0 > 0.0 => {
+                write!(f, "{:.0} mm above the fitting point", mm.0)
+            }
+            ParameterValue::Height(mm) if mm.0 < 0.0 => {
+                write!(f, "{:.0} mm below the fitting point", -mm.0)
+            }
+            ParameterValue::Height(_) => f.write_str("level with the fitting point"),
             ParameterValue::Ratio(r) => write!(f, "{r:.2}"),
         }
     }

@@ -85,7 +85,7 @@ test("an invalid distance is explained, the last plan stays marked stale, and fi
 
   await planner.setNumber(DISTANCE, "-3");
   await stale.waitFor();
-  assert.equal(await planner.messageFor(DISTANCE), "allowed: 10 to 100000 cm");
+  assert.equal(await planner.messageFor(DISTANCE), "Must be between 10 cm and 1,000 m.");
   assert.equal(await planner.byTestId(DISTANCE).getAttribute("aria-invalid"), "true");
   assert.ok(await planner.byTestId("recommendation").isVisible(), "the previous recommendation stays");
   assert.ok(await planner.byTestId("comparison").isVisible(), "the previous comparison stays");
