@@ -7,6 +7,7 @@
 //! disc at the same scale shows what the defocus does to that detail.
 
 use crate::core::blur_image::GreyImage;
+use crate::scenario::Task;
 
 /// The kinds of picture the walkthrough can draw.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
@@ -33,6 +34,30 @@ pub const SCENE_KINDS: [SceneKind; 5] = [
 ];
 
 impl SceneKind {
+    /// The picture for a task, from what the scenario says of it: a road
+    /// for driving beyond 2 m, a notice for anything else beyond 1.2 m,
+    /// parts on a bench for hazardous or overhead work and for detail
+    /// finer than 0.3 mm, a page for text within 55 cm, a screen otherwise.
+    pub fn for_task(task: &Task) -> SceneKind {
+        let hazards = task.flags.hazards;
+        let workshop = hazards.impact
+            || hazards.splash_or_aerosol
+            || hazards.dust
+            || task.flags.overhead
+            || task.detail_mm < 0.3;
+        if task.flags.driving && task.distance_m > 2.0 {
+            SceneKind::Road
+        } else if task.distance_m > 1.2 {
+            SceneKind::Wall
+        } else if workshop {
+            SceneKind::Bench
+        } else if task.distance_m <= 0.55 {
+            SceneKind::Page
+        } else {
+            SceneKind::Screen
+        }
+    }
+
     /// A few plain words naming what the picture shows.
     pub fn describe(self) -> &'static str {
         match self {
