@@ -113,7 +113,7 @@ fn every_demo_walks_through_every_task_for_every_option_in_plain_words() {
         let now = current_glasses_plan(&valid).expect("distance-only copy plans");
         assert_eq!(now.options.len(), 1);
         for option in &plan.options {
-            let w = walkthrough(&plan, Some(&now), option.option.index).expect("has options");
+            let w = walkthrough(&plan, Some(&now), Some(option.option.index)).expect("has options");
             assert_eq!(w.steps.len(), plan.tasks.len(), "{}", plan.scenario_name);
             assert_eq!(w.closing.option, option.option);
             for step in &w.steps {
@@ -144,7 +144,7 @@ fn each_picture_is_blurred_by_the_planners_own_blur_disc() {
     for valid in demo_scenarios() {
         let plan = plan(&valid).expect("demo plans");
         let now = current_glasses_plan(&valid).expect("distance-only copy plans");
-        let w = walkthrough(&plan, Some(&now), 0).expect("has options");
+        let w = walkthrough(&plan, Some(&now), None).expect("has options");
         for step in &w.steps {
             for (picture, option) in step.pictures.iter().skip(1).zip(&plan.options) {
                 let task = &option.tasks[step.task_index];

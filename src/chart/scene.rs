@@ -6,8 +6,29 @@
 //! smallest parts are one cell wide, so blurring the picture with the blur
 //! disc at the same scale shows what the defocus does to that detail.
 
-use crate::core::blur_image::GreyImage;
+use crate::core::blur_image::{GreyImage, ARCMIN_PER_RADIAN};
+use crate::core::units::{Metres, Millimetres};
 use crate::scenario::Task;
+
+/// How large a task's critical detail is drawn, in pixels: large enough for
+/// a letter stroke to show on a tablet held at arm's length (a product choice).
+pub const DETAIL_PX: f64 = 3.0;
+
+/// The angular scale of a picture: how many pixels one minute of arc at the
+/// eye takes, when a critical detail of `detail` seen at `distance` is drawn
+/// [`DETAIL_PX`] pixels wide. The detail subtends 2 atan(detail / 2 distance).
+///
+/// ```
+/// use clearspan::chart::scene::px_per_arcmin;
+/// use clearspan::core::units::{Metres, Millimetres};
+/// // 1.5 mm at 65 cm: 2.308 mrad = 7.93 arcmin, drawn 3 px: 0.378 px per arcmin.
+/// let scale = px_per_arcmin(Millimetres(1.5), Metres(0.65));
+/// assert!((scale - 0.3781).abs() < 1e-3);
+/// ```
+pub fn px_per_arcmin(detail: Millimetres, distance: Metres) -> f64 {
+    let angle = 2.0 * (detail.to_m().0 / (2.0 * distance.0)).atan();
+    DETAIL_PX / (angle * ARCMIN_PER_RADIAN)
+}
 
 /// The kinds of picture the walkthrough can draw.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]

@@ -166,13 +166,17 @@ pub fn current_glasses_plan(scenario: &ValidScenario) -> Option<Plan> {
 }
 
 /// The walkthrough of `plan` for the option with input index `chosen` (the
-/// best ranked when no option has that index), compared with `current`
-/// (from [`current_glasses_plan`]). `None` when the plan has no options.
-pub fn walkthrough(plan: &Plan, current: Option<&Plan>, chosen: usize) -> Option<Walkthrough> {
+/// best ranked when it is `None` or no option has that index), compared with
+/// `current` (from [`current_glasses_plan`]). `None` when the plan has no options.
+pub fn walkthrough(
+    plan: &Plan,
+    current: Option<&Plan>,
+    chosen: Option<usize>,
+) -> Option<Walkthrough> {
     let option = plan
         .options
         .iter()
-        .find(|o| o.option.index == chosen)
+        .find(|o| Some(o.option.index) == chosen)
         .or_else(|| plan.options.first())?;
     let now = current.and_then(|c| c.options.first());
     let steps = plan
