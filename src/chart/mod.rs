@@ -5,3 +5,4 @@
 pub mod dioptric_axis;
 pub mod lens_map;
 pub mod range_rows;
+pub mod scene;

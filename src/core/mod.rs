@@ -5,6 +5,7 @@
 pub mod accommodation;
 pub mod acuity;
 pub mod astigmatism;
+pub mod blur_image;
 pub mod bounds;
 pub mod clear_range;
 pub mod depth_of_field;

@@ -23,6 +23,7 @@ pub mod report;
 pub mod solver;
 pub mod text;
 pub mod tolerances;
+pub mod walkthrough;
 
 pub use error::PlanError;
 pub use outcome::*;

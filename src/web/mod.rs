@@ -13,6 +13,7 @@ mod shelf_panel;
 mod state;
 mod storage;
 mod tasks_panel;
+mod walkthrough;
 mod wearer_panel;
 
 use leptos::prelude::*;

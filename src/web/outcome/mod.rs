@@ -12,6 +12,7 @@ mod range_chart;
 use crate::plan::text::{amplitude_line, family_name, pupil_line, refraction_line};
 use crate::plan::{OptionPlan, Plan};
 use crate::web::state::use_app_state;
+use crate::web::walkthrough::WalkthroughLauncher;
 use lens_map::LensMap;
 use leptos::prelude::*;
 use marks::verdict_mark;
@@ -204,6 +205,7 @@ pub fn OutcomePanel() -> impl IntoView {
     view! {
         <section class="panel outcome" aria-labelledby="outcome-heading" data-testid="outcome">
             <h2 id="outcome-heading">"Plan"</h2>
+            <WalkthroughLauncher />
             {body}
             <LensMap />
             {sheet}

@@ -1,0 +1,386 @@
+//! The wearer walkthrough: a read-only presentation over the whole screen,
+//! opened from the plan, one task per step and a closing step, with next and
+//! back by tap, swipe and the arrow keys, and Escape to close. The words
+//! come from `plan::walkthrough`, the pictures from the core's scene and blur
+//! disc; this layer only reads the app state and draws. Nothing here edits
+//! the scenario.
+
+mod picture;
+
+use crate::chart::scene::SceneKind;
+use crate::core::units::{Metres, Millimetres};
+use crate::display::{trim_number, LengthUnit};
+use crate::plan::walkthrough::{
+    current_glasses_plan, walkthrough, Closing, Picture, Sharpness, TaskStep, Walkthrough,
+};
+use crate::web::state::{use_app_state, AppState};
+use leptos::html;
+use leptos::prelude::*;
+use picture::{PictureSpec, ScenePicture};
+
+/// Thumbnail canvas size, in pixels (16:10, sharp at the grid's widest cell).
+const THUMB: (u32, u32) = (480, 300);
+/// Horizontal travel of a pointer, in CSS pixels, that counts as a swipe.
+const SWIPE_PX: i32 = 60;
+
+/// A distance for the wearer: centimetres or inches near by, metres or feet
+/// beyond 2 m.
+fn distance_words(distance: Metres, unit: LengthUnit) -> String {
+    match unit {
+        LengthUnit::Centimetres if distance.0 >= 2.0 => {
+            format!("{} m", trim_number(distance.0, 1))
+        }
+        LengthUnit::Inches if distance.0 >= 2.0 => {
+            format!("{} ft", trim_number(unit.from_metres(distance) / 12.0, 0))
+        }
+        _ => format!("{} {}", unit.format(distance), unit.symbol()),
+    }
+}
+
+/// The scene and detail of task `index` in the scenario being shown.
+fn scene_of(state: AppState, index: usize) -> Option<(SceneKind, Millimetres)> {
+    state.scenario.with(|s| {
+        s.tasks
+            .get(index)
+            .map(|t| (SceneKind::for_task(t), Millimetres(t.detail_mm)))
+    })
+}
+
+/// The caption under a picture: whose lenses, how it looks, and the letter
+/// chart lines lost when there are any worth saying.
+fn caption(p: &Picture) -> String {
+    let lines = if p.chart_lines_lost >= 0.5 {
+        format!(
+            " (about {} {} lower on a letter chart)",
+            trim_number(p.chart_lines_lost.round(), 0),
+            if p.chart_lines_lost.round() == 1.0 {
+                "line"
+            } else {
+                "lines"
+            }
+        )
+    } else {
+        String::new()
+    };
+    format!("{}{lines}", p.sharpness.words())
+}
+
+/// One task step: facts, words and the pictures side by side.
+fn task_view(
+    state: AppState,
+    step: &TaskStep,
+    pupil: Millimetres,
+    enlarged: RwSignal<Option<(PictureSpec, String)>>,
+) -> impl IntoView {
+    let unit = state.unit.get_untracked();
+    let distance = distance_words(step.distance, unit);
+    let sentences = step
+        .sentences
+        .iter()
+        .map(|s| view! { <li>{s.clone()}</li> })
+        .collect_view();
+    let scene = scene_of(state, step.task_index);
+    let pictures = scene.map(|(kind, detail)| {
+        let figures = step
+            .pictures
+            .iter()
+            .map(|p| {
+                let spec = PictureSpec {
+                    kind,
+                    detail,
+                    distance: step.distance,
+                    defocus: p.defocus,
+                    pupil,
+                };
+                let words = format!(
+                    "{} through {}: {}",
+                    kind.describe(),
+                    p.label,
+                    p.sharpness.words()
+                );
+                let open_words = words.clone();
+                view! {
+                    <figure class="walk-figure" class:chosen=p.chosen>
+                        <button
+                            type="button"
+                            class="walk-zoom"
+                            aria-label=format!("Show bigger: {words}")
+                            on:click=move |_| enlarged.set(Some((spec, open_words.clone())))
+                        >
+                            <ScenePicture spec=spec width=THUMB.0 height=THUMB.1 label=words.clone() />
+                        </button>
+                        <figcaption>
+                            <strong>{p.label.clone()}</strong>
+                            {p.chosen.then_some(" (your choice)")}
+                            <span class=format!("walk-sharpness {}", sharpness_class(p.sharpness))>
+                                {caption(p)}
+                            </span>
+                        </figcaption>
+                    </figure>
+                }
+            })
+            .collect_view();
+        let scale = format!(
+            "The pictures show {} as seen from {distance}, drawn larger so that its finest detail ({} mm) is three dots wide; the blur is enlarged to match. Tap a picture to see it bigger.",
+            kind.describe(),
+            trim_number(detail.0, 1)
+        );
+        view! {
+            <div class="walk-pictures">{figures}</div>
+            <p class="walk-scale">{scale}</p>
+        }
+    });
+    view! {
+        <p class="walk-facts">
+            {format!("{distance} away · {} a day", hours_figure(step.hours_per_day))}
+        </p>
+        <ul class="walk-words">{sentences}</ul>
+        {pictures}
+    }
+}
+
+fn hours_figure(hours: f64) -> String {
+    if hours < 1.0 {
+        format!("{} min", trim_number(hours * 60.0, 0))
+    } else {
+        format!("{} h", trim_number(hours, 1))
+    }
+}
+
+fn sharpness_class(s: Sharpness) -> &'static str {
+    match s {
+        Sharpness::Sharp => "sharp",
+        Sharpness::SharpWithEffort => "effort",
+        Sharpness::ALittleSoft => "soft",
+        Sharpness::Blurred => "blurred",
+    }
+}
+
+/// The closing step: the choice, why, getting used to it, cautions.
+fn closing_view(c: &Closing) -> impl IntoView {
+    let list = |items: &[String]| {
+        items
+            .iter()
+            .map(|s| view! { <li>{s.clone()}</li> })
+            .collect_view()
+    };
+    view! {
+        <p class="walk-what">{format!("{}.", c.what)}</p>
+        <h3>"Why these"</h3>
+        <ul class="walk-words">{list(&c.why)}</ul>
+        <h3>"Getting used to them"</h3>
+        <ul class="walk-words">{list(&c.adapting)}</ul>
+        <h3>"Please keep in mind"</h3>
+        <ul class="walk-words walk-cautions" data-testid="walk-cautions">{list(&c.cautions)}</ul>
+    }
+}
+
+/// The button that opens the walkthrough, and the walkthrough itself.
+#[component]
+pub fn WalkthroughLauncher() -> impl IntoView {
+    let state = use_app_state();
+    let open = RwSignal::new(false);
+    let step = RwSignal::new(0usize);
+    let enlarged = RwSignal::new(None::<(PictureSpec, String)>);
+    let dialog = NodeRef::<html::Div>::new();
+    let opener = NodeRef::<html::Button>::new();
+    let swipe_from = StoredValue::new(None::<(i32, i32)>);
+
+    let current = Memo::new(move |_| {
+        open.get()
+            .then(|| {
+                state
+                    .checked
+                    .with(|c| c.as_ref().ok().and_then(current_glasses_plan))
+            })
+            .flatten()
+    });
+    let walk = Memo::new(move |_| {
+        if !open.get() {
+            return None;
+        }
+        state.outcome.with(|o| {
+            o.plan.as_ref().and_then(|p| {
+                // The option the order is written for: the dispenser's choice
+                // or the recommendation.
+                let chosen = p.choice.as_ref().map(|c| c.chosen.index);
+                current.with(|now| walkthrough(p, now.as_ref(), chosen))
+            })
+        })
+    });
+    let count = move || walk.with(|w| w.as_ref().map_or(1, |w| w.steps.len() + 1));
+    let at = move || step.get().min(count() - 1);
+    let close = move || {
+        enlarged.set(None);
+        open.set(false);
+    };
+    let next = move || {
+        if at() + 1 < count() {
+            step.set(at() + 1);
+        } else {
+            close();
+        }
+    };
+    let back = move || step.set(at().saturating_sub(1));
+
+    let _keys = window_event_listener(leptos::ev::keydown, move |ev| {
+        if !open.get_untracked() {
+            return;
+        }
+        match ev.key().as_str() {
+            "Escape" if enlarged.get_untracked().is_some() => enlarged.set(None),
+            "Escape" => close(),
+            "ArrowRight" | "PageDown" if enlarged.get_untracked().is_none() => next(),
+            "ArrowLeft" | "PageUp" if enlarged.get_untracked().is_none() => back(),
+            _ => return,
+        }
+        ev.prevent_default();
+    });
+    // Focus follows the dialog: into it on opening, back to the opener on closing.
+    Effect::new(move |was_open: Option<bool>| {
+        let is_open = open.get();
+        if is_open {
+            request_animation_frame(move || {
+                if let Some(d) = dialog.get_untracked() {
+                    let _ = d.focus();
+                }
+            });
+        } else if was_open == Some(true) {
+            if let Some(b) = opener.get_untracked() {
+                let _ = b.focus();
+            }
+        }
+        is_open
+    });
+
+    let body = move || {
+        walk.with(|w| {
+            let Some(w) = w.as_ref() else {
+                return view! {
+                    <p class="walk-words">"There is no plan to show yet: the planner needs a valid scenario with at least one lens option."</p>
+                }
+                .into_any();
+            };
+            let i = at();
+            match w.steps.get(i) {
+                Some(s) => task_view(state, s, w.pupil, enlarged).into_any(),
+                None => closing_view(&w.closing).into_any(),
+            }
+        })
+    };
+    let title = move || {
+        walk.with(|w| {
+            w.as_ref().map_or_else(
+                || "Walkthrough".to_string(),
+                |w: &Walkthrough| match w.steps.get(at()) {
+                    Some(s) => s.name.clone(),
+                    None => format!("Your choice: {}", w.closing.option.label),
+                },
+            )
+        })
+    };
+    let progress = move || format!("Step {} of {}", at() + 1, count());
+    let last = move || at() + 1 >= count();
+
+    let on_down = move |ev: leptos::ev::PointerEvent| {
+        swipe_from.set_value(Some((ev.client_x(), ev.client_y())));
+    };
+    let on_up = move |ev: leptos::ev::PointerEvent| {
+        let Some((x, y)) = swipe_from.get_value() else {
+            return;
+        };
+        swipe_from.set_value(None);
+        let (dx, dy) = (ev.client_x() - x, ev.client_y() - y);
+        if dx.abs() >= SWIPE_PX && dx.abs() > dy.abs() && enlarged.get_untracked().is_none() {
+            if dx < 0 {
+                next();
+            } else {
+                back();
+            }
+        }
+    };
+
+    view! {
+        <button
+            type="button"
+            class="primary walk-open"
+            node_ref=opener
+            data-testid="walk-open"
+            on:click=move |_| {
+                step.set(0);
+                open.set(true);
+            }
+        >
+            "Show the wearer"
+        </button>
+        <Show when=move || open.get()>
+            <div
+                class="walkthrough"
+                role="dialog"
+                aria-modal="true"
+                aria-labelledby="walk-title"
+                tabindex="-1"
+                node_ref=dialog
+                data-testid="walkthrough"
+                on:pointerdown=on_down
+                on:pointerup=on_up
+                on:pointercancel=move |_| swipe_from.set_value(None)
+            >
+                <header class="walk-head">
+                    <p class="walk-progress" data-testid="walk-progress">{progress}</p>
+                    <h2 id="walk-title" data-testid="walk-title">{title}</h2>
+                    <button type="button" class="walk-close" data-testid="walk-close" on:click=move |_| close()>
+                        "Close"
+                    </button>
+                </header>
+                <div class="walk-body" aria-live="polite">{body}</div>
+                <nav class="walk-nav" aria-label="Walkthrough steps">
+                    <button
+                        type="button"
+                        data-testid="walk-back"
+                        disabled=move || at() == 0
+                        on:click=move |_| back()
+                    >
+                        "Back"
+                    </button>
+                    <p class="walk-hint">"Swipe, or use the arrow keys"</p>
+                    <button type="button" class="primary" data-testid="walk-next" on:click=move |_| next()>
+                        {move || if last() { "Done" } else { "Next" }}
+                    </button>
+                </nav>
+                {move || {
+                    enlarged
+                        .get()
+                        .map(|(spec, words)| {
+                            let (w, h) = viewport();
+                            view! {
+                                <div class="walk-enlarged" data-testid="walk-enlarged">
+                                    <ScenePicture spec=spec width=w height=h label=words.clone() />
+                                    <p class="walk-enlarged-caption">{words}</p>
+                                    <button
+                                        type="button"
+                                        class="walk-close"
+                                        data-testid="walk-enlarged-close"
+                                        on:click=move |_| enlarged.set(None)
+                                    >
+                                        "Close picture"
+                                    </button>
+                                </div>
+                            }
+                        })
+                }}
+            </div>
+        </Show>
+    }
+}
+
+/// The window's inner size in CSS pixels (a tablet's 1024 x 768 when
+/// unknown), for a picture that fills the screen.
+fn viewport() -> (u32, u32) {
+    let size = web_sys::window().and_then(|w| {
+        let width = w.inner_width().ok()?.as_f64()?;
+        let height = w.inner_height().ok()?.as_f64()?;
+        Some((width.max(1.0) as u32, height.max(1.0) as u32))
+    });
+    size.unwrap_or((1024, 768))
+}

@@ -1,0 +1,267 @@
+//! The wearer walkthrough speaks plain words: every verdict, zone and head
+//! posture the planner can report maps to a sentence, no trade term appears
+//! without its explaining phrase, and every demo's walkthrough has a step
+//! per task with a picture per option whose blur matches the planner's own
+//! blur-disc figure.
+
+use clearspan::chart::scene::SceneKind;
+use clearspan::core::blur_image::BlurDisc;
+use clearspan::core::units::{Degrees, Dioptres};
+use clearspan::library::{parse_import, DEMO_FILES};
+use clearspan::plan::walkthrough::{
+    current_glasses_plan, head_and_eyes, how_it_looks, walkthrough, where_to_look, Walkthrough,
+    EXPLAINED_TERMS,
+};
+use clearspan::plan::*;
+use clearspan::scenario::{validate, Scenario, ValidScenario};
+
+/// Words of the optical trade a wearer should not meet unexplained, from the
+/// outcome panel's own vocabulary and ISO 13666's lens names (from memory).
+const TRADE_TERMS: [&str; 28] = [
+    "addition",
+    "add ",
+    "dioptre",
+    " d ",
+    "corridor",
+    "zone",
+    "accommodat",
+    "prism",
+    "logmar",
+    "arcmin",
+    "vertex",
+    "segment",
+    "degressive",
+    "occupational",
+    "bifocal",
+    "trifocal",
+    "progressive",
+    "single vision",
+    "desk lenses",
+    "intermediate",
+    "verdict",
+    "posture",
+    "astigmatism",
+    "presbyop",
+    "amplitude",
+    "defocus",
+    "anisometropia",
+    "convergence",
+];
+
+/// Every trade term in `text` that is not explained by its phrase in the
+/// same sentence.
+fn unexplained(text: &str) -> Vec<String> {
+    let mut out = Vec::new();
+    for sentence in text.split_inclusive(['.', ';']) {
+        let lower = sentence.to_lowercase();
+        for term in TRADE_TERMS {
+            if !lower.contains(term) {
+                continue;
+            }
+            let explained = EXPLAINED_TERMS
+                .iter()
+                .any(|(t, phrase)| *t == term && lower.contains(phrase));
+            if !explained {
+                out.push(format!("\"{term}\" in: {sentence}"));
+            }
+        }
+    }
+    out
+}
+
+fn demo_scenarios() -> Vec<ValidScenario> {
+    DEMO_FILES
+        .iter()
+        .flat_map(|d| parse_import(d.text).expect("demo parses").accepted)
+        .map(|item| validate(item.scenario).expect("demo validates"))
+        .collect()
+}
+
+fn check_plain(text: &str) {
+    let found = unexplained(text);
+    assert!(found.is_empty(), "unexplained trade terms: {found:#?}");
+}
+
+fn all_words(w: &Walkthrough) -> Vec<String> {
+    let mut words: Vec<String> = w.steps.iter().flat_map(|s| s.sentences.clone()).collect();
+    words.extend(
+        w.steps
+            .iter()
+            .flat_map(|s| s.pictures.iter().map(|p| p.sharpness.words().to_string())),
+    );
+    let c = &w.closing;
+    words.push(c.what.clone());
+    words.extend(c.why.iter().chain(&c.adapting).chain(&c.cautions).cloned());
+    words
+}
+
+#[test]
+fn the_check_finds_a_trade_term_and_accepts_an_explained_one() {
+    assert_eq!(unexplained("Look through the corridor.").len(), 1);
+    assert_eq!(unexplained("An add of +1.00 D here.").len(), 2);
+    assert!(unexplained(
+        "Lenses with no lines (progressive lenses: the focus changes gradually from far at the top to near at the bottom)."
+    )
+    .is_empty());
+    assert_eq!(unexplained("Progressive lenses are fine.").len(), 1);
+}
+
+#[test]
+fn every_demo_walks_through_every_task_for_every_option_in_plain_words() {
+    for valid in demo_scenarios() {
+        let plan = plan(&valid).expect("demo plans");
+        let now = current_glasses_plan(&valid).expect("distance-only copy plans");
+        assert_eq!(now.options.len(), 1);
+        for option in &plan.options {
+            let w = walkthrough(&plan, Some(&now), Some(option.option.index)).expect("has options");
+            assert_eq!(w.steps.len(), plan.tasks.len(), "{}", plan.scenario_name);
+            assert_eq!(w.closing.option, option.option);
+            for step in &w.steps {
+                assert!(step.sentences.len() >= 3, "{:?}", step.sentences);
+                assert_eq!(step.pictures.len(), plan.options.len() + 1);
+                assert_eq!(step.pictures.iter().filter(|p| p.chosen).count(), 1);
+                assert!(!step.pictures[0].chosen, "the glasses now come first");
+            }
+            assert!(
+                w.closing
+                    .cautions
+                    .iter()
+                    .any(|c| c.contains("not a prescription")),
+                "the planning-aid caution is always there"
+            );
+            for text in all_words(&w) {
+                check_plain(&text);
+            }
+        }
+    }
+}
+
+// Two routes to the same blur: the planner's blur-disc figure for the task
+// and the picture filter's disc from the same defocus and pupil (both
+// β = p ΔD, Atchison & Smith, Optics of the Human Eye; from memory).
+#[test]
+fn each_picture_is_blurred_by_the_planners_own_blur_disc() {
+    for valid in demo_scenarios() {
+        let plan = plan(&valid).expect("demo plans");
+        let now = current_glasses_plan(&valid).expect("distance-only copy plans");
+        let w = walkthrough(&plan, Some(&now), None).expect("has options");
+        for step in &w.steps {
+            for (picture, option) in step.pictures.iter().skip(1).zip(&plan.options) {
+                let task = &option.tasks[step.task_index];
+                let disc = BlurDisc::from_defocus(picture.defocus, w.pupil, 1.0).expect("in range");
+                assert!(
+                    (disc.diameter_arcmin - task.blur.blur_disc_arcmin).abs() < 1e-9,
+                    "{}: {} against {}",
+                    step.name,
+                    disc.diameter_arcmin,
+                    task.blur.blur_disc_arcmin
+                );
+            }
+        }
+    }
+}
+
+/// A real task plan from the office demo, to vary field by field.
+fn sample_task() -> TaskPlan {
+    let valid = demo_scenarios().remove(0);
+    plan(&valid).expect("demo plans").options[0].tasks[0].clone()
+}
+
+#[test]
+fn every_zone_verdict_and_posture_maps_to_a_plain_sentence() {
+    let base = sample_task();
+    let zones = [
+        ZoneKind::SingleVision,
+        ZoneKind::Distance,
+        ZoneKind::Intermediate,
+        ZoneKind::Near,
+        ZoneKind::Progression,
+        ZoneKind::UpperSegment,
+    ];
+    let verdicts = [
+        Verdict::Comfortable,
+        Verdict::InFocusButTiring,
+        Verdict::Blurred,
+    ];
+    let strains = [Strain::Comfortable, Strain::Tiring, Strain::NotSustainable];
+    let mut sentences = Vec::new();
+    for zone in zones {
+        for y in [2.0, -6.0, -14.0] {
+            let mut t = base.clone();
+            t.zone = zone;
+            t.lens_point.y.0 = y;
+            sentences.push(where_to_look(&t));
+        }
+    }
+    for verdict in verdicts {
+        for focus in verdicts.into_iter().filter(|f| *f >= verdict) {
+            for (beyond, direction) in [
+                (0.0, DefocusDirection::None),
+                (0.3, DefocusDirection::NeedsMorePlus),
+                (1.5, DefocusDirection::NeedsLessPlus),
+            ] {
+                let mut t = base.clone();
+                t.verdict = verdict;
+                t.focus = focus;
+                t.blur.beyond_tolerance = Dioptres(beyond);
+                t.blur.direction = direction;
+                for hours in [0.25, 1.0, 6.0] {
+                    sentences.push(how_it_looks(&t, hours));
+                }
+            }
+        }
+    }
+    for reachable in [true, false] {
+        for chin in [-20.0, -0.2, 12.0] {
+            for strain in strains {
+                for (held, sweep) in [(0.0, 0.0), (0.0, 15.0), (20.0, 30.0)] {
+                    for gaze in [-35.0, -10.0, 0.0, 10.0] {
+                        let mut t = base.clone();
+                        t.posture.reachable = reachable;
+                        t.posture.chin_up = Degrees(chin);
+                        t.posture.strain = strain;
+                        t.field.held_turn = Degrees(held);
+                        t.field.head_turn = Degrees(sweep);
+                        t.field.turn_strain = strain;
+                        let words = head_and_eyes(&t, gaze);
+                        assert!(!words.is_empty());
+                        sentences.extend(words);
+                    }
+                }
+            }
+        }
+    }
+    for s in &sentences {
+        assert!(s.ends_with('.'), "a whole sentence: {s}");
+        assert!(s.chars().next().is_some_and(char::is_uppercase), "{s}");
+        check_plain(s);
+    }
+    // Each grade of sharpness has its own wording.
+    let distinct: std::collections::BTreeSet<&String> = sentences.iter().collect();
+    assert!(distinct.len() > 20);
+}
+
+#[test]
+fn tasks_get_pictures_of_their_kind() {
+    let expected = [
+        ("Road ahead", SceneKind::Road),
+        ("Main monitor", SceneKind::Screen),
+        ("Papers on the desk", SceneKind::Page),
+        ("Soldering a circuit board", SceneKind::Bench),
+        ("Ceiling junction box", SceneKind::Bench),
+        ("Meeting-room screen", SceneKind::Wall),
+        ("Dashboard", SceneKind::Screen),
+    ];
+    let scenarios: Vec<Scenario> = demo_scenarios()
+        .into_iter()
+        .map(|v| v.get().clone())
+        .collect();
+    for (name, kind) in expected {
+        let task = scenarios
+            .iter()
+            .flat_map(|s| &s.tasks)
+            .find(|t| t.name == name)
+            .unwrap_or_else(|| panic!("a demo has \"{name}\""));
+        assert_eq!(SceneKind::for_task(task), kind, "{name}");
+    }
+}
