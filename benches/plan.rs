@@ -31,6 +31,7 @@ fn task(i: usize) -> Task {
             driving: i == 19,
             overhead: i == 18,
             moving_machinery: false,
+            screen: false,
             hazards: Hazards {
                 impact: i == 17,
                 ..Hazards::default()
@@ -117,6 +118,7 @@ fn scenario() -> ValidScenario {
                 },
             ),
         ],
+        current_glasses: None,
     };
     match validate(s) {
         Ok(v) => v,

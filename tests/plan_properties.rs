@@ -270,6 +270,7 @@ proptest! {
             wearer: w,
             tasks,
             options: all_families_open(),
+            current_glasses: None,
         };
         let checked = validate(s);
         prop_assume!(checked.is_ok(), "the generator aims inside the gate");

@@ -36,6 +36,7 @@ fn valid(w: Wearer) -> ValidScenario {
         wearer: w,
         tasks: day(),
         options: all_families_open(),
+        current_glasses: None,
     })
     .unwrap_or_else(|e| panic!("{e:?}"))
 }

@@ -95,6 +95,7 @@ impl Scenario {
             wearer: Wearer::typical(50.0),
             tasks: vec![Task::desk_screen("Screen")],
             options: LensOption::starter_set(),
+            current_glasses: None,
         }
     }
 }
