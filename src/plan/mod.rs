@@ -12,7 +12,8 @@
 //! driving, judged by [`driving`], last when the day includes driving);
 //! [`cautions`] adds the warnings; [`text`] renders the plan for the
 //! command line. [`demands`] builds the occupational-health task-demand
-//! sheet on top of the plan (reference values in [`ergonomics`]).
+//! sheet on top of the plan (reference values in [`ergonomics`]), and
+//! [`roster`] screens a team with it.
 
 pub mod cautions;
 pub mod context;
@@ -23,6 +24,7 @@ pub mod error;
 pub mod objective;
 pub mod outcome;
 pub mod report;
+pub mod roster;
 pub mod solver;
 pub mod text;
 pub mod tolerances;
