@@ -619,8 +619,14 @@ fn eyewear_flag(
     let grid = SINGLE_VISION_ADDITION_GRID;
     // Up to the next step; `short_of_comfort` already allows the planner's
     // rounding tolerance.
-    let addition = (needed / grid.step - 1e-9).ceil().max(0.0) * grid.step;
-    if addition <= grid.last {
+    let first = (needed / grid.step - 1e-9).ceil().max(0.0) * grid.step;
+    // The step found and the next: the shortfall is measured at the task's
+    // lens point through the current glasses, and a task lens seen at
+    // another point may need one step more.
+    for addition in [first, first + grid.step] {
+        if addition > grid.last {
+            break;
+        }
         let family = FamilyChoice::SingleVision {
             addition_d: Some(addition),
         };

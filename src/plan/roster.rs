@@ -418,6 +418,35 @@ impl TeamResult {
         out
     }
 
+    /// The team table for a terminal: one line per worker with the most
+    /// serious flag, then each task that is not fine with what it needs.
+    /// Ids and task names are shown with control characters made visible.
+    pub fn render_table(&self) -> String {
+        let mut out = format!("{}\n", self.counts());
+        for (kind, n) in self.tally() {
+            out.push_str(&format!("  {n:>6}  {}\n", kind.words()));
+        }
+        out.push('\n');
+        for s in &self.workers {
+            out.push_str(&format!(
+                "{:<16} {}\n",
+                crate::display::printable(&s.worker.id),
+                s.sheet.worst_flag().words()
+            ));
+            for t in s.sheet.tasks.iter().filter(|t| t.flag != Flag::Fine) {
+                let reasons: Vec<String> = t.flag.reasons().iter().map(|r| r.to_string()).collect();
+                out.push_str(&format!(
+                    "    {}: {} ({}); {}\n",
+                    crate::display::printable(&t.task.name),
+                    t.flag.kind().words(),
+                    reasons.join("; "),
+                    advice(&t.flag)
+                ));
+            }
+        }
+        out.trim_end().to_string()
+    }
+
     /// How many workers have each flag as their most serious one.
     pub fn tally(&self) -> [(FlagKind, usize); 4] {
         let mut tally = [
