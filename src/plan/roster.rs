@@ -180,7 +180,7 @@ pub fn read_roster(text: &str) -> Result<Roster, RosterError> {
     for (position, name) in header.iter().enumerate() {
         let name = name.trim();
         let Some(column) = COLUMNS.iter().position(|c| c.eq_ignore_ascii_case(name)) else {
-            return Err(RosterError::UnknownColumn(crate::display::printable(name)));
+            return Err(RosterError::UnknownColumn(name.to_string()));
         };
         if index[column].replace(position).is_some() {
             return Err(RosterError::DuplicateColumn(name.to_string()));
@@ -239,7 +239,7 @@ fn worker(
                 Ok(v) if v.is_finite() => Ok(Some(v)),
                 _ => Err(problem(
                     COLUMNS[column],
-                    format!("\"{}\" is not a number", crate::display::printable(text)),
+                    format!("\"{text}\" is not a number"),
                 )),
             },
         }
@@ -254,7 +254,7 @@ fn worker(
     let age_years = number(1)?.ok_or_else(|| problem("age_years", "missing".to_string()))?;
     Ok(Worker {
         line,
-        id: crate::display::printable(id),
+        id: id.to_string(),
         age_years,
         amplitude_d: number(2)?,
         correction_d: number(3)?,
@@ -420,7 +420,8 @@ impl TeamResult {
 
     /// The team table for a terminal: one line per worker with the most
     /// serious flag, then each task that is not fine with what it needs.
-    /// Ids and task names are shown with control characters made visible.
+    /// Ids and task names are as written: a terminal front end makes
+    /// their control characters visible.
     pub fn render_table(&self) -> String {
         let mut out = format!("{}\n", self.counts());
         for (kind, n) in self.tally() {
@@ -430,14 +431,14 @@ impl TeamResult {
         for s in &self.workers {
             out.push_str(&format!(
                 "{:<16} {}\n",
-                crate::display::printable(&s.worker.id),
+                s.worker.id,
                 s.sheet.worst_flag().words()
             ));
             for t in s.sheet.tasks.iter().filter(|t| t.flag != Flag::Fine) {
                 let reasons: Vec<String> = t.flag.reasons().iter().map(|r| r.to_string()).collect();
                 out.push_str(&format!(
                     "    {}: {} ({}); {}\n",
-                    crate::display::printable(&t.task.name),
+                    t.task.name,
                     t.flag.kind().words(),
                     reasons.join("; "),
                     advice(&t.flag)

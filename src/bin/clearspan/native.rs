@@ -307,12 +307,15 @@ fn run_roster(
             .map(|p| format!("{}: {p}", roster_path.display())),
     );
     notes.push(format!("{}: {}", roster_path.display(), team.counts()));
+    // Ids and task names come from the files: in text and CSV their
+    // control characters are shown, never obeyed (JSON escapes them).
+    let shown = |out: String| out.lines().map(printable).collect::<Vec<_>>().join("\n");
     if json {
         serde_json::to_string_pretty(&team).map_err(|e| format!("could not write JSON: {e}"))
     } else if csv {
-        Ok(team.to_csv().trim_end().to_string())
+        Ok(shown(team.to_csv()))
     } else {
-        Ok(team.render_table())
+        Ok(shown(team.render_table()))
     }
 }
 
