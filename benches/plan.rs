@@ -31,6 +31,7 @@ fn task(i: usize) -> Task {
             driving: i == 19,
             overhead: i == 18,
             moving_machinery: false,
+            screen: false,
             hazards: Hazards {
                 impact: i == 17,
                 ..Hazards::default()
@@ -118,6 +119,7 @@ fn scenario() -> ValidScenario {
             ),
         ],
         chosen_option: None,
+        current_glasses: None,
     };
     match validate(s) {
         Ok(v) => v,

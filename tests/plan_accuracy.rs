@@ -328,6 +328,7 @@ fn the_order_follows_the_dispensers_choice_and_says_how_it_differs() {
         tasks: day,
         options,
         chosen_option: None,
+        current_glasses: None,
     };
     let recommended = plan(&validate(s.clone()).expect("valid")).expect("plans");
     let first = recommended.options[0].option.clone();

@@ -273,6 +273,7 @@ proptest! {
             tasks,
             options: all_families_open(),
             chosen_option: None,
+            current_glasses: None,
         };
         let checked = validate(s);
         prop_assume!(checked.is_ok(), "the generator aims inside the gate");

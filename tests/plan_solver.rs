@@ -37,6 +37,7 @@ fn valid(w: Wearer) -> ValidScenario {
         tasks: day(),
         options: all_families_open(),
         chosen_option: None,
+        current_glasses: None,
     })
     .unwrap_or_else(|e| panic!("{e:?}"))
 }

@@ -51,6 +51,20 @@ mod tests {
     }
 
     #[test]
+    fn current_glasses_and_the_screen_flag_are_known_fields() {
+        let mut value = bare();
+        value["current_glasses"] = json!({
+            "label": "own varifocals",
+            "family": {"family": "progressive", "addition_d": 1.5, "progression_length_mm": null}
+        });
+        value["tasks"][0]["flags"]["screen"] = json!(true);
+        let read = read_bare_scenario(&value).expect("a known shape");
+        assert!(read.unknown_fields.is_empty(), "{:?}", read.unknown_fields);
+        assert!(read.scenario.current_glasses.is_some());
+        assert!(read.scenario.tasks[0].flags.screen);
+    }
+
+    #[test]
     fn a_misspelt_member_is_listed_and_a_wrong_type_named() {
         let mut value = bare();
         value["wearer"]["measured_amplitud"] = json!({"dioptres": 2});

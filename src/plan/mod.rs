@@ -11,15 +11,20 @@
 //! option; the options are ranked by their objective (designs not fit for
 //! driving, judged by [`driving`], last when the day includes driving);
 //! [`cautions`] adds the warnings; [`text`] renders the plan for the
-//! command line.
+//! command line. [`demands`] builds the occupational-health task-demand
+//! sheet on top of the plan (reference values in [`ergonomics`]), and
+//! [`roster`] screens a team with it.
 
 pub mod cautions;
 pub mod context;
+pub mod demands;
 pub mod driving;
+pub mod ergonomics;
 pub mod error;
 pub mod objective;
 pub mod outcome;
 pub mod report;
+pub mod roster;
 pub mod solver;
 pub mod text;
 pub mod tolerances;

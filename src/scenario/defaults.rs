@@ -96,6 +96,7 @@ impl Scenario {
             tasks: vec![Task::desk_screen("Screen")],
             options: LensOption::starter_set(),
             chosen_option: None,
+            current_glasses: None,
         }
     }
 }

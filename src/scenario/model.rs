@@ -26,6 +26,11 @@ pub struct Scenario {
     /// sheet are written for it.
     #[serde(default)]
     pub chosen_option: Option<usize>,
+    /// The glasses the wearer has today, if entered: the task-demand sheet
+    /// judges every task through them before anything new is considered.
+    /// They are not an option and are never ranked.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub current_glasses: Option<CurrentGlasses>,
 }
 
 /// Limits a plan is judged against that local rules or the practitioner may
@@ -293,6 +298,10 @@ pub struct TaskFlags {
     pub moving_machinery: bool,
     /// The task sits overhead.
     pub overhead: bool,
+    /// The task is reading text on a display screen, so the character-height
+    /// guidance for displays applies to its detail size.
+    #[serde(default)]
+    pub screen: bool,
     /// What the task exposes the eyes to, so that protective eyewear applies.
     #[serde(default)]
     pub hazards: Hazards,
@@ -325,4 +334,78 @@ pub struct LensOption {
     pub label: String,
     /// The lens family and the parameters fixed by the user (`None` lets the planner choose).
     pub family: FamilyChoice,
+}
+
+/// The glasses the wearer has today. Their distance part is taken to be the
+/// wearer's distance prescription (`wearer.right` / `left`); the family says
+/// what is added to it where. Every power of the family must be given (it is
+/// what the glasses carry, not a choice); a length left open (a segment top,
+/// a progression length) is taken at its usual fitting.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct CurrentGlasses {
+    /// The user's words for them ("own varifocals", "reading glasses").
+    pub label: String,
+    /// The lens family with its additions as made.
+    pub family: FamilyChoice,
+}
+
+impl CurrentGlasses {
+    /// The family as worn: each open length of the design at its usual
+    /// fitting ([`crate::core::lens::Parameter::clinical_default`]); powers
+    /// stay as given.
+    pub fn as_worn(&self) -> FamilyChoice {
+        use crate::core::lens::Parameter;
+        let usual = |value: Option<f64>, p: Parameter| value.or(p.clinical_default());
+        match self.family {
+            FamilyChoice::Bifocal {
+                addition_d,
+                segment_top_mm,
+            } => FamilyChoice::Bifocal {
+                addition_d,
+                segment_top_mm: usual(segment_top_mm, Parameter::SegmentTop),
+            },
+            FamilyChoice::Trifocal {
+                addition_d,
+                intermediate_ratio,
+                segment_top_mm,
+            } => FamilyChoice::Trifocal {
+                addition_d,
+                intermediate_ratio: usual(intermediate_ratio, Parameter::IntermediateRatio),
+                segment_top_mm: usual(segment_top_mm, Parameter::SegmentTop),
+            },
+            FamilyChoice::Progressive {
+                addition_d,
+                progression_length_mm,
+            } => FamilyChoice::Progressive {
+                addition_d,
+                progression_length_mm: usual(progression_length_mm, Parameter::ProgressionLength),
+            },
+            FamilyChoice::DoubleSegment {
+                addition_d,
+                lower_top_mm,
+                upper_bottom_mm,
+            } => FamilyChoice::DoubleSegment {
+                addition_d,
+                lower_top_mm: usual(lower_top_mm, Parameter::LowerSegmentTop),
+                upper_bottom_mm: usual(upper_bottom_mm, Parameter::UpperSegmentBottom),
+            },
+            other => other,
+        }
+    }
+
+    /// Whether every power of the family is given (the planner must not
+    /// choose what glasses already made carry).
+    pub fn powers_given(&self) -> bool {
+        match self.family {
+            FamilyChoice::SingleVision { addition_d }
+            | FamilyChoice::Bifocal { addition_d, .. }
+            | FamilyChoice::Trifocal { addition_d, .. }
+            | FamilyChoice::Progressive { addition_d, .. }
+            | FamilyChoice::DoubleSegment { addition_d, .. } => addition_d.is_some(),
+            FamilyChoice::Degressive {
+                near_addition_d,
+                degression_d,
+            } => near_addition_d.is_some() && degression_d.is_some(),
+        }
+    }
 }

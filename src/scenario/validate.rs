@@ -302,9 +302,27 @@ impl Checker {
     }
 
     fn option(&mut self, i: usize, o: &LensOption) {
-        let p = |field: &str| format!("options[{i}].{field}");
-        self.name(&p("label"), &o.label, true);
-        match o.family {
+        let prefix = format!("options[{i}]");
+        self.name(&format!("{prefix}.label"), &o.label, true);
+        self.family(&prefix, &o.family);
+    }
+
+    fn current_glasses(&mut self, g: &CurrentGlasses) {
+        self.name("current_glasses.label", &g.label, true);
+        self.family("current_glasses", &g.family);
+        if !g.powers_given() {
+            self.fail(
+                "current_glasses.family",
+                Problem::Inconsistent(
+                    "give every power the glasses carry (their addition; 0 for distance glasses)",
+                ),
+            );
+        }
+    }
+
+    fn family(&mut self, prefix: &str, family: &FamilyChoice) {
+        let p = |field: &str| format!("{prefix}.{field}");
+        match *family {
             FamilyChoice::SingleVision { addition_d } => {
                 self.optional(&p("addition_d"), addition_d, &ADDITION)
             }
@@ -422,6 +440,9 @@ pub fn validate(scenario: Scenario) -> Result<ValidScenario, Vec<FieldError>> {
             Problem::Inconsistent("names a lens option the scenario does not have"),
         );
     }
+    if let Some(g) = &scenario.current_glasses {
+        c.current_glasses(g);
+    }
     if c.errors.is_empty() {
         Ok(ValidScenario(scenario))
     } else {
@@ -441,6 +462,38 @@ mod tests {
             Ok(_) => Vec::new(),
             Err(errors) => errors.into_iter().map(|e| e.path).collect(),
         }
+    }
+
+    #[test]
+    fn current_glasses_must_carry_their_powers() {
+        let glasses = |family| {
+            move |s: &mut Scenario| {
+                s.current_glasses = Some(CurrentGlasses {
+                    label: "own varifocals".to_string(),
+                    family,
+                })
+            }
+        };
+        let open = FamilyChoice::Progressive {
+            addition_d: None,
+            progression_length_mm: None,
+        };
+        assert_eq!(
+            problems_after(glasses(open)),
+            vec!["current_glasses.family".to_string()]
+        );
+        let made = FamilyChoice::Progressive {
+            addition_d: Some(1.5),
+            progression_length_mm: None,
+        };
+        assert!(problems_after(glasses(made)).is_empty());
+        let too_strong = FamilyChoice::SingleVision {
+            addition_d: Some(9.0),
+        };
+        assert_eq!(
+            problems_after(glasses(too_strong)),
+            vec!["current_glasses.addition_d".to_string()]
+        );
     }
 
     #[test]

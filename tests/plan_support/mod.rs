@@ -96,6 +96,7 @@ pub fn plan_with(
         tasks,
         options,
         chosen_option: None,
+        current_glasses: None,
     };
     let valid = validate(s).unwrap_or_else(|e| panic!("invalid test scenario: {e:?}"));
     plan(&valid).unwrap_or_else(|e| panic!("plan failed: {e}"))

@@ -1,0 +1,181 @@
+//! The task-demand sheet for fictional workers, worked by hand. Each worker
+//! is an invented emmetrope in plano glasses idealised at vertex 0 with a
+//! measured ocular amplitude (see `plan_support::wearer`), so a task at d
+//! metres needs 1/d dioptres of accommodation and half the amplitude is
+//! usable (the reserve rule, Millodot's Dictionary of Optometry). Age norms
+//! are Hofstetter's (1950) minimum, 15 - 0.25 x age; character heights are
+//! judged against ISO 9241-3:1992 (16' minimum, 20-22' preferred).
+
+mod plan_support;
+
+use clearspan::plan::demands::{demand_sheet, Change, DemandSheet, Flag, FlagKind, Reason};
+use clearspan::scenario::*;
+use plan_support::{close, task, wearer};
+
+/// The sheet of one fictional worker (`amplitude_d` measured, aged
+/// `age_years`) at `tasks`, through `glasses` if given.
+fn sheet(
+    amplitude_d: f64,
+    age_years: f64,
+    tasks: Vec<Task>,
+    glasses: Option<FamilyChoice>,
+) -> DemandSheet {
+    let mut w = wearer(amplitude_d, 0.25);
+    w.age_years = age_years;
+    let s = Scenario {
+        name: "Fictional worker W-0001".to_string(),
+        settings: PlanSettings::default(),
+        wearer: w,
+        tasks,
+        options: Vec::new(),
+        chosen_option: None,
+        current_glasses: glasses.map(|family| CurrentGlasses {
+            label: "own glasses".to_string(),
+            family,
+        }),
+    };
+    let valid = validate(s).unwrap_or_else(|e| panic!("invalid test scenario: {e:?}"));
+    demand_sheet(&valid).unwrap_or_else(|e| panic!("sheet failed: {e}"))
+}
+
+/// A screen task: `detail_mm` is the character height.
+fn screen(distance_m: f64, gaze_deg: f64, detail_mm: f64) -> Task {
+    let mut t = task("monitor", distance_m, gaze_deg, 4.0);
+    t.flags.screen = true;
+    t.width_m = 0.3;
+    t.detail_mm = detail_mm;
+    t
+}
+
+#[test]
+fn a_monitor_within_the_usable_share_is_fine() {
+    // 4.00 D measured, 2.00 D usable; 65 cm needs 1/0.65 = 1.54 D.
+    // 3.5 mm at 65 cm subtends 18.5', above the 16' minimum.
+    let s = sheet(4.0, 50.0, vec![screen(0.65, -10.0, 3.5)], None);
+    let t = &s.tasks[0];
+    assert_eq!(t.flag, Flag::Fine);
+    close(t.accommodation_needed.0, 1.0 / 0.65, 0.01, "needed");
+    close(t.accommodation_comfortable.0, 2.0, 1e-9, "usable");
+    close(t.detail_arcmin, 18.51, 0.01, "character height");
+    assert!(
+        !s.amplitude_below_norm,
+        "4.00 D is above 15 - 0.25 x 50 = 2.50 D"
+    );
+}
+
+#[test]
+fn a_monitor_just_out_of_reach_is_moved_back_and_its_text_enlarged() {
+    // 2.50 D measured (the age minimum at 50: 15 - 12.5), 1.25 D usable.
+    // 65 cm needs 1.54 D: short by 0.29 D. The comfortable near limit,
+    // with the planner's 0.03 D rounding allowance, is 1/1.28 = 78.1 cm;
+    // one centimetre inside, in whole centimetres up, is 80 cm. There
+    // 3.5 mm subtends 15.0', below 16', so the text goes to 20' at 80 cm:
+    // 2 x 800 x tan(10') = 4.65 mm, 4.7 mm in tenths up (+34 %).
+    let s = sheet(2.5, 50.0, vec![screen(0.65, -10.0, 3.5)], None);
+    let t = &s.tasks[0];
+    let Flag::WorkstationChange { reasons, changes } = &t.flag else {
+        panic!("expected a workstation change, got {:?}", t.flag);
+    };
+    let Reason::ShortOfFocus {
+        needs,
+        has,
+        short_by,
+    } = reasons[0]
+    else {
+        panic!("expected a focus reason, got {reasons:?}");
+    };
+    close(needs.0, 1.538, 0.001, "needs");
+    close(has.0, 1.25, 1e-9, "has");
+    close(short_by.0, 0.288, 0.005, "short by");
+    assert_eq!(
+        reasons[0].to_string(),
+        "needs 1.54 D of focusing, has 1.25 D comfortably: short by 0.29 D"
+    );
+    let Change::MoveTo { distance } = changes[0] else {
+        panic!("expected a move, got {changes:?}");
+    };
+    close(distance.0, 0.80, 1e-9, "new distance");
+    let Change::EnlargeText { to_mm, percent } = changes[1] else {
+        panic!("expected larger text, got {changes:?}");
+    };
+    close(to_mm, 4.7, 1e-9, "character height");
+    close(percent, 34.3, 0.1, "enlargement");
+    assert_eq!(changes[0].to_string(), "move it to 80 cm from the eyes");
+}
+
+#[test]
+fn a_document_too_close_for_any_desk_needs_task_eyewear() {
+    // 1.00 D measured at 60 (Hofstetter minimum 0 D: not below the norm),
+    // 0.50 D usable. A document at 42 cm needs 2.38 D: short by 1.88 D.
+    // Comfort would start at 2 m, too far a move. A single-vision +2.00 D
+    // (1.88 rounded up to the next 0.25 D) leaves 0.38 D to accommodate.
+    let mut doc = task("document", 0.42, -30.0, 2.0);
+    doc.detail_mm = 1.5;
+    let s = sheet(1.0, 60.0, vec![doc], None);
+    let t = &s.tasks[0];
+    let Flag::TaskEyewear { reasons, addition } = &t.flag else {
+        panic!("expected task eyewear, got {:?}", t.flag);
+    };
+    close(addition.0, 2.0, 1e-9, "addition");
+    assert!(
+        matches!(reasons[0], Reason::ShortOfFocus { short_by, .. } if (short_by.0 - 1.881).abs() < 0.005)
+    );
+    assert_eq!(t.flag.kind(), FlagKind::TaskEyewear);
+}
+
+#[test]
+fn an_amplitude_far_below_the_age_norm_is_referred() {
+    // At 40 Hofstetter's minimum is 15 - 10 = 5.00 D; 2.50 D measured is
+    // 2.50 D below it (2 D or more: refer). A monitor at 50 cm needs 2.00 D
+    // against 1.25 D usable, so it is not fine and is referred.
+    let s = sheet(2.5, 40.0, vec![screen(0.5, -15.0, 3.5)], None);
+    assert!(s.amplitude_below_norm);
+    close(s.age_norm_minimum.map_or(0.0, |d| d.0), 5.0, 1e-9, "norm");
+    let Flag::Refer { reasons } = &s.tasks[0].flag else {
+        panic!("expected a referral, got {:?}", s.tasks[0].flag);
+    };
+    assert!(reasons.iter().any(
+        |r| matches!(r, Reason::AmplitudeBelowNorm { measured, norm_minimum }
+        if (measured.0 - 2.5).abs() < 1e-9 && (norm_minimum.0 - 5.0).abs() < 1e-9)
+    ));
+    assert_eq!(s.worst_flag(), FlagKind::Refer);
+}
+
+#[test]
+fn a_high_monitor_through_varifocals_is_lowered_by_the_head_tilt_it_forces() {
+    // A progressive +2.00 D wearer (1.00 D measured at 60, 0.50 D usable)
+    // needs about +1.04 D at 65 cm, found well down the corridor: a monitor
+    // 15 degrees below eye level forces the chin up. Lowering it by that tilt at the same
+    // distance moves its centre by d x (sin new - sin old).
+    let glasses = FamilyChoice::Progressive {
+        addition_d: Some(2.0),
+        progression_length_mm: Some(14.0),
+    };
+    let s = sheet(1.0, 60.0, vec![screen(0.65, -15.0, 4.0)], Some(glasses));
+    let t = &s.tasks[0];
+    assert!(t.chin_up.0 > 0.5, "chin lift {t:#?}");
+    let Flag::WorkstationChange { changes, .. } = &t.flag else {
+        panic!("expected a workstation change, got {:?}", t.flag);
+    };
+    let Some(Change::GazeTo {
+        gaze,
+        height_change,
+    }) = changes.first().copied()
+    else {
+        panic!("expected a lower screen, got {changes:?}");
+    };
+    close(gaze.0, (-15.0 - t.chin_up.0).round(), 1e-9, "new gaze");
+    let height = |deg: f64| 0.65 * deg.to_radians().sin();
+    close(
+        height_change.0,
+        height(gaze.0) - height(-15.0),
+        1e-9,
+        "height change",
+    );
+}
+
+#[test]
+fn the_distance_correction_is_used_when_no_glasses_are_entered() {
+    let s = sheet(4.0, 50.0, vec![screen(0.65, -10.0, 3.5)], None);
+    assert!(s.glasses.starts_with("distance correction only"));
+}
