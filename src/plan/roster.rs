@@ -15,6 +15,7 @@ use crate::scenario::{
 };
 use csv_core::{ReadRecordResult, Reader};
 use serde::Serialize;
+use std::collections::HashMap;
 use std::fmt;
 
 /// The columns a roster may have, in any order; the first two are required.
@@ -341,32 +342,58 @@ pub struct TeamResult {
     pub workers: Vec<Screened>,
 }
 
+/// One worker's sheet at `station`, or the problems that skip the row
+/// (their line is set by the caller).
+fn screen_worker(station: &Scenario, w: &Worker) -> Result<DemandSheet, Vec<RowProblem>> {
+    let valid = validate(worker_scenario(station, w)).map_err(|errors| {
+        errors
+            .into_iter()
+            .map(|e| RowProblem {
+                line: w.line,
+                field: column_of(&e.path).to_string(),
+                message: e.problem.to_string(),
+            })
+            .collect::<Vec<_>>()
+    })?;
+    demand_sheet(&valid).map_err(|e| {
+        vec![RowProblem {
+            line: w.line,
+            field: String::new(),
+            message: e.to_string(),
+        }]
+    })
+}
+
 /// Screens every worker of `roster` at `station`. A row whose values the
 /// scenario gate refuses (an age out of range) is skipped with its line
 /// and column; one the planner cannot handle is skipped with its message.
 pub fn screen_team(station: &Scenario, roster: Roster) -> TeamResult {
     let mut skipped = roster.skipped;
     let mut workers = Vec::with_capacity(roster.workers.len());
+    // Workers with the same figures get the same sheet: each distinct set
+    // of figures is screened once (a team repeats ages and corrections).
+    let mut screened: HashMap<[Option<u64>; 4], Result<DemandSheet, Vec<RowProblem>>> =
+        HashMap::new();
     for w in roster.workers {
-        let s = worker_scenario(station, &w);
-        let sheet = match validate(s) {
-            Err(errors) => {
-                skipped.extend(errors.into_iter().map(|e| RowProblem {
-                    line: w.line,
-                    field: column_of(&e.path).to_string(),
-                    message: e.problem.to_string(),
-                }));
-                continue;
+        let key = [
+            Some(w.age_years.to_bits()),
+            w.amplitude_d.map(f64::to_bits),
+            w.correction_d.map(f64::to_bits),
+            w.addition_d.map(f64::to_bits),
+        ];
+        let outcome = screened
+            .entry(key)
+            .or_insert_with(|| screen_worker(station, &w));
+        match outcome {
+            Ok(sheet) => {
+                let mut sheet = sheet.clone();
+                sheet.scenario_name = w.id.clone();
+                workers.push(Screened { worker: w, sheet });
             }
-            Ok(valid) => demand_sheet(&valid),
-        };
-        match sheet {
-            Ok(sheet) => workers.push(Screened { worker: w, sheet }),
-            Err(e) => skipped.push(RowProblem {
+            Err(problems) => skipped.extend(problems.iter().map(|p| RowProblem {
                 line: w.line,
-                field: String::new(),
-                message: e.to_string(),
-            }),
+                ..p.clone()
+            })),
         }
     }
     skipped.sort_by_key(|p| p.line);
@@ -503,6 +530,29 @@ fn quoted(cell: &str) -> String {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn workers_with_the_same_figures_share_a_sheet_but_keep_their_ids_and_lines() {
+        let station = crate::scenario::Scenario::untitled();
+        let text = "id,age_years,amplitude_d,correction_d,addition_d\n\
+                    W-1,52,,-1.50,1.25\n\
+                    W-2,52,,-1.50,1.25\n\
+                    W-3,300,,,\n\
+                    W-4,300,,,\n";
+        let team = screen_team(&station, read_roster(text).expect("readable"));
+        assert_eq!(team.workers.len(), 2);
+        let (a, b) = (&team.workers[0], &team.workers[1]);
+        assert_eq!(
+            (
+                a.sheet.scenario_name.as_str(),
+                b.sheet.scenario_name.as_str()
+            ),
+            ("W-1", "W-2")
+        );
+        assert_eq!(a.sheet.tasks, b.sheet.tasks);
+        let lines: Vec<usize> = team.skipped.iter().map(|p| p.line).collect();
+        assert_eq!(lines, [4, 5], "each refused row is named by its own line");
+    }
 
     /// The problems of `text` as "line, field" pairs.
     fn skipped(text: &str) -> Vec<(usize, String)> {
