@@ -265,3 +265,25 @@ fn tasks_get_pictures_of_their_kind() {
         assert_eq!(SceneKind::for_task(task), kind, "{name}");
     }
 }
+
+#[test]
+fn the_wearers_own_glasses_are_compared_when_entered() {
+    // With the scenario's current glasses entered (fictional: a +1.00 D
+    // reading pair), the comparison lenses are those glasses, named as the
+    // wearer knows them; without them, lenses for distance only stand in.
+    let mut s: Scenario = demo_scenarios()[0].get().clone();
+    s.current_glasses = Some(clearspan::scenario::CurrentGlasses {
+        label: "old reading glasses".to_string(),
+        family: clearspan::scenario::FamilyChoice::SingleVision {
+            addition_d: Some(1.0),
+        },
+    });
+    let valid = validate(s).expect("valid");
+    let p = plan(&valid).expect("plans");
+    let now = current_glasses_plan(&valid).expect("the glasses plan");
+    assert_eq!(now.options[0].option.label, "old reading glasses");
+    let w = walkthrough(&p, Some(&now), None).expect("options exist");
+    let words = all_words(&w).join(" ");
+    assert!(words.contains("\"old reading glasses\""), "{words}");
+    assert!(!words.contains("lenses for distance only"), "{words}");
+}

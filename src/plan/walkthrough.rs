@@ -151,18 +151,41 @@ fn now_label(plan: &Plan) -> &'static str {
     }
 }
 
-/// Plans a copy of `scenario` whose only option is lenses for distance
-/// (single vision, no addition): the stand-in for the wearer's glasses now.
-/// `None` when that copy cannot be planned.
+/// The label of the stand-in for the wearer's glasses when the scenario
+/// does not say what they wear today.
+const DISTANCE_ONLY: &str = "Distance only";
+
+/// Plans a copy of `scenario` whose only option is the wearer's glasses now:
+/// the current glasses when the scenario has them, else lenses for distance
+/// (single vision, no addition) as a stand-in. `None` when that copy cannot
+/// be planned.
 pub fn current_glasses_plan(scenario: &ValidScenario) -> Option<Plan> {
     let mut copy = scenario.get().clone();
-    copy.options = vec![LensOption {
-        label: "Distance only".into(),
-        family: FamilyChoice::SingleVision {
-            addition_d: Some(0.0),
+    let now = match &copy.current_glasses {
+        Some(g) => LensOption {
+            label: g.label.clone(),
+            family: g.as_worn(),
         },
-    }];
+        None => LensOption {
+            label: DISTANCE_ONLY.into(),
+            family: FamilyChoice::SingleVision {
+                addition_d: Some(0.0),
+            },
+        },
+    };
+    copy.options = vec![now];
+    copy.chosen_option = None;
     plan(&validate(copy).ok()?).ok()
+}
+
+/// What the comparison lenses are, in a phrase: the stand-in for distance
+/// only, or the glasses the wearer has today as entered.
+fn now_words(now: &OptionPlan) -> String {
+    if now.option.label == DISTANCE_ONLY {
+        "lenses for distance only".to_string()
+    } else {
+        format!("your own glasses, \"{}\"", now.option.label)
+    }
 }
 
 /// The walkthrough of `plan` for the option with input index `chosen` (the
@@ -188,10 +211,11 @@ pub fn walkthrough(
             let before = now.and_then(|o| o.tasks.iter().find(|t| t.task.index == i));
             let mut sentences = vec![where_to_look(here), how_it_looks(here, ctx.hours_per_day)];
             sentences.extend(head_and_eyes(here, ctx.gaze_elevation.0));
-            if let Some(b) = before {
+            if let (Some(n), Some(b)) = (now, before) {
                 sentences.push(format!(
-                    "{} (lenses for distance only): {}.",
+                    "{} ({}): {}.",
                     now_label(plan),
+                    now_words(n),
                     Sharpness::of(b).words()
                 ));
             }
@@ -489,11 +513,17 @@ fn closing(plan: &Plan, option: &OptionPlan, now: Option<&OptionPlan>) -> Closin
             ordinal(option.rank)
         )
     });
-    if now.is_some() {
-        why.push(format!(
+    match now {
+        Some(n) if n.option.label == DISTANCE_ONLY => why.push(format!(
             "\"{}\" in the pictures means lenses for distance only, made to your distance prescription with no part for close work: the planner does not know the glasses you have.",
             now_label(plan)
-        ));
+        )),
+        Some(n) => why.push(format!(
+            "\"{}\" in the pictures are the glasses you wear today, as entered: \"{}\".",
+            now_label(plan),
+            n.option.label
+        )),
+        None => {}
     }
     let concerns = |c: &&super::Caution| {
         c.options.is_empty() || c.options.iter().any(|o| o.index == option.option.index)
