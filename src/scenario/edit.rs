@@ -1,8 +1,8 @@
 //! Edits of a scenario that must keep its parts consistent: removing a lens
 //! option keeps the dispenser's choice on the same option (or clears it when
-//! the chosen one goes).
+//! the chosen one goes); a removed task can be put back where it was.
 
-use super::model::Scenario;
+use super::model::{Scenario, Task};
 
 impl Scenario {
     /// Removes the lens option at `index` (nothing when there is none), and
@@ -20,9 +20,36 @@ impl Scenario {
     }
 }
 
+impl Scenario {
+    /// Removes the task at `index` and returns it, for an undo; `None` when
+    /// there is no such task.
+    pub fn remove_task(&mut self, index: usize) -> Option<Task> {
+        (index < self.tasks.len()).then(|| self.tasks.remove(index))
+    }
+
+    /// Puts `task` back at `index` (at the end when the list is shorter).
+    pub fn restore_task(&mut self, index: usize, task: Task) {
+        let at = index.min(self.tasks.len());
+        self.tasks.insert(at, task);
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use crate::scenario::Scenario;
+
+    #[test]
+    fn a_removed_task_goes_back_where_it_was() {
+        let mut s = Scenario::untitled();
+        s.tasks.push(s.tasks[0].clone());
+        s.tasks[1].name = "second".to_string();
+        let before = s.clone();
+        let removed = s.remove_task(0).expect("a task to remove");
+        assert_eq!(s.tasks.len(), 1);
+        s.restore_task(0, removed);
+        assert_eq!(s, before);
+        assert!(s.remove_task(9).is_none());
+    }
 
     #[test]
     fn removing_an_option_keeps_the_choice_on_its_option() {

@@ -27,6 +27,30 @@ fn task_write(
     }
 }
 
+/// The task last removed, where it stood, and the era of the list after
+/// the removal (an undo is offered only while the list keeps that shape).
+#[derive(Debug, Clone)]
+struct Removed {
+    index: usize,
+    task: Task,
+    era: u64,
+}
+
+/// Moves the keyboard focus to the element with test id `id` once the
+/// next frame has drawn it.
+fn focus_test_id(id: &str) {
+    let selector = format!("[data-testid=\"{id}\"]");
+    request_animation_frame(move || {
+        let element = web_sys::window()
+            .and_then(|w| w.document())
+            .and_then(|d| d.query_selector(&selector).ok().flatten())
+            .and_then(|e| wasm_bindgen::JsCast::dyn_into::<web_sys::HtmlElement>(e).ok());
+        if let Some(element) = element {
+            let _ = element.focus();
+        }
+    });
+}
+
 /// A check box bound to one flag of task `i`.
 fn flag_field(
     i: usize,
@@ -185,7 +209,7 @@ fn task_number(i: usize, n: &TaskNumber) -> impl IntoView {
 }
 
 /// The card of task `i`.
-fn task_card(i: usize) -> impl IntoView {
+fn task_card(i: usize, removed: RwSignal<Option<Removed>>) -> impl IntoView {
     let state = use_app_state();
     let name = Signal::derive(move || {
         state
@@ -205,11 +229,18 @@ fn task_card(i: usize) -> impl IntoView {
             .map(|p| p.to_string())
     });
     let remove = move |_| {
-        state.reshape(|s| {
-            if i < s.tasks.len() {
-                s.tasks.remove(i);
-            }
-        })
+        let mut taken = None;
+        state.reshape(|s| taken = s.remove_task(i));
+        if let Some(task) = taken {
+            removed.set(Some(Removed {
+                index: i,
+                task,
+                era: state.era.get_untracked(),
+            }));
+            // Focus lands on the undo button, so a second Enter puts the
+            // task back instead of removing the next one.
+            focus_test_id("undo-remove");
+        }
     };
     view! {
         <li class="task-card" data-testid="task-card">
@@ -233,6 +264,7 @@ fn task_card(i: usize) -> impl IntoView {
                 {flag_field(i, "Driving (road, mirrors, dashboard)", |f| &mut f.driving)}
                 {flag_field(i, "Moving machinery", |f| &mut f.moving_machinery)}
                 {flag_field(i, "Overhead", |f| &mut f.overhead)}
+                {flag_field(i, "Screen text (detail is the character height)", |f| &mut f.screen)}
             </div>
             <fieldset class="flags">
                 <legend>"Eye hazards"</legend>
@@ -249,6 +281,7 @@ fn task_card(i: usize) -> impl IntoView {
 #[component]
 pub fn TasksPanel() -> impl IntoView {
     let state = use_app_state();
+    let removed: RwSignal<Option<Removed>> = RwSignal::new(None);
     let count = move || state.scenario.with(|s| s.tasks.len());
     let add = move |_: leptos::ev::MouseEvent| {
         state.edit(|s| {
@@ -262,28 +295,40 @@ pub fn TasksPanel() -> impl IntoView {
             .scenario
             .with_untracked(|s| s.tasks.len())
             .saturating_sub(1);
-        request_animation_frame(move || {
-            let field = web_sys::window()
-                .and_then(|w| w.document())
-                .and_then(|d| {
-                    d.query_selector(&format!("[data-testid=\"task-{last}-name\"]"))
-                        .ok()
-                        .flatten()
-                })
-                .and_then(|e| wasm_bindgen::JsCast::dyn_into::<web_sys::HtmlElement>(e).ok());
-            if let Some(field) = field {
-                let _ = field.focus();
+        focus_test_id(&format!("task-{last}-name"));
+    };
+    let undo = move |_| {
+        if let Some(r) = removed.get_untracked() {
+            // Only while nothing else reshaped the list (another removal, a
+            // scenario opened, the unit switched) does the place still fit.
+            if r.era == state.era.get_untracked() {
+                state.reshape(|s| s.restore_task(r.index, r.task.clone()));
+                focus_test_id(&format!("task-{}-name", r.index));
             }
-        });
+        }
+        removed.set(None);
+    };
+    let undo_label = move || {
+        removed.with(|r| {
+            r.as_ref()
+                .filter(|r| r.era == state.era.get())
+                .map(|r| format!("Put back \"{}\"", r.task.name))
+        })
     };
     let tasks_problem = move || state.problem_at("tasks").map(|p| p.to_string());
     view! {
         <section class="panel tasks" aria-labelledby="tasks-heading">
             <h2 id="tasks-heading">"Working day"</h2>
             <p class="message" role="status">{tasks_problem}</p>
+            {move || undo_label().map(|label| view! {
+                <p class="undo" role="status">
+                    "Task removed. "
+                    <button type="button" class="quiet" data-testid="undo-remove" on:click=undo>{label}</button>
+                </p>
+            })}
             <ol class="task-list">
                 <For each=move || 0..count() key=|i| *i let:i>
-                    {task_card(i)}
+                    {task_card(i, removed)}
                 </For>
             </ol>
             <button

@@ -131,6 +131,15 @@ test("adding and removing tasks updates the cards and the comparison rows", asyn
   assert.match((await planner.orderSheetTasks())[0], /^Phone: 35 cm/);
   assert.equal(await page.getByRole("button", { name: "Remove task Screen" }).count(), 0);
 
+  // The removal can be undone: focus lands on the undo button, so a second
+  // Enter puts the task back where it was instead of removing another.
+  await planner.byTestId("undo-remove").waitFor();
+  await page.waitForFunction(() => document.activeElement?.getAttribute("data-testid") === "undo-remove");
+  await page.keyboard.press("Enter");
+  await page.waitForFunction(() => document.querySelectorAll('[data-testid="task-card"]').length === 2);
+  assert.equal(await planner.valueOf("task-0-name"), "Screen", "the screen task is back in first place");
+  assert.equal(await planner.byTestId("undo-remove").count(), 0, "the undo is spent");
+
   assert.deepEqual(page.problems(), []);
   await context.close();
 });
