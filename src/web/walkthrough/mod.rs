@@ -111,7 +111,7 @@ fn task_view(
                         </button>
                         <figcaption>
                             <strong>{p.label.clone()}</strong>
-                            {p.chosen.then_some(" (your choice)")}
+                            {p.chosen.then_some(" (planned for you)")}
                             <span class=format!("walk-sharpness {}", sharpness_class(p.sharpness))>
                                 {caption(p)}
                             </span>
