@@ -109,10 +109,7 @@ fn over_contact_lenses(s: &Scenario, ctx: &Context, out: &mut Vec<Caution>) {
                     contact lenses they are the wrong glasses."
         .to_string();
     let w = &s.wearer;
-    if [w.right.prism, w.left.prism]
-        .iter()
-        .any(|p| p.horizontal_pd > 0.0 || p.vertical_pd > 0.0)
-    {
+    if [w.right.prism, w.left.prism].iter().any(|p| p.any()) {
         text.push_str(
             " The prescription includes prism, which contact lenses do not carry; ask the \
              prescriber whether the over-pair should.",

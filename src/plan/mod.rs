@@ -365,10 +365,7 @@ fn order_summary(s: &crate::scenario::Scenario, ctx: &Context, best: &OptionPlan
         .zip(&ctx.tasks)
         .min_by(|(_, a), (_, b)| a.distance.0.total_cmp(&b.distance.0))
         .map(|(t, _)| t);
-    let prism = |p: &crate::scenario::Prism| {
-        let any = p.horizontal_pd > 0.0 || p.vertical_pd > 0.0;
-        (any && !ctx.over_contact_lenses).then_some(*p)
-    };
+    let prism = |p: &crate::scenario::Prism| (p.any() && !ctx.over_contact_lenses).then_some(*p);
     let mut order = OrderSummary {
         option: best.option.clone(),
         design: best.design,

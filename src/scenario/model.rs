@@ -185,6 +185,13 @@ pub struct Prism {
     pub vertical_base: VerticalBase,
 }
 
+impl Prism {
+    /// Whether any prism is prescribed.
+    pub fn any(&self) -> bool {
+        self.horizontal_pd > 0.0 || self.vertical_pd > 0.0
+    }
+}
+
 /// Base direction of a horizontal prism.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
 #[serde(rename_all = "snake_case")]
