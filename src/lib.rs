@@ -2,6 +2,8 @@
 //! (optics, lens families, gaze geometry, planning, saved format) that builds
 //! and tests natively, and, behind the `web` feature, a thin leptos app over it.
 
+#[cfg(test)]
+mod approx;
 pub mod chart;
 pub mod core;
 pub mod display;

@@ -10,7 +10,7 @@ mod plan_support;
 
 use clearspan::plan::demands::{demand_sheet, Change, DemandSheet, Flag, FlagKind, Reason};
 use clearspan::scenario::*;
-use plan_support::{close, task, wearer};
+use plan_support::{close_for, task, wearer};
 
 /// The sheet of one fictional worker (`amplitude_d` measured, aged
 /// `age_years`) at `tasks`, through `glasses` if given.
@@ -54,9 +54,9 @@ fn a_monitor_within_the_usable_share_is_fine() {
     let s = sheet(4.0, 50.0, vec![screen(0.65, -10.0, 3.5)], None);
     let t = &s.tasks[0];
     assert_eq!(t.flag, Flag::Fine);
-    close(t.accommodation_needed.0, 1.0 / 0.65, 0.01, "needed");
-    close(t.accommodation_comfortable.0, 2.0, 1e-9, "usable");
-    close(t.detail_arcmin, 18.51, 0.01, "character height");
+    close_for(t.accommodation_needed.0, 1.0 / 0.65, 0.01, "needed");
+    close_for(t.accommodation_comfortable.0, 2.0, 1e-9, "usable");
+    close_for(t.detail_arcmin, 18.51, 0.01, "character height");
     assert!(
         !s.amplitude_below_norm,
         "4.00 D is above 15 - 0.25 x 50 = 2.50 D"
@@ -84,9 +84,9 @@ fn a_monitor_just_out_of_reach_is_moved_back_and_its_text_enlarged() {
     else {
         panic!("expected a focus reason, got {reasons:?}");
     };
-    close(needs.0, 1.538, 0.001, "needs");
-    close(has.0, 1.25, 1e-9, "has");
-    close(short_by.0, 0.288, 0.005, "short by");
+    close_for(needs.0, 1.538, 0.001, "needs");
+    close_for(has.0, 1.25, 1e-9, "has");
+    close_for(short_by.0, 0.288, 0.005, "short by");
     assert_eq!(
         reasons[0].to_string(),
         "needs 1.54 D of focusing, has 1.25 D comfortably: short by 0.29 D"
@@ -94,12 +94,12 @@ fn a_monitor_just_out_of_reach_is_moved_back_and_its_text_enlarged() {
     let Change::MoveTo { distance } = changes[0] else {
         panic!("expected a move, got {changes:?}");
     };
-    close(distance.0, 0.80, 1e-9, "new distance");
+    close_for(distance.0, 0.80, 1e-9, "new distance");
     let Change::EnlargeText { to_mm, percent } = changes[1] else {
         panic!("expected larger text, got {changes:?}");
     };
-    close(to_mm, 4.7, 1e-9, "character height");
-    close(percent, 34.3, 0.1, "enlargement");
+    close_for(to_mm, 4.7, 1e-9, "character height");
+    close_for(percent, 34.3, 0.1, "enlargement");
     assert_eq!(changes[0].to_string(), "move it to 80 cm from the eyes");
 }
 
@@ -116,7 +116,7 @@ fn a_document_too_close_for_any_desk_needs_task_eyewear() {
     let Flag::TaskEyewear { reasons, addition } = &t.flag else {
         panic!("expected task eyewear, got {:?}", t.flag);
     };
-    close(addition.0, 2.0, 1e-9, "addition");
+    close_for(addition.0, 2.0, 1e-9, "addition");
     assert!(
         matches!(reasons[0], Reason::ShortOfFocus { short_by, .. } if (short_by.0 - 1.881).abs() < 0.005)
     );
@@ -130,7 +130,7 @@ fn an_amplitude_far_below_the_age_norm_is_referred() {
     // against 1.25 D usable, so it is not fine and is referred.
     let s = sheet(2.5, 40.0, vec![screen(0.5, -15.0, 3.5)], None);
     assert!(s.amplitude_below_norm);
-    close(s.age_norm_minimum.map_or(0.0, |d| d.0), 5.0, 1e-9, "norm");
+    close_for(s.age_norm_minimum.map_or(0.0, |d| d.0), 5.0, 1e-9, "norm");
     let Flag::Refer { reasons } = &s.tasks[0].flag else {
         panic!("expected a referral, got {:?}", s.tasks[0].flag);
     };
@@ -164,9 +164,9 @@ fn a_high_monitor_through_varifocals_is_lowered_by_the_head_tilt_it_forces() {
     else {
         panic!("expected a lower screen, got {changes:?}");
     };
-    close(gaze.0, (-15.0 - t.chin_up.0).round(), 1e-9, "new gaze");
+    close_for(gaze.0, (-15.0 - t.chin_up.0).round(), 1e-9, "new gaze");
     let height = |deg: f64| 0.65 * deg.to_radians().sin();
-    close(
+    close_for(
         height_change.0,
         height(gaze.0) - height(-15.0),
         1e-9,

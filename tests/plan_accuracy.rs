@@ -136,7 +136,7 @@ fn the_prescribed_addition_is_shown_and_can_be_planned_from() {
         .prescribed_addition
         .expect("an addition was prescribed");
     assert_eq!(c.prescribed.0, 2.0);
-    close(c.difference.0, c.planned.0 - 2.0, 1e-12, "difference");
+    close_for(c.difference.0, c.planned.0 - 2.0, 1e-12, "difference");
     let fixed = PlanSettings {
         use_prescribed_addition: true,
         ..settings
@@ -291,7 +291,7 @@ fn age_norms_describe_eyes_and_lenses_act_on_the_demand() {
                 },
             )],
         );
-        close(
+        close_for(
             p.options[0].tasks[0].accommodation.0,
             expected,
             1e-4,

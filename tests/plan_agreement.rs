@@ -52,12 +52,12 @@ fn disagreements(plan: &Plan) -> Vec<String> {
 /// Whether `distance` (metres) lies in `range`, and how close it is to an
 /// end (a relative margin, to tell rounding at an exact edge from a real
 /// disagreement).
-fn inside(range: &ClearRange, distance: f64) -> (bool, f64) {
+fn inside(range: &ZoneRange, distance: f64) -> (bool, f64) {
     match range {
-        ClearRange::Clear { near, far } => {
+        ZoneRange::Clear { near, far } => {
             let far = match far {
-                FarEnd::Finite(m) => m.0,
-                FarEnd::Infinite => f64::INFINITY,
+                FarLimit::Finite(m) => m.0,
+                FarLimit::Infinite => f64::INFINITY,
             };
             let inside = distance >= near.0 && distance <= far;
             let to_edge = ((distance - near.0) / distance)
@@ -65,7 +65,7 @@ fn inside(range: &ClearRange, distance: f64) -> (bool, f64) {
                 .min(((far - distance) / distance).abs());
             (inside, to_edge)
         }
-        ClearRange::NeedsMorePlus | ClearRange::NeedsLessPlus => (false, f64::INFINITY),
+        ZoneRange::NeedsMorePlus | ZoneRange::NeedsLessPlus => (false, f64::INFINITY),
     }
 }
 

@@ -46,8 +46,8 @@ fn reading_addition_is_the_least_that_makes_the_book_comfortable() {
     assert_eq!(o.parameters[0].source, ParameterSource::ChosenByPlanner);
     let t = &o.tasks[0];
     assert_eq!(t.verdict, Verdict::Comfortable);
-    close(t.accommodation.0, 0.5, 1e-9, "accommodation");
-    close(t.share_of_amplitude.unwrap_or(f64::NAN), 0.5, 1e-9, "share");
+    close_for(t.accommodation.0, 0.5, 1e-9, "accommodation");
+    close_for(t.share_of_amplitude.unwrap_or(f64::NAN), 0.5, 1e-9, "share");
     // +1.75 D would need A = 0.75 D: within the amplitude (1.00) but beyond
     // the usable 0.50, so in focus but tiring; the explanation says so.
     assert!(o.explanation.iter().any(|n| matches!(
@@ -66,17 +66,17 @@ fn reading_addition_is_the_least_that_makes_the_book_comfortable() {
     let z = &o.zones[0];
     match (z.comfortable, z.in_focus) {
         (
-            ClearRange::Clear {
+            ZoneRange::Clear {
                 near,
-                far: FarEnd::Finite(far),
+                far: FarLimit::Finite(far),
             },
-            ClearRange::Clear {
+            ZoneRange::Clear {
                 near: focus_near, ..
             },
         ) => {
-            close(near.0, 1.0 / 2.53, 1e-9, "comfortable near limit");
-            close(far.0, 1.0 / 1.75, 1e-9, "far limit");
-            close(focus_near.0, 1.0 / 3.03, 1e-9, "in-focus near limit");
+            close_for(near.0, 1.0 / 2.53, 1e-9, "comfortable near limit");
+            close_for(far.0, 1.0 / 1.75, 1e-9, "far limit");
+            close_for(focus_near.0, 1.0 / 3.03, 1e-9, "in-focus near limit");
         }
         other => panic!("unexpected ranges {other:?}"),
     }
@@ -100,11 +100,11 @@ fn too_weak_a_reader_blurs_by_the_worked_amount() {
     let t = &p.options[0].tasks[0];
     assert_eq!(t.verdict, Verdict::Blurred);
     assert_eq!(t.blur.direction, DefocusDirection::NeedsMorePlus);
-    close(t.blur.defocus.0, 0.5, 1e-9, "defocus");
-    close(t.blur.beyond_tolerance.0, 0.47, 1e-9, "beyond tolerance");
-    close(t.blur.short_of_comfort.0, 0.97, 1e-9, "short of comfort");
-    close(t.blur.blur_disc_arcmin, 6.875, 1e-3, "blur disc");
-    close(t.blur.acuity_loss_logmar, 0.2149, 1e-4, "acuity loss");
+    close_for(t.blur.defocus.0, 0.5, 1e-9, "defocus");
+    close_for(t.blur.beyond_tolerance.0, 0.47, 1e-9, "beyond tolerance");
+    close_for(t.blur.short_of_comfort.0, 0.97, 1e-9, "short of comfort");
+    close_for(t.blur.blur_disc_arcmin, 6.875, 1e-3, "blur disc");
+    close_for(t.blur.acuity_loss_logmar, 0.2149, 1e-4, "acuity loss");
     assert_eq!(p.options[0].explanation, vec![ChoiceNote::AllFixed]);
     assert_eq!(p.unserved.len(), 1);
     assert_eq!(
@@ -125,9 +125,9 @@ fn amplitude_from_age_uses_hofstetter_minimum() {
     let mut w = wearer(0.0, 0.25);
     w.measured_amplitude = None;
     let p = plan_of(w, vec![task("monitor", 0.5, -10.0, 6.0)], vec![sv(None)]);
-    close(p.amplitude.stated.0, 2.5, 1e-12, "stated amplitude");
-    close(p.amplitude.ocular.0, 2.5, 1e-12, "ocular amplitude");
-    close(p.amplitude.usable_ocular.0, 1.25, 1e-12, "usable");
+    close_for(p.amplitude.stated.0, 2.5, 1e-12, "stated amplitude");
+    close_for(p.amplitude.ocular.0, 2.5, 1e-12, "ocular amplitude");
+    close_for(p.amplitude.usable_ocular.0, 1.25, 1e-12, "usable");
     assert!(matches!(
         p.amplitude.source,
         AmplitudeSource::AgeModel {
@@ -159,7 +159,7 @@ fn a_measured_spectacle_plane_amplitude_is_converted_for_a_myope() {
         plane: ReferencePlane::Spectacle,
     });
     let p = plan_of(w, vec![task("book", 0.4, -25.0, 1.0)], vec![sv(Some(0.0))]);
-    close(p.amplitude.ocular.0, 3.057_73, 1e-4, "ocular amplitude");
+    close_for(p.amplitude.ocular.0, 3.057_73, 1e-4, "ocular amplitude");
     assert!(p.cautions.iter().any(|c| c.kind == CautionKind::HighPower));
 }
 

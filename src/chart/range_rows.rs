@@ -5,7 +5,7 @@
 //! distance.
 
 use super::dioptric_axis::DioptricAxis;
-use crate::plan::{ClearRange, FarEnd, OptionPlan, Plan, Verdict, ZoneKind};
+use crate::plan::{FarLimit, OptionPlan, Plan, Verdict, ZoneKind, ZoneRange};
 
 /// A horizontal extent on the chart, in SVG x units, near end first.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -52,16 +52,16 @@ pub struct TaskMarker {
     pub distance_m: f64,
 }
 
-fn span(range: &ClearRange, axis: &DioptricAxis) -> Option<Span> {
+fn span(range: &ZoneRange, axis: &DioptricAxis) -> Option<Span> {
     match range {
-        ClearRange::Clear { near, far } => Some(Span {
+        ZoneRange::Clear { near, far } => Some(Span {
             x_near: axis.x_of_distance(Some(near.0)),
             x_far: axis.x_of_distance(match far {
-                FarEnd::Finite(m) => Some(m.0),
-                FarEnd::Infinite => None,
+                FarLimit::Finite(m) => Some(m.0),
+                FarLimit::Infinite => None,
             }),
         }),
-        ClearRange::NeedsMorePlus | ClearRange::NeedsLessPlus => None,
+        ZoneRange::NeedsMorePlus | ZoneRange::NeedsLessPlus => None,
     }
 }
 
@@ -129,9 +129,9 @@ mod tests {
     fn a_range_becomes_a_span_by_vergence() {
         // 50 cm is 2 D and infinity 0 D (vergence = 1 / distance): on a 4 D axis
         // 400 units wide they sit at x = 200 and x = 400.
-        let clear = ClearRange::Clear {
+        let clear = ZoneRange::Clear {
             near: Metres(0.5),
-            far: FarEnd::Infinite,
+            far: FarLimit::Infinite,
         };
         assert_eq!(
             span(&clear, &axis()),
@@ -140,9 +140,9 @@ mod tests {
                 x_far: 400.0
             })
         );
-        let finite = ClearRange::Clear {
+        let finite = ZoneRange::Clear {
             near: Metres(0.25),
-            far: FarEnd::Finite(Metres(1.0)),
+            far: FarLimit::Finite(Metres(1.0)),
         };
         assert_eq!(
             span(&finite, &axis()),
@@ -151,7 +151,7 @@ mod tests {
                 x_far: 300.0
             })
         );
-        assert_eq!(span(&ClearRange::NeedsMorePlus, &axis()), None);
+        assert_eq!(span(&ZoneRange::NeedsMorePlus, &axis()), None);
     }
 
     #[test]

@@ -296,12 +296,7 @@ fn convolve_disc(image: &GreyImage, radius_px: f64) -> GreyImage {
 mod tests {
     use super::*;
 
-    fn close(actual: f64, expected: f64, tolerance: f64) {
-        assert!(
-            (actual - expected).abs() <= tolerance,
-            "{actual} is not within {tolerance} of {expected}"
-        );
-    }
+    use crate::approx::close;
 
     /// A test card: dark strokes of assorted widths on white.
     fn card(width: usize, height: usize) -> GreyImage {

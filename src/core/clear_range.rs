@@ -24,6 +24,8 @@ use super::units::{Dioptres, Metres};
 use super::vergence::{
     check_power, object_vergence, CorrectedEye, MAX_OBJECT_DISTANCE_M, MIN_OBJECT_DISTANCE_M,
 };
+use serde::Serialize;
+use std::fmt;
 
 /// Largest ocular amplitude of accommodation accepted, in dioptres.
 pub const MAX_AMPLITUDE_D: f64 = super::limits::AMPLITUDE.max;
@@ -129,7 +131,8 @@ impl Viewer {
 }
 
 /// The far limit of a range of clear vision.
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+#[serde(rename_all = "snake_case", tag = "kind", content = "metres")]
 pub enum FarLimit {
     /// The far limit lies this many metres in front of the spectacle plane.
     Finite(Metres),
@@ -149,7 +152,8 @@ impl FarLimit {
 }
 
 /// The range of clear vision of a zone under one criterion.
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+#[serde(rename_all = "snake_case", tag = "kind")]
 pub enum ZoneRange {
     /// Objects from `near` to `far` (metres from the spectacle plane) are clear.
     /// Near limits closer than 2 cm are reported as 2 cm.
@@ -164,6 +168,25 @@ pub enum ZoneRange {
     NeedsMorePlus,
     /// Nothing farther than 2 cm is clear: the zone has far too much plus.
     NeedsLessPlus,
+}
+
+impl fmt::Display for FarLimit {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            FarLimit::Finite(m) => write!(f, "{:.0} cm", m.to_cm()),
+            FarLimit::Infinite => f.write_str("infinity"),
+        }
+    }
+}
+
+impl fmt::Display for ZoneRange {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            ZoneRange::Clear { near, far } => write!(f, "{:.0} cm to {far}", near.to_cm()),
+            ZoneRange::NeedsMorePlus => f.write_str("nothing clear (needs more plus)"),
+            ZoneRange::NeedsLessPlus => f.write_str("nothing clear (needs less plus)"),
+        }
+    }
 }
 
 /// The ranges of clear vision of one zone.

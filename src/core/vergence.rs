@@ -250,12 +250,7 @@ mod tests {
 
     const TOL: f64 = 1e-4;
 
-    fn close(actual: f64, expected: f64, tol: f64) {
-        assert!(
-            (actual - expected).abs() <= tol,
-            "got {actual}, expected {expected} ± {tol}"
-        );
-    }
+    use crate::approx::close;
 
     /// Hand-worked ocular refraction K = F / (1 - vF).
     fn check_k(f: f64, v_mm: f64, expected: f64) {

@@ -15,7 +15,7 @@ use super::ergonomics::{
     CHARACTER_HEIGHT_PREFERRED_ARCMIN, MAX_DISTANCE_CHANGE_M, NEAREST_WORKING_DISTANCE_M,
 };
 use super::{
-    plan, AmplitudeSource, AmplitudeUsed, ClearRange, FarEnd, Plan, PlanError, Strain, TaskPlan,
+    plan, AmplitudeSource, AmplitudeUsed, FarLimit, Plan, PlanError, Strain, TaskPlan, ZoneRange,
 };
 use super::{TaskRef, Verdict};
 use crate::core::accommodation::AgeModel;
@@ -534,10 +534,10 @@ fn changes_for(s: &Scenario, i: usize, tp: &TaskPlan, screen: bool) -> Vec<Chang
     let mut out = Vec::new();
     let mut distance = t.distance_m;
     if tp.verdict != Verdict::Comfortable {
-        if let ClearRange::Clear { near, far } = tp.range_here.comfortable {
+        if let ZoneRange::Clear { near, far } = tp.range_here.comfortable {
             let far_m = match far {
-                FarEnd::Finite(m) => m.0,
-                FarEnd::Infinite => f64::INFINITY,
+                FarLimit::Finite(m) => m.0,
+                FarLimit::Infinite => f64::INFINITY,
             };
             // One centimetre inside the range, in whole centimetres, so the
             // change survives a wearer sitting a little differently.

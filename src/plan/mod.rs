@@ -298,10 +298,10 @@ fn remedies(ctx: &Context, i: usize, tc: &TaskContext, seen: &TaskPlan) -> Vec<R
             out.push(Remedy::Magnifier);
         }
     }
-    if let ClearRange::Clear { near, far } = seen.range_here.comfortable {
+    if let ZoneRange::Clear { near, far } = seen.range_here.comfortable {
         let far_m = match far {
-            FarEnd::Finite(m) => m.0,
-            FarEnd::Infinite => f64::INFINITY,
+            FarLimit::Finite(m) => m.0,
+            FarLimit::Infinite => f64::INFINITY,
         };
         let to = tc.distance.0.clamp(near.0, far_m);
         if (to - tc.distance.0).abs() > 0.005 {

@@ -8,12 +8,11 @@ use super::context::Context;
 use super::error::PlanError;
 use super::objective::{zone_angle, TaskChoice};
 use super::outcome::{
-    Centration, ClearRange, DefocusDirection, DrivingVision, FarEnd, FieldFit, HeadPosture,
-    LensPointMm, LocalPower, ResidualBlur, SpectaclePower, TaskPlan, Verdict, ZoneKind,
-    ZoneRangePlan,
+    Centration, DefocusDirection, DrivingVision, FieldFit, HeadPosture, LocalPower, ResidualBlur,
+    SpectaclePower, TaskPlan, Verdict, ZoneKind, ZoneRangePlan,
 };
 use crate::core::acuity::{acuity_loss_logmar, blur_disc_arcmin, decimal_acuity};
-use crate::core::clear_range::{evaluate_task, ranges_with_allowances, FarLimit, ZoneRange};
+use crate::core::clear_range::{evaluate_task, ranges_with_allowances};
 use crate::core::gaze::{pitch_strain, turn_strain, vertical_imbalance, Eye};
 use crate::core::lens::{LensDesign, LensPoint};
 use crate::core::prescription::SpheroCylinder;
@@ -47,20 +46,6 @@ pub fn fixed_zones(design: &LensDesign) -> Vec<(ZoneKind, Dioptres)> {
     }
 }
 
-fn clear(range: ZoneRange) -> ClearRange {
-    match range {
-        ZoneRange::Clear { near, far } => ClearRange::Clear {
-            near,
-            far: match far {
-                FarLimit::Finite(m) => FarEnd::Finite(m),
-                FarLimit::Infinite => FarEnd::Infinite,
-            },
-        },
-        ZoneRange::NeedsMorePlus => ClearRange::NeedsMorePlus,
-        ZoneRange::NeedsLessPlus => ClearRange::NeedsLessPlus,
-    }
-}
-
 /// The ranges of clear vision of a zone of addition `addition`, with half
 /// depth `comfortable` for the comfortable range and `in_focus` for the
 /// in-focus range.
@@ -80,8 +65,8 @@ pub fn zone_range(
     Ok(ZoneRangePlan {
         zone,
         addition,
-        in_focus: clear(r.in_focus),
-        comfortable: clear(r.comfortable),
+        in_focus: r.in_focus,
+        comfortable: r.comfortable,
     })
 }
 
@@ -170,7 +155,7 @@ pub fn task_plan(
     let prism_over_limit = prep.prism_over_limit(y.0);
     Ok(TaskPlan {
         task: tc.task.clone(),
-        lens_point: LensPointMm {
+        lens_point: LensPoint {
             x: Millimetres(choice.x),
             y: Millimetres(choice.y),
         },

@@ -3,6 +3,11 @@
 //! touches one place. All people and workplaces here are invented.
 #![allow(dead_code)]
 
+#[path = "../../src/approx.rs"]
+mod approx;
+#[allow(unused_imports)] // not every test file compares numbers
+pub use approx::close_for;
+
 use clearspan::plan::{plan, Plan};
 use clearspan::scenario::*;
 
@@ -100,14 +105,6 @@ pub fn plan_with(
     };
     let valid = validate(s).unwrap_or_else(|e| panic!("invalid test scenario: {e:?}"));
     plan(&valid).unwrap_or_else(|e| panic!("plan failed: {e}"))
-}
-
-/// Asserts `actual` is within `tol` of `expected`.
-pub fn close(actual: f64, expected: f64, tol: f64, what: &str) {
-    assert!(
-        (actual - expected).abs() <= tol,
-        "{what}: got {actual}, expected {expected} ± {tol}"
-    );
 }
 
 /// Every lens family with every parameter open.

@@ -4,6 +4,7 @@
 //! crossing points, and the head-posture solver on hand-worked cases.
 
 use super::*;
+use crate::approx::close_for;
 use crate::core::lens::{Bifocal, LensDesign, Progressive, SegmentShape, Zone};
 use crate::core::units::Dioptres;
 
@@ -33,10 +34,6 @@ fn cross(f: &Fitting, eye: Eye, t: TaskPosition, pitch: f64) -> LensCrossing {
     f.crossing(eye, &point, Degrees(pitch)).unwrap()
 }
 
-fn close(got: f64, expected: f64, tol: f64, what: &str) {
-    assert!((got - expected).abs() <= tol, "{what}: {got} vs {expected}");
-}
-
 #[test]
 fn vector_crossing_matches_the_sagittal_closed_form() {
     // In the eye's own sagittal plane (task offset sideways by the monocular
@@ -53,9 +50,9 @@ fn vector_crossing_matches_the_sagittal_closed_form() {
             let k = cross(&f, Eye::Right, t, 0.0);
             let e = k.elevation.to_radians();
             let tr = tilt.to_radians();
-            close(k.point.y.0, c * e.sin() / (e + tr).cos(), 1e-9, "height");
-            close(k.point.x.0, 0.0, 1e-9, "sideways");
-            close(
+            close_for(k.point.y.0, c * e.sin() / (e + tr).cos(), 1e-9, "height");
+            close_for(k.point.x.0, 0.0, 1e-9, "sideways");
+            close_for(
                 k.cor_to_lens.0,
                 c * tr.cos() / (e + tr).cos(),
                 1e-9,
@@ -75,7 +72,7 @@ fn vector_crossing_matches_the_sagittal_closed_form() {
         task(0.6, TaskVertical::Height(Metres(h / 1000.0)), 0.032),
         0.0,
     );
-    close(k.point.y.0, -9.377002, 1e-6, "worked example");
+    close_for(k.point.y.0, -9.377002, 1e-6, "worked example");
 }
 
 #[test]
@@ -140,7 +137,7 @@ fn near_inset_through_powered_lenses_follows_the_traced_ray() {
             .unwrap()
             .0;
         let traced = traced_inset(32.0, 400.0, c, power);
-        close(inset, traced, 0.02, &format!("inset at {power} D"));
+        close_for(inset, traced, 0.02, &format!("inset at {power} D"));
         assert_eq!(inset > plano, power > 0.0, "{power} D");
     }
     let pair_shift = 2.0
@@ -158,16 +155,16 @@ fn near_inset_and_convergence_agree_with_the_gaze_model() {
     // prism dioptres (formulas as in the domain brief; values worked by hand).
     let f = fitting(0.0, 0.0);
     let l = Metres(0.4);
-    close(f.near_pd(l).unwrap().0, 59.953162, 1e-6, "near PD");
+    close_for(f.near_pd(l).unwrap().0, 59.953162, 1e-6, "near PD");
     let straight = task(0.4, TaskVertical::GazeAngle(Degrees(0.0)), 0.0);
     for eye in [Eye::Right, Eye::Left] {
         let inset = f.near_inset(eye, l).unwrap().0;
-        close(inset, 2.023419, 1e-6, "inset");
+        close_for(inset, 2.023419, 1e-6, "inset");
         let k = cross(&f, eye, straight, 0.0);
-        close(k.point.x.0, inset, 1e-9, "crossing is the inset");
+        close_for(k.point.x.0, inset, 1e-9, "crossing is the inset");
         let demand = f.convergence_demand(eye, l).unwrap().0;
-        close(demand, 7.494145, 1e-6, "convergence");
-        close(
+        close_for(demand, 7.494145, 1e-6, "convergence");
+        close_for(
             100.0 * k.azimuth_nasal.to_radians().tan(),
             demand,
             1e-9,
@@ -175,7 +172,7 @@ fn near_inset_and_convergence_agree_with_the_gaze_model() {
         );
     }
     let insets = f.near_inset(Eye::Right, l).unwrap().0 + f.near_inset(Eye::Left, l).unwrap().0;
-    close(64.0 - f.near_pd(l).unwrap().0, insets, 1e-9, "insets sum");
+    close_for(64.0 - f.near_pd(l).unwrap().0, insets, 1e-9, "insets sum");
 }
 
 #[test]
@@ -189,15 +186,15 @@ fn prentice_at_the_reading_level() {
     let t = task(0.4, TaskVertical::GazeAngle(Degrees(-25.0)), 0.0);
     let r = cross(&f, Eye::Right, t, 0.0);
     let l = cross(&f, Eye::Left, t, 0.0);
-    close(r.point.y.0, -12.590307, 1e-6, "right height");
-    close(l.point.y.0, -12.590307, 1e-6, "left height");
+    close_for(r.point.y.0, -12.590307, 1e-6, "right height");
+    close_for(l.point.y.0, -12.590307, 1e-6, "left height");
     let v = vertical_imbalance(r.point.y, Dioptres(1.0), l.point.y, Dioptres(3.0)).unwrap();
-    close(v.right.0, 1.259031, 1e-6, "right prism");
-    close(v.left.0, 3.777092, 1e-6, "left prism");
-    close(v.difference.0, -2.518061, 1e-6, "imbalance");
+    close_for(v.right.0, 1.259031, 1e-6, "right prism");
+    close_for(v.left.0, 3.777092, 1e-6, "left prism");
+    close_for(v.difference.0, -2.518061, 1e-6, "imbalance");
     // Below a minus lens the base is down; nasal of a plus lens it is out.
     assert!(vertical_prism(Millimetres(-5.0), Dioptres(-2.0)).unwrap().0 < 0.0);
-    close(
+    close_for(
         horizontal_prism(Millimetres(5.0), Dioptres(2.0)).unwrap().0,
         -1.0,
         1e-12,
@@ -212,8 +209,8 @@ fn wrap_keeps_the_fitting_point_and_mirrors_the_eyes() {
     let far = task(1000.0, TaskVertical::GazeAngle(Degrees(0.0)), 0.0);
     for eye in [Eye::Right, Eye::Left] {
         let k = cross(&f, eye, far, 0.0);
-        close(k.point.x.0, 0.0, 1e-3, "far task at the fitting point");
-        close(k.point.y.0, 0.0, 1e-9, "far task level");
+        close_for(k.point.x.0, 0.0, 1e-3, "far task at the fitting point");
+        close_for(k.point.y.0, 0.0, 1e-9, "far task level");
     }
     // A task to the right: the right eye turns to its temple, the left to its nose.
     let right_side = task(0.6, TaskVertical::GazeAngle(Degrees(-10.0)), 0.2);
@@ -224,8 +221,8 @@ fn wrap_keeps_the_fitting_point_and_mirrors_the_eyes() {
         cross(&f, Eye::Right, near, 0.0),
         cross(&f, Eye::Left, near, 0.0),
     );
-    close(r.point.x.0, l.point.x.0, 1e-9, "symmetric x");
-    close(r.point.y.0, l.point.y.0, 1e-9, "symmetric y");
+    close_for(r.point.x.0, l.point.x.0, 1e-9, "symmetric x");
+    close_for(r.point.y.0, l.point.y.0, 1e-9, "symmetric y");
 }
 
 #[test]
@@ -236,9 +233,9 @@ fn fields_and_head_turns() {
     // (51.139330 - 10.580162) / 2 = 20.279584 degrees each way.
     let task_angle = subtended_angle(Millimetres(600.0), Millimetres(627.0)).unwrap();
     let zone_angle = subtended_angle(Millimetres(5.0), Millimetres(27.0)).unwrap();
-    close(task_angle.0, 51.139330, 1e-6, "task angle");
-    close(zone_angle.0, 10.580162, 1e-6, "zone angle");
-    close(
+    close_for(task_angle.0, 51.139330, 1e-6, "task angle");
+    close_for(zone_angle.0, 10.580162, 1e-6, "zone angle");
+    close_for(
         head_turn_per_side(task_angle, zone_angle).0,
         20.279584,
         1e-6,
@@ -296,8 +293,8 @@ fn high_monitor_forces_the_chin_up() {
     let monitor = task(0.65, TaskVertical::GazeAngle(Degrees(0.0)), 0.0);
     match posture(&progressive(), monitor, 1.0, ComfortRange::default()) {
         PostureOutcome::Found(p) => {
-            close(p.head_pitch.0, 17.885294, 1e-6, "head pitch");
-            close(p.right.point.y.0, -8.713110, 1e-6, "crossing");
+            close_for(p.head_pitch.0, 17.885294, 1e-6, "head pitch");
+            close_for(p.right.point.y.0, -8.713110, 1e-6, "crossing");
             assert_eq!(p.zone, Zone::Progression);
         }
         other => panic!("expected a posture, got {other:?}"),

@@ -56,7 +56,7 @@ use std::fmt;
 
 /// A point on the lens, in millimetres from the fitting point: `x` nasal
 /// positive, `y` up positive.
-#[derive(Debug, Clone, Copy, PartialEq, Default)]
+#[derive(Debug, Clone, Copy, PartialEq, Default, Serialize)]
 pub struct LensPoint {
     /// Horizontal position, millimetres, positive towards the nose.
     pub x: Millimetres,

@@ -302,14 +302,9 @@ impl SchematicEye {
     }
 }
 
-/// Checks shared by the files of the individual eyes.
+/// The tolerance check shared by the files of the individual eyes.
 #[cfg(test)]
-fn close(actual: f64, expected: f64, tol: f64) {
-    assert!(
-        (actual - expected).abs() <= tol,
-        "got {actual}, expected {expected} ± {tol}"
-    );
-}
+use crate::approx::close;
 
 #[cfg(test)]
 mod tests {

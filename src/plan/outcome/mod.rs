@@ -9,7 +9,7 @@
 //! could be a word is an enum, and each enum has a plain-English
 //! [`fmt::Display`] (or a `describe` method) that both front ends share.
 //! Nothing here is NaN or infinite: an infinite far limit is
-//! [`FarEnd::Infinite`], an undefined share is `None`.
+//! [`FarLimit::Infinite`], an undefined share is `None`.
 
 mod option;
 mod summary;

@@ -3,7 +3,7 @@
 //! stands against the prescribed addition and the option ranked above it.
 
 use super::*;
-use crate::core::units::{Dioptres, Metres, Millimetres};
+use crate::core::units::{Dioptres, Millimetres};
 use crate::scenario::FamilyChoice;
 use serde::Serialize;
 use std::fmt;
@@ -314,6 +314,8 @@ pub enum RangeEnd {
 /// report's serialized name and display words.
 pub use crate::core::lens::Zone as ZoneKind;
 
+pub use crate::core::clear_range::{FarLimit, ZoneRange};
+
 /// The range of clear vision of one zone of a design.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize)]
 pub struct ZoneRangePlan {
@@ -322,36 +324,9 @@ pub struct ZoneRangePlan {
     /// The zone's addition over the distance power, in dioptres.
     pub addition: Dioptres,
     /// Range using the full amplitude (in focus, possibly tiring).
-    pub in_focus: ClearRange,
+    pub in_focus: ZoneRange,
     /// Range using only the usable share of the amplitude (comfortable).
-    pub comfortable: ClearRange,
-}
-
-/// The range of distances seen clearly through one power under one criterion.
-#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
-#[serde(rename_all = "snake_case", tag = "kind")]
-pub enum ClearRange {
-    /// Clear from `near` to `far`, measured from the spectacle plane.
-    Clear {
-        /// Nearest clear distance, in metres.
-        near: Metres,
-        /// Farthest clear distance.
-        far: FarEnd,
-    },
-    /// Nothing is clear: the power needs more plus.
-    NeedsMorePlus,
-    /// Nothing beyond 2 cm is clear: the power needs less plus.
-    NeedsLessPlus,
-}
-
-/// The far limit of a range of clear vision.
-#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
-#[serde(rename_all = "snake_case", tag = "kind", content = "metres")]
-pub enum FarEnd {
-    /// Clear out to this many metres.
-    Finite(Metres),
-    /// Clear out to infinity.
-    Infinite,
+    pub comfortable: ZoneRange,
 }
 
 impl fmt::Display for ParameterValue {
@@ -437,25 +412,6 @@ impl fmt::Display for ChoiceNote {
                     RangeEnd::Highest => "highest",
                 }
             ),
-        }
-    }
-}
-
-impl fmt::Display for FarEnd {
-    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        match self {
-            FarEnd::Finite(m) => write!(f, "{:.0} cm", m.to_cm()),
-            FarEnd::Infinite => f.write_str("infinity"),
-        }
-    }
-}
-
-impl fmt::Display for ClearRange {
-    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        match self {
-            ClearRange::Clear { near, far } => write!(f, "{:.0} cm to {far}", near.to_cm()),
-            ClearRange::NeedsMorePlus => f.write_str("nothing clear (needs more plus)"),
-            ClearRange::NeedsLessPlus => f.write_str("nothing clear (needs less plus)"),
         }
     }
 }

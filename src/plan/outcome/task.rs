@@ -7,6 +7,7 @@ use serde::Serialize;
 use std::fmt;
 
 pub use crate::core::gaze::Strain;
+pub use crate::core::lens::LensPoint;
 
 /// How one task fares through one option.
 #[derive(Debug, Clone, PartialEq, Serialize)]
@@ -15,7 +16,7 @@ pub struct TaskPlan {
     pub task: TaskRef,
     /// Where the line of sight crosses the lens, in mm from the fitting point
     /// (x nasal positive, y up positive), after any head posture.
-    pub lens_point: LensPointMm,
+    pub lens_point: LensPoint,
     /// The zone at that point.
     pub zone: ZoneKind,
     /// The local power there, written as a prescription.
@@ -61,15 +62,6 @@ pub struct DrivingVision {
     pub standard_decimal: f64,
     /// Whether the estimate meets the standard with one line to spare.
     pub meets_standard: bool,
-}
-
-/// A point on the lens in millimetres from the fitting point.
-#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
-pub struct LensPointMm {
-    /// Horizontal position, positive towards the nose.
-    pub x: Millimetres,
-    /// Vertical position, positive upwards.
-    pub y: Millimetres,
 }
 
 /// A local lens power written the way a prescription is.
