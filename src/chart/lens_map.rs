@@ -24,6 +24,27 @@ pub struct LensFrame {
     pub margin: f64,
 }
 
+/// Shades the map is drawn in: the local addition is rounded to one of this
+/// many equal steps of the design's largest addition (under 0.13 D a step
+/// for additions up to 4 D, finer than the 0.25 D steps additions come in).
+pub const SHADE_STEPS: usize = 32;
+
+/// A run of neighbouring cells of one row that share a shade: one
+/// rectangle to fill, in SVG units.
+#[derive(Debug, Clone, PartialEq)]
+pub struct ShadeRun {
+    /// SVG x of the left edge.
+    pub x: f64,
+    /// SVG y of the top edge.
+    pub y: f64,
+    /// Width, in SVG units.
+    pub width: f64,
+    /// Height, in SVG units.
+    pub height: f64,
+    /// The fill colour (see [`shade`]).
+    pub colour: String,
+}
+
 /// One shaded cell of the map.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Cell {
@@ -111,6 +132,46 @@ impl LensFrame {
             }
         }
         cells
+    }
+
+    /// The map of `design` sampled every `step_mm` ([`LensFrame::cells`]),
+    /// rounded to [`SHADE_STEPS`] shades, with neighbouring cells of a row
+    /// that share a shade merged into one rectangle: a few hundred
+    /// rectangles to fill instead of one per cell.
+    pub fn shade_runs(&self, design: &LensDesign, step_mm: f64) -> Vec<ShadeRun> {
+        let max_d = design.max_addition().0;
+        let step_of = |addition_d: f64| {
+            let t = if max_d > 0.0 {
+                (addition_d / max_d).clamp(0.0, 1.0)
+            } else {
+                0.0
+            };
+            (t * SHADE_STEPS as f64).round() as usize
+        };
+        let cells = self.cells(design, step_mm);
+        let mut runs = Vec::new();
+        let mut i = 0;
+        while i < cells.len() {
+            let first = cells[i];
+            let step = step_of(first.addition_d);
+            let mut end = i + 1;
+            while end < cells.len()
+                && cells[end].y == first.y
+                && step_of(cells[end].addition_d) == step
+            {
+                end += 1;
+            }
+            let last = cells[end - 1];
+            runs.push(ShadeRun {
+                x: first.x,
+                y: first.y,
+                width: last.x + last.size - first.x,
+                height: first.size,
+                colour: shade(step as f64 / SHADE_STEPS as f64, 1.0),
+            });
+            i = end;
+        }
+        runs
     }
 
     /// The left and right edges of the usable zone of `design` as SVG path
@@ -203,6 +264,34 @@ mod tests {
         assert!(f
             .zone_edges(&flat, Dioptres(0.5), Millimetres(27.0))
             .is_empty());
+    }
+
+    #[test]
+    fn shade_runs_cover_every_cell_once() {
+        // Every cell of the sampled grid belongs to exactly one run: the
+        // runs' widths add up to the grid's width in every row, and a
+        // single-vision lens (one power) is one run a row.
+        let f = LensFrame::new(20.0, 32.0, 124.0);
+        let design = LensDesign::Progressive(
+            Progressive::new(Dioptres(2.0), Millimetres(16.0), Millimetres(2.5)).expect("valid"),
+        );
+        let runs = f.shade_runs(&design, 2.0);
+        let rows = 16;
+        let grid_width = 2.0 * HALF_WIDTH_MM * f.scale;
+        let widths: f64 = runs.iter().map(|r| r.width).sum();
+        assert!((widths - rows as f64 * grid_width).abs() < 1e-6);
+        assert!(runs.len() >= rows);
+        let (top, bottom) = (&runs[0], &runs[runs.len() - 1]);
+        assert_eq!(
+            (top.colour.as_str(), bottom.colour.as_str()),
+            ("#f7f9fc", "#184e8c")
+        );
+        let flat = LensDesign::SingleVision(SingleVision::new(Dioptres(1.0)).expect("valid"));
+        let flat_runs = f.shade_runs(&flat, 2.0);
+        assert_eq!(flat_runs.len(), rows);
+        assert!(flat_runs
+            .iter()
+            .all(|r| (r.width - grid_width).abs() < 1e-9));
     }
 
     #[test]

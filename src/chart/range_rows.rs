@@ -102,6 +102,35 @@ pub fn task_markers(plan: &Plan, axis: &DioptricAxis) -> Vec<TaskMarker> {
         .collect()
 }
 
+/// Width of one character of a row label, in SVG units, for the chart's
+/// 12-unit sans-serif type: about 0.6 of the size, wider than the average
+/// letter so that a label estimated to fit does fit.
+const CHAR_WIDTH: f64 = 7.2;
+
+/// A row's label, "n. task · zone +a.aa", that fits in `width` SVG units:
+/// the task name is shortened with an ellipsis when the whole would not
+/// fit (the row's tooltip keeps the full name).
+pub fn row_label(row: &RangeRow, width: f64) -> String {
+    let whole = |name: &str| {
+        format!(
+            "{}. {name} · {} {:+.2}",
+            row.index + 1,
+            row.zone,
+            row.addition_d
+        )
+    };
+    let fits = |text: &str| text.chars().count() as f64 * CHAR_WIDTH <= width;
+    let label = whole(&row.task);
+    if fits(&label) {
+        return label;
+    }
+    let spare = (width / CHAR_WIDTH) as usize;
+    let used = whole("").chars().count() + 1;
+    let keep = spare.saturating_sub(used);
+    let short: String = row.task.chars().take(keep).collect();
+    whole(&format!("{}…", short.trim_end()))
+}
+
 /// The axis that shows every task of `plan` between `x_near` and `x_far`.
 pub fn axis_for(plan: &Plan, x_near: f64, x_far: f64) -> DioptricAxis {
     let closest = plan
@@ -116,6 +145,36 @@ pub fn axis_for(plan: &Plan, x_near: f64, x_far: f64) -> DioptricAxis {
 mod tests {
     use super::*;
     use crate::core::units::Metres;
+
+    fn row(task: &str) -> RangeRow {
+        RangeRow {
+            index: 1,
+            task: task.to_string(),
+            zone: ZoneKind::Near,
+            addition_d: 1.5,
+            x_task: 0.0,
+            focus: Verdict::Comfortable,
+            in_focus: None,
+            comfortable: None,
+            words: String::new(),
+        }
+    }
+
+    #[test]
+    fn long_task_names_are_shortened_to_fit_the_label_column() {
+        let short = row_label(&row("Phone"), 250.0);
+        assert!(
+            short.starts_with("2. Phone · ") && short.ends_with(" +1.50"),
+            "{short}"
+        );
+        let long = row_label(&row("Second monitor, to the right of the keyboard"), 250.0);
+        assert!(long.chars().count() as f64 * CHAR_WIDTH <= 250.0, "{long}");
+        assert!(
+            long.starts_with("2. Second monitor") && long.contains("… · "),
+            "{long}"
+        );
+        assert!(long.ends_with(" +1.50"), "{long}");
+    }
 
     fn axis() -> DioptricAxis {
         DioptricAxis {

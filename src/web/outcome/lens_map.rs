@@ -2,15 +2,21 @@
 //! from the family's own map, with the usable-zone edges, the fitting point
 //! and each task's crossing point labelled with the power found there.
 //! The shaded lens depends only on the design and the frame, so it is
-//! redrawn only when they change; the task points follow every edit.
+//! painted once on a canvas when they change; the outline, zone edges,
+//! cross and task points are a small SVG over it, and only the points
+//! follow every edit (keyed, so only the points that moved are redrawn).
 
-use crate::chart::lens_map::{shade, LensFrame};
+use crate::chart::coord::Coord;
+use crate::chart::lens_map::{LensFrame, ShadeRun};
 use crate::core::lens::LensDesign;
 use crate::core::units::{Dioptres, Millimetres};
 use crate::plan::{context::TOLERATED_ASTIGMATISM_D, OptionPlan};
 use crate::scenario::FamilyChoice;
 use crate::web::state::use_app_state;
+use leptos::html;
 use leptos::prelude::*;
+use wasm_bindgen::JsCast;
+use web_sys::{CanvasRenderingContext2d, HtmlCanvasElement, Path2d};
 
 /// SVG width of the map.
 const WIDTH: f64 = 420.0;
@@ -20,6 +26,52 @@ const STEP_MM: f64 = 1.0;
 /// What the shaded lens depends on: the design, the fitting height, the lens
 /// height and the lens to centre-of-rotation distance the plan used, in millimetres.
 type Geometry = (FamilyChoice, f64, f64, f64);
+
+/// Canvas pixels per SVG unit: twice the drawing's size, sharp on
+/// high-density screens and in print.
+const PIXELS_PER_UNIT: f64 = 2.0;
+
+/// Fills `runs` (SVG units) into `canvas`, clipped to the lens outline
+/// `clip` (SVG path data). A canvas without a 2D context stays blank; the
+/// outline, edges and points over it still show.
+fn paint(canvas: &HtmlCanvasElement, runs: &[ShadeRun], clip: &str) {
+    let Some(context) = canvas
+        .get_context("2d")
+        .ok()
+        .flatten()
+        .and_then(|c| c.dyn_into::<CanvasRenderingContext2d>().ok())
+    else {
+        return;
+    };
+    if let Ok(outline) = Path2d::new_with_path_string(clip) {
+        let _ = context.scale(PIXELS_PER_UNIT, PIXELS_PER_UNIT);
+        context.clip_with_path_2d(&outline);
+        let _ = context.set_transform(1.0, 0.0, 0.0, 1.0, 0.0, 0.0);
+    }
+    let mut colour = "";
+    for run in runs {
+        if run.colour != colour {
+            colour = &run.colour;
+            context.set_fill_style_str(colour);
+        }
+        // Edges on whole pixels: neighbouring runs then meet without the
+        // light seams that smoothing of fractional edges would draw.
+        let pixel = |units: f64| (units * PIXELS_PER_UNIT).round();
+        let (left, top) = (pixel(run.x), pixel(run.y));
+        let (right, bottom) = (pixel(run.x + run.width), pixel(run.y + run.height));
+        context.fill_rect(left, top, right - left, bottom - top);
+    }
+}
+
+/// A task's point on the lens as drawn.
+#[derive(Clone, PartialEq, Eq, Hash)]
+struct PointMark {
+    index: usize,
+    x: Coord,
+    y: Coord,
+    label: String,
+    tooltip: String,
+}
 
 /// The shaded lens, zone edges and fitting cross for `geometry`, with the
 /// task points of `chosen` drawn over them.
@@ -36,13 +88,15 @@ fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
     let frame = LensFrame::new(fitting_height, lens_height, WIDTH);
     let (width, height) = frame.size();
     let max_add = design.max_addition().0;
-    let cells = frame
-        .cells(&design, STEP_MM)
-        .into_iter()
-        .map(|c| {
-            view! { <rect x=c.x y=c.y width={c.size + 0.3} height={c.size + 0.3} fill=shade(c.addition_d, max_add) /> }
-        })
-        .collect_view();
+    let runs = frame.shade_runs(&design, STEP_MM);
+    let canvas = NodeRef::<html::Canvas>::new();
+    let clip = frame.outline();
+    // Painting a canvas is work on the outside world, once it is mounted.
+    Effect::new(move |_| {
+        if let Some(element) = canvas.get() {
+            paint(&element, &runs, &clip);
+        }
+    });
     let edges = frame.zone_edges(
         &design,
         Dioptres(TOLERATED_ASTIGMATISM_D),
@@ -52,28 +106,32 @@ fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
         chosen.with(|o| {
             o.iter()
                 .flat_map(|o| o.tasks.iter())
-                .map(|t| {
-                    let index = t.task.index;
-                    let (x, y) = (frame.x(t.lens_point.x.0), frame.y(t.lens_point.y.0));
-                    let label = format!("{} {}", index + 1, t.local_power.addition);
-                    let tooltip = format!(
+                .map(|t| PointMark {
+                    index: t.task.index,
+                    x: Coord::of(frame.x(t.lens_point.x.0)),
+                    y: Coord::of(frame.y(t.lens_point.y.0)),
+                    label: format!("{} {}", t.task.index + 1, t.local_power.addition),
+                    tooltip: format!(
                         "{}. {}: {} zone, addition {}, {}",
-                        index + 1,
+                        t.task.index + 1,
                         t.task.name,
                         t.zone,
                         t.local_power.addition,
                         t.verdict
-                    );
-                    view! {
-                        <g class="lens-point" on:click=move |_| state.chosen_task.set(Some(index))>
-                            <title>{tooltip}</title>
-                            <circle cx=x cy=y r="5" />
-                            <text x={x + 8.0} y={y + 4.0}>{label}</text>
-                        </g>
-                    }
+                    ),
                 })
-                .collect_view()
+                .collect::<Vec<_>>()
         })
+    };
+    let point = move |p: PointMark| {
+        let index = p.index;
+        view! {
+            <g class="lens-point" on:click=move |_| state.chosen_task.set(Some(index))>
+                <title>{p.tooltip}</title>
+                <circle cx=p.x.get() cy=p.y.get() r="5" />
+                <text x=p.x.plus(8.0) y=p.y.plus(4.0)>{p.label}</text>
+            </g>
+        }
     };
     let (fx, fy) = (frame.x(0.0), frame.y(0.0));
     let outline = frame.outline();
@@ -84,19 +142,26 @@ fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
                 .unwrap_or_default()
         })
     };
+    let view_box = format!("0 0 {width:.0} {height:.0}");
+    // The shading is a canvas under the SVG: hundreds of rectangles inside
+    // an SVG are laid out and painted again whenever anything in that SVG
+    // changes, and the task points change with every edit.
     view! {
-        <svg viewBox=format!("0 0 {width:.0} {height:.0}") role="img" aria-labelledby="lens-map-caption" data-testid="lens-map">
-            <defs>
-                <clipPath id="lens-clip">
-                    <path d=outline.clone() />
-                </clipPath>
-            </defs>
-            <g clip-path="url(#lens-clip)">{cells}</g>
-            <path class="lens-outline" d=outline />
-            <path class="zone-edge" d=edges />
-            <path class="fitting-cross" d=format!("M{:.1} {fy:.1}h16M{fx:.1} {:.1}v16", fx - 8.0, fy - 8.0) />
-            {points}
-        </svg>
+        <div class="lens-drawing">
+            <canvas
+                node_ref=canvas
+                class="lens-shading"
+                width=(width * PIXELS_PER_UNIT).round()
+                height=(height * PIXELS_PER_UNIT).round()
+                aria-hidden="true"
+            ></canvas>
+            <svg viewBox=view_box role="img" aria-labelledby="lens-map-caption" data-testid="lens-map">
+                <path class="lens-outline" d=outline />
+                <path class="zone-edge" d=edges />
+                <path class="fitting-cross" d=format!("M{:.1} {fy:.1}h16M{fx:.1} {:.1}v16", fx - 8.0, fy - 8.0) />
+                <For each=points key=PointMark::clone children=point />
+            </svg>
+        </div>
         <figcaption id="lens-map-caption">
             {label}
             {format!(

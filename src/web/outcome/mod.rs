@@ -1,7 +1,9 @@
 //! The outcome panel: the recommended option with its reasons, the cautions,
 //! tasks no option serves, the comparison table, the range chart, the lens
-//! map, a task's numbers in detail and the order sheet. It re-renders from
-//! the plan memo on every edit; a stale plan stays visible and says so.
+//! map, a task's numbers in detail and the order sheet. Each part redraws
+//! only when its own share of the plan changes (a memo per part, keyed rows
+//! in the tables and charts), so an edit touches little of the page; a
+//! stale plan stays visible and says so.
 
 mod lens_map;
 mod marks;
@@ -10,12 +12,14 @@ mod order_sheet;
 mod range_chart;
 
 use crate::plan::text::{amplitude_line, family_name, pupil_line, refraction_line};
-use crate::plan::{OptionPlan, Plan};
+use crate::plan::{Caution, Choice, OptionPlan, Plan, TaskPlan, UnservedTask};
 use crate::web::state::use_app_state;
 use crate::web::walkthrough::WalkthroughLauncher;
 use lens_map::LensMap;
 use leptos::prelude::*;
 use marks::verdict_mark;
+use matrix::Comparison;
+use range_chart::RangeChart;
 
 /// The recommended (best-ranked) option with its parameters and reasons.
 fn recommendation(best: &OptionPlan) -> impl IntoView {
@@ -43,11 +47,10 @@ fn recommendation(best: &OptionPlan) -> impl IntoView {
 }
 
 /// The cautions drawn from the scenario, planning-aid note included.
-fn cautions(plan: &Plan) -> impl IntoView {
-    let items = plan
-        .cautions
-        .iter()
-        .map(|c| view! { <li><strong>{c.kind.to_string()}</strong>": "{c.text.clone()}</li> })
+fn cautions(cautions: Vec<Caution>) -> impl IntoView {
+    let items = cautions
+        .into_iter()
+        .map(|c| view! { <li><strong>{c.kind.to_string()}</strong>": "{c.text}</li> })
         .collect_view();
     view! {
         <section class="cautions" aria-labelledby="cautions-heading" data-testid="cautions">
@@ -58,10 +61,9 @@ fn cautions(plan: &Plan) -> impl IntoView {
 }
 
 /// Tasks that no option makes comfortable.
-fn unserved(plan: &Plan) -> impl IntoView {
-    (!plan.unserved.is_empty()).then(|| {
-        let items = plan
-            .unserved
+fn unserved(unserved: Vec<UnservedTask>) -> impl IntoView {
+    (!unserved.is_empty()).then(|| {
+        let items = unserved
             .iter()
             .map(|u| view! { <li>{u.describe()}</li> })
             .collect_view();
@@ -74,16 +76,29 @@ fn unserved(plan: &Plan) -> impl IntoView {
     })
 }
 
-/// The numbers of task `t` through every option.
-fn task_detail(plan: &Plan, t: usize) -> impl IntoView {
-    let Some(ctx) = plan.tasks.iter().find(|c| c.task.index == t) else {
-        return ().into_any();
-    };
+/// Task `t` as every option serves it: the task's name, then each option's
+/// rank, label and report of the task (best option first).
+type TaskThrough = (String, Vec<(usize, String, TaskPlan)>);
+
+/// What the detail of task `t` shows, taken from `plan`.
+fn task_through(plan: &Plan, t: usize) -> Option<TaskThrough> {
+    let ctx = plan.tasks.iter().find(|c| c.task.index == t)?;
     let rows = plan
         .options
         .iter()
-        .filter_map(|o| o.tasks.iter().find(|tp| tp.task.index == t).map(|tp| (o, tp)))
-        .map(|(o, tp)| {
+        .filter_map(|o| {
+            let tp = o.tasks.iter().find(|tp| tp.task.index == t)?;
+            Some((o.rank, o.option.label.clone(), tp.clone()))
+        })
+        .collect();
+    Some((format!("{}. {} in detail", t + 1, ctx.task.name), rows))
+}
+
+/// The numbers of one task through every option.
+fn task_detail((heading, options): TaskThrough) -> impl IntoView {
+    let rows = options
+        .into_iter()
+        .map(|(rank, label, tp)| {
             let (symbol, class, words) = verdict_mark(tp.verdict);
             let share = tp
                 .share_of_amplitude
@@ -91,7 +106,7 @@ fn task_detail(plan: &Plan, t: usize) -> impl IntoView {
                 .unwrap_or_else(|| "n/a".into());
             view! {
                 <tr>
-                    <th scope="row">{format!("#{} {}", o.rank, o.option.label)}</th>
+                    <th scope="row">{format!("#{rank} {label}")}</th>
                     <td class=format!("verdict {class}")><span aria-hidden="true">{symbol}</span>" "{words}</td>
                     <td>{tp.local_power.to_string()}</td>
                     <td>{format!("{} ({share})", tp.accommodation)}</td>
@@ -104,7 +119,7 @@ fn task_detail(plan: &Plan, t: usize) -> impl IntoView {
         .collect_view();
     view! {
         <section class="task-detail" data-testid="task-detail">
-            <h3>{format!("{}. {} in detail", t + 1, ctx.task.name)}</h3>
+            <h3>{heading}</h3>
             <div class="table-scroll">
                 <table>
                     <thead>
@@ -123,7 +138,6 @@ fn task_detail(plan: &Plan, t: usize) -> impl IntoView {
             </div>
         </section>
     }
-    .into_any()
 }
 
 /// The option the charts, the lens map and the order show: the plan's
@@ -137,8 +151,8 @@ fn shown_option(plan: &Plan) -> Option<&OptionPlan> {
 
 /// The dispenser's choice when it differs from the recommendation, and why
 /// the planner ranks another option first.
-fn chosen_note(plan: &Plan) -> Option<impl IntoView> {
-    let choice = plan.choice.as_ref()?;
+fn chosen_note(choice: Option<Choice>) -> Option<impl IntoView> {
+    let choice = choice?;
     choice.by_dispenser.then(|| {
         view! {
             <p class="chosen-note" data-testid="chosen-note">
@@ -149,53 +163,93 @@ fn chosen_note(plan: &Plan) -> Option<impl IntoView> {
     })
 }
 
+/// What the panel shows besides the plan's parts.
+#[derive(Clone, Copy, PartialEq)]
+enum Stage {
+    /// No scenario so far could be planned.
+    NoPlan,
+    /// The scenario has no tasks.
+    NoTasks,
+    /// A plan is on screen.
+    Planned,
+}
+
+/// A part of the panel drawn from its own share of the plan: `share` takes
+/// it out of the plan on every edit, and `draw` runs only when it changed.
+fn part<T, V>(share: fn(&Plan) -> T, draw: fn(T) -> V) -> impl IntoView
+where
+    T: PartialEq + Clone + Send + Sync + 'static,
+    V: IntoView + 'static,
+{
+    let state = use_app_state();
+    let shown = Memo::new(move |_| state.outcome.with(|o| o.plan.as_ref().map(share)));
+    move || shown.get().map(draw)
+}
+
 /// The outcome panel.
 #[component]
 pub fn OutcomePanel() -> impl IntoView {
     let state = use_app_state();
-    let body = move || {
-        let outcome = state.outcome.get();
-        let unparsed = state.unparsed.with(|set| !set.is_empty());
-        let stale = outcome.stale || unparsed;
-        let Some(plan) = outcome.plan else {
-            return view! {
-                <p class="hint" data-testid="no-plan">
-                    "Correct the marked fields to see a plan."
-                </p>
-            }
-            .into_any();
-        };
-        if plan.tasks.is_empty() && !stale {
-            return view! {
-                <p class="hint" data-testid="no-tasks">
-                    "Add the tasks of the working day (\"Add task\") to see which lenses serve them."
-                </p>
-            }
-            .into_any();
-        }
-        let detail = state.chosen_task.get().map(|t| task_detail(&plan, t));
+    let stale = Memo::new(move |_| {
+        state.outcome.with(|o| o.stale) || state.unparsed.with(|set| !set.is_empty())
+    });
+    let stage = Memo::new(move |_| {
+        state.outcome.with(|o| match &o.plan {
+            None => Stage::NoPlan,
+            Some(p) if p.tasks.is_empty() && !stale.get() => Stage::NoTasks,
+            Some(_) => Stage::Planned,
+        })
+    });
+    let error = Memo::new(move |_| state.outcome.with(|o| o.error.clone()));
+    let detail = Memo::new(move |_| {
+        let t = state.chosen_task.get()?;
+        state
+            .outcome
+            .with(|o| o.plan.as_ref().and_then(|p| task_through(p, t)))
+    });
+    let planned = move || {
         view! {
-            <Show when=move || stale>
+            <Show when=move || stale.get()>
                 <p class="stale" role="status" data-testid="stale">
                     "This plan is from before the last change: correct the marked fields to update it."
-                    {outcome.error.clone().map(|e| format!(" ({e})"))}
+                    {move || error.get().map(|e| format!(" ({e})"))}
                 </p>
             </Show>
-            <div class="plan" class:is-stale=stale data-testid="plan">
-                {cautions(&plan)}
-                {plan.options.first().map(recommendation)}
-                {chosen_note(&plan)}
-                {unserved(&plan)}
+            <div class="plan" class:is-stale=move || stale.get() data-testid="plan">
+                {part(|p| p.cautions.clone(), cautions)}
+                {part(|p| p.options.first().cloned(), |best| best.map(|b| recommendation(&b)))}
+                {part(|p| p.choice.clone(), chosen_note)}
+                {part(|p| p.unserved.clone(), unserved)}
                 <p class="detail">
-                    {amplitude_line(&plan.amplitude)}" · "{refraction_line(&plan.refraction)}" · "
-                    {pupil_line(&plan.pupil)}
+                    {part(|p| {
+                        format!(
+                            "{} · {} · {}",
+                            amplitude_line(&p.amplitude),
+                            refraction_line(&p.refraction),
+                            pupil_line(&p.pupil)
+                        )
+                    }, |line| line)}
                 </p>
-                {matrix::comparison(&plan)}
-                {detail}
-                {shown_option(&plan).map(|o| range_chart::range_chart(&plan, o))}
+                <Comparison />
+                {move || detail.get().map(task_detail)}
+                <RangeChart />
             </div>
         }
-        .into_any()
+    };
+    let body = move || match stage.get() {
+        Stage::NoPlan => view! {
+            <p class="hint" data-testid="no-plan">
+                "Correct the marked fields to see a plan."
+            </p>
+        }
+        .into_any(),
+        Stage::NoTasks => view! {
+            <p class="hint" data-testid="no-tasks">
+                "Add the tasks of the working day (\"Add task\") to see which lenses serve them."
+            </p>
+        }
+        .into_any(),
+        Stage::Planned => planned().into_any(),
     };
     let sheet = move || {
         state

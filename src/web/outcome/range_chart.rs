@@ -7,8 +7,10 @@
 //! below the chart. All geometry comes from `chart`.
 
 use super::marks::verdict_mark;
-use crate::chart::range_rows::{axis_for, range_rows, task_markers};
-use crate::display::trim_number;
+use crate::chart::coord::Coord;
+use crate::chart::range_rows::{axis_for, range_rows, row_label, task_markers, Span};
+use crate::core::units::Metres;
+use crate::display::{trim_number, LengthUnit};
 use crate::plan::{OptionPlan, Plan};
 use crate::web::state::use_app_state;
 use leptos::prelude::*;
@@ -23,102 +25,201 @@ const TOP: f64 = 70.0;
 const HIT: f64 = 76.0;
 const ROW: f64 = 26.0;
 
-/// The range chart for `option`, one of `plan`'s options.
-pub fn range_chart(plan: &Plan, option: &OptionPlan) -> impl IntoView {
-    let state = use_app_state();
-    let unit = state.unit.get();
+/// A grid line with its distance label, as drawn.
+#[derive(Clone, PartialEq, Eq, Hash)]
+struct TickMark {
+    x: Coord,
+    label: String,
+}
+
+/// A band as drawn: its left edge and width, in SVG units.
+#[derive(Clone, PartialEq, Eq, Hash)]
+struct BandMark {
+    x: Coord,
+    width: Coord,
+}
+
+/// One task's row as drawn; `y` is the row's top edge.
+#[derive(Clone, PartialEq, Eq, Hash)]
+struct RowMark {
+    y: Coord,
+    label: String,
+    tooltip: String,
+    symbol: &'static str,
+    class: &'static str,
+    in_focus: Option<BandMark>,
+    comfortable: Option<BandMark>,
+    x_task: Coord,
+}
+
+/// A numbered task marker above the rows, as drawn.
+#[derive(Clone, PartialEq, Eq, Hash)]
+struct TaskMark {
+    index: usize,
+    x: Coord,
+    label: String,
+}
+
+/// The whole chart as drawn, for the option the plan shows.
+#[derive(Clone, PartialEq, Default)]
+struct Drawing {
+    caption: String,
+    height: Coord,
+    bottom: Coord,
+    ticks: Vec<TickMark>,
+    rows: Vec<RowMark>,
+    markers: Vec<TaskMark>,
+}
+
+fn band(span: Option<Span>) -> Option<BandMark> {
+    span.map(|s| BandMark {
+        x: Coord::of(s.x_near),
+        width: Coord::of((s.x_far - s.x_near).max(1.0)),
+    })
+}
+
+/// The chart of `option` (one of `plan`'s options) with distances in `unit`.
+fn drawing(plan: &Plan, option: &OptionPlan, unit: LengthUnit) -> Drawing {
     let axis = axis_for(plan, X_NEAR, X_FAR);
     let rows = range_rows(plan, option, &axis);
-    let markers = task_markers(plan, &axis);
-    let height = TOP + rows.len() as f64 * ROW + 36.0;
     let bottom = TOP + rows.len() as f64 * ROW;
     let ticks = axis
         .ticks(unit)
         .into_iter()
-        .map(|t| {
-            view! {
-                <line class="grid" x1=t.x x2=t.x y1={TOP - 4.0} y2={bottom} />
-                <text class="tick" x=t.x y={bottom + 18.0} text-anchor="middle">{t.label}</text>
-            }
+        .map(|t| TickMark {
+            x: Coord::of(t.x),
+            label: t.label,
         })
-        .collect_view();
-    let bands = rows
-        .iter()
+        .collect();
+    let rows = rows
+        .into_iter()
         .enumerate()
         .map(|(i, r)| {
             let y = TOP + i as f64 * ROW;
-            let label = format!("{}. {} · {} {:+.2}", r.index + 1, r.task, r.zone, r.addition_d);
-            let tooltip = format!("{label}: {}, {}", r.words, r.focus);
             let (symbol, class, _) = verdict_mark(r.focus);
-            let focus = r.in_focus.map(|s| view! {
-                <rect class="band-focus" x=s.x_near y={y + 5.0} width={(s.x_far - s.x_near).max(1.0)} height={ROW - 10.0} />
-            });
-            let comfort = r.comfortable.map(|s| view! {
-                <rect class="band-comfort" x=s.x_near y={y + 9.0} width={(s.x_far - s.x_near).max(1.0)} height={ROW - 18.0} />
-            });
-            view! {
-                <g class="range-row">
-                    <title>{tooltip}</title>
-                    <text class="row-label" x=LABEL_END y={y + ROW / 2.0 + 4.0} text-anchor="end">{label}</text>
-                    {focus}
-                    {comfort}
-                    <circle class=format!("task-dot {class}") cx=r.x_task cy={y + ROW / 2.0} r="6" />
-                    <text class="dot-symbol" x=r.x_task y={y + ROW / 2.0 + 4.0} text-anchor="middle" aria-hidden="true">{symbol}</text>
-                </g>
-            }
-        })
-        .collect_view();
-    let marks = markers
-        .into_iter()
-        .map(|m| {
-            let index = m.index;
-            let distance = format!(
-                "{} {}",
-                trim_number(
-                    unit.from_metres(crate::core::units::Metres(m.distance_m)),
-                    0
+            RowMark {
+                y: Coord::of(y),
+                tooltip: format!(
+                    "{}. {} · {} {:+.2}: {}, {}",
+                    r.index + 1,
+                    r.task,
+                    r.zone,
+                    r.addition_d,
+                    r.words,
+                    r.focus
                 ),
-                unit.symbol()
-            );
-            let tooltip = format!("{}. {} at {distance}", index + 1, m.name);
-            let label = tooltip.clone();
-            view! {
-                <g
-                    class="task-marker"
-                    tabindex="0"
-                    role="button"
-                    aria-label=label
-                    on:click=move |_| state.chosen_task.set(Some(index))
-                    on:keydown=move |ev| {
-                        if ev.key() == "Enter" || ev.key() == " " {
-                            state.chosen_task.set(Some(index));
-                        }
-                    }
-                >
-                    <title>{tooltip}</title>
-                    <rect class="hit" x={m.x - HIT / 2.0} y={TOP - 8.0 - HIT} width=HIT height=HIT />
-                    <line x1=m.x x2=m.x y1={TOP - 10.0} y2={bottom} />
-                    <circle cx=m.x cy={TOP - 40.0} r="13" />
-                    <text x=m.x y={TOP - 35.0} text-anchor="middle">{(index + 1).to_string()}</text>
-                </g>
+                label: row_label(&r, LABEL_END - 4.0),
+                symbol,
+                class,
+                in_focus: band(r.in_focus),
+                comfortable: band(r.comfortable),
+                x_task: Coord::of(r.x_task),
             }
         })
-        .collect_view();
+        .collect();
+    let markers = task_markers(plan, &axis)
+        .into_iter()
+        .map(|m| TaskMark {
+            index: m.index,
+            x: Coord::of(m.x),
+            label: format!(
+                "{}. {} at {} {}",
+                m.index + 1,
+                m.name,
+                trim_number(unit.from_metres(Metres(m.distance_m)), 0),
+                unit.symbol()
+            ),
+        })
+        .collect();
+    Drawing {
+        caption: format!("#{} {}: ", option.rank, option.option.label),
+        height: Coord::of(bottom + 36.0),
+        bottom: Coord::of(bottom),
+        ticks,
+        rows,
+        markers,
+    }
+}
+
+/// The range chart of the option the plan shows.
+#[component]
+pub fn RangeChart() -> impl IntoView {
+    let state = use_app_state();
+    let shown = Memo::new(move |_| {
+        let unit = state.unit.get();
+        state.outcome.with(|o| {
+            o.plan
+                .as_ref()
+                .and_then(|p| super::shown_option(p).map(|option| drawing(p, option, unit)))
+                .unwrap_or_default()
+        })
+    });
+    let bottom = move |offset: f64| shown.with(|d| d.bottom.plus(offset));
+    let tick = move |t: TickMark| {
+        let x = t.x.get();
+        view! {
+            <line class="grid" x1=x x2=x y1={TOP - 4.0} y2=move || bottom(0.0) />
+            <text class="tick" x=x y=move || bottom(18.0) text-anchor="middle">{t.label}</text>
+        }
+    };
+    let row = |r: RowMark| {
+        let focus = r.in_focus.map(|b| view! {
+            <rect class="band-focus" x=b.x.get() y=r.y.plus(5.0) width=b.width.get() height={ROW - 10.0} />
+        });
+        let comfort = r.comfortable.map(|b| view! {
+            <rect class="band-comfort" x=b.x.get() y=r.y.plus(9.0) width=b.width.get() height={ROW - 18.0} />
+        });
+        let (x, text_y) = (r.x_task.get(), r.y.plus(ROW / 2.0 + 4.0));
+        view! {
+            <g class="range-row">
+                <title>{r.tooltip}</title>
+                <text class="row-label" x=LABEL_END y=text_y text-anchor="end">{r.label}</text>
+                {focus}
+                {comfort}
+                <circle class=format!("task-dot {}", r.class) cx=x cy=r.y.plus(ROW / 2.0) r="6" />
+                <text class="dot-symbol" x=x y=text_y text-anchor="middle" aria-hidden="true">{r.symbol}</text>
+            </g>
+        }
+    };
+    let marker = move |m: TaskMark| {
+        let index = m.index;
+        let name = m.label.clone();
+        view! {
+            <g
+                class="task-marker"
+                tabindex="0"
+                role="button"
+                aria-label=name
+                on:click=move |_| state.chosen_task.set(Some(index))
+                on:keydown=move |ev| {
+                    if ev.key() == "Enter" || ev.key() == " " {
+                        state.chosen_task.set(Some(index));
+                    }
+                }
+            >
+                <title>{m.label}</title>
+                <rect class="hit" x=m.x.plus(-HIT / 2.0) y={TOP - 8.0 - HIT} width=HIT height=HIT />
+                <line x1=m.x.get() x2=m.x.get() y1={TOP - 10.0} y2=move || bottom(0.0) />
+                <circle cx=m.x.get() cy={TOP - 40.0} r="13" />
+                <text x=m.x.get() y={TOP - 35.0} text-anchor="middle">{(index + 1).to_string()}</text>
+            </g>
+        }
+    };
     view! {
         <h3 class="range-heading">"Range of clear vision"</h3>
         <figure class="range-chart">
             <svg
-                viewBox=format!("0 0 {WIDTH} {height}")
+                viewBox=move || shown.with(|d| format!("0 0 {WIDTH} {}", d.height.get()))
                 role="img"
                 aria-labelledby="range-chart-caption"
                 data-testid="range-chart"
             >
-                {ticks}
-                {bands}
-                {marks}
+                <For each=move || shown.with(|d| d.ticks.clone()) key=TickMark::clone children=tick />
+                <For each=move || shown.with(|d| d.rows.clone()) key=RowMark::clone children=row />
+                <For each=move || shown.with(|d| d.markers.clone()) key=TaskMark::clone children=marker />
             </svg>
             <figcaption id="range-chart-caption">
-                {format!("#{} {}: ", option.rank, option.option.label)}
+                {move || shown.with(|d| d.caption.clone())}
                 "range of clear vision at the point of the lens where each task is seen, on a dioptric scale (equal steps are equal changes of focus). "
                 <span class="key key-focus">"Light: in focus with full effort."</span>
                 " "
