@@ -1,7 +1,8 @@
 //! The scenario library: many wearers' and workstations' scenarios kept on
 //! one device, each under its own storage key so one damaged entry never
 //! takes the others down. It owns the versioned saved format, its migration,
-//! import and export of files, and the demo scenarios. It is pure: storage is
+//! import and export of files, the demo scenarios, and one tab's
+//! [`Session`] (open entry, notices, conflicts). It is pure: storage is
 //! reached only through the [`KeyValueStore`] trait, which the browser
 //! adapter implements over local storage; nothing here knows the browser.
 
@@ -12,7 +13,9 @@ mod field_path;
 pub mod format;
 pub mod migrate;
 mod naming;
+mod notice;
 pub mod read;
+mod session;
 mod status;
 pub mod store;
 mod sync;
@@ -31,10 +34,12 @@ pub use format::{
 };
 pub use migrate::{migrate_entry, migrate_export, DocumentItem, ExportDocument, FormatError};
 pub use naming::unique_name;
+pub use notice::{Notice, NoticeAction, NOTICE_LIST_LINES};
 pub use read::{
     check_nesting, document_text, parse_limited, read_document, read_document_bytes, read_entry,
     ReadError, MAX_DOCUMENT_BYTES, MAX_NESTING,
 };
+pub use session::{Session, Started};
 pub use status::{SaveStatus, Unsaved};
 pub use store::{KeyValueStore, MemoryStore, SharedMemoryStore, StoreError};
 pub use sync::Reloaded;

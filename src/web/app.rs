@@ -1,9 +1,7 @@
 //! The top-level layout of the app: masthead, the input panels and the outcome.
 
-use super::locks::with_write_lock;
 use super::options_panel::OptionsPanel;
 use super::outcome::OutcomePanel;
-use super::shelf::is_own_key;
 use super::shelf_panel::{NoticeBar, ShelfPanel};
 use super::state::provide_app_state;
 use super::tasks_panel::TasksPanel;
@@ -15,25 +13,17 @@ use leptos::prelude::*;
 #[component]
 pub fn App() -> impl IntoView {
     let state = provide_app_state();
+    let shelf = state.shelf;
     // Another tab of the app changed local storage: follow it.
     let _listener = window_event_listener(leptos::ev::storage, move |ev| {
         let key = ev.key();
-        if key.as_deref().is_some_and(|k| !is_own_key(k)) {
-            return;
-        }
-        if let Some(scenario) = state.shelf.follow_other_tab(key) {
-            state.replace_scenario(scenario);
-        }
+        let shown = shelf.run(|s| s.follow_other_tab(key.as_deref())).flatten();
+        state.show(shown);
     });
     // Back in view (focus, or the tab shown again): write what storage
     // refused before, and catch up with other tabs' writes.
-    let catch_up = move |_: web_sys::Event| {
-        with_write_lock(move || {
-            if let Some(scenario) = state.shelf.catch_up() {
-                state.replace_scenario(scenario);
-            }
-        })
-    };
+    let catch_up =
+        move |_: web_sys::Event| shelf.in_turn(|s, _| s.catch_up(), move |shown| state.show(shown));
     let _focus = window_event_listener_untyped("focus", catch_up);
     let _shown = window_event_listener_untyped("visibilitychange", move |ev| {
         let visible = document().visibility_state() == web_sys::VisibilityState::Visible;
@@ -43,11 +33,12 @@ pub fn App() -> impl IntoView {
     });
     // Leaving while a change is in this tab only would lose it: ask first.
     let _leaving = window_event_listener(leptos::ev::beforeunload, move |ev| {
-        if state.shelf.has_unsaved() {
+        if shelf.read(|s| s.has_unsaved()).unwrap_or(false) {
             ev.prevent_default();
             ev.set_return_value("Some changes are kept in this tab only.");
         }
     });
+    let wearer_row = Memo::new(move |_| state.rows.with(|rows| rows.wearer()));
     let unit_label = move || match state.unit.get() {
         LengthUnit::Centimetres => "Show inches",
         LengthUnit::Inches => "Show centimetres",
@@ -79,7 +70,11 @@ pub fn App() -> impl IntoView {
         <main id="workspace" data-testid="workspace">
             <ShelfPanel />
             <div class="inputs">
-                <WearerPanel />
+                {move || {
+                    // The wearer's fields are drawn afresh with each scenario opened.
+                    wearer_row.track();
+                    view! { <WearerPanel /> }
+                }}
                 <TasksPanel />
                 <OptionsPanel />
             </div>

@@ -48,6 +48,19 @@ pub fn scenario_number(
     set: impl Fn(&mut Scenario, Option<f64>) + Copy + Send + Sync + 'static,
     optional: bool,
 ) -> impl IntoView {
+    row_number(label, Signal::stored(path), shown, get, set, optional)
+}
+
+/// A number field of a row that moves in its list (a task, a lens
+/// option): as [`scenario_number`], with a `path` that follows the row.
+pub fn row_number(
+    label: &str,
+    path: Signal<String>,
+    shown: Shown,
+    get: impl Fn(&Scenario) -> Option<f64> + Copy + Send + Sync + 'static,
+    set: impl Fn(&mut Scenario, Option<f64>) + Copy + Send + Sync + 'static,
+    optional: bool,
+) -> impl IntoView {
     let state = use_app_state();
     let unit = state.unit;
     let value = Signal::derive(move || {
@@ -61,10 +74,9 @@ pub fn scenario_number(
         let u = unit.get_untracked();
         state.edit(|s| set(s, v.map(|v| shown.to_stored(u, v))));
     });
-    let test_id = path.replace(['[', ']', '.'], "-");
+    let test_id = Signal::derive(move || path.with(|p| p.replace(['[', ']', '.'], "-")));
     let problem = Signal::derive(move || {
-        state
-            .problem_at(&path)
+        path.with(|path| state.problem_at(path))
             .map(|p| describe_problem(&p, unit.get()))
     });
     let unit_text = Signal::derive(move || match shown {

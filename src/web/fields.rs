@@ -1,7 +1,9 @@
 //! Form fields that keep what the user typed: a number field shows the
-//! user's own text until the value changes from elsewhere (a unit switch, a
-//! loaded scenario), refuses text that is not a number with a message, and
-//! passes only parsed numbers on. Every field has a visible label.
+//! user's own text until the value changes from elsewhere, refuses text that
+//! is not a number with a message, and passes only parsed numbers on. A
+//! field's typed text lives as long as the field: rows are keyed by stable
+//! ids, and a scenario opened or a unit switch draws fresh rows. Every field
+//! has a visible label.
 
 use super::state::use_app_state;
 use crate::display::{parse_number, trim_number};
@@ -64,22 +66,21 @@ pub fn NumberField(
     /// written on prescriptions ("+0.75").
     #[prop(optional)]
     signed: bool,
-    /// A test id for the browser journeys.
+    /// A test id for the browser journeys (it follows a row that moves).
     #[prop(optional, into)]
-    test_id: String,
+    test_id: Signal<String>,
 ) -> impl IntoView {
     let id = unique_id("field");
     let message_id = format!("{id}-msg");
     let state = use_app_state();
-    // What the user typed, the value the field held then, and the era it was typed in.
-    let typed: RwSignal<Option<(String, Option<f64>, u64)>> = RwSignal::new(None);
-    let own =
-        move |at: Option<f64>, era: u64| era == state.era.get() && same_value(at, value.get());
+    // What the user typed and the value the field held then.
+    let typed: RwSignal<Option<(String, Option<f64>)>> = RwSignal::new(None);
+    let own = move |at: Option<f64>| same_value(at, value.get());
     let text = move || {
         let current = value.get();
         typed
             .with(|t| match t {
-                Some((text, at, era)) if own(*at, *era) => Some(text.clone()),
+                Some((text, at)) if own(*at) => Some(text.clone()),
                 _ => None,
             })
             .unwrap_or_else(|| {
@@ -90,7 +91,7 @@ pub fn NumberField(
     };
     let parse_message = move || {
         typed.with(|t| match t {
-            Some((text, at, era)) if own(*at, *era) => {
+            Some((text, at)) if own(*at) => {
                 if optional && text.trim().is_empty() {
                     None
                 } else {
@@ -118,14 +119,13 @@ pub fn NumberField(
         } else {
             parse_number(&text).map(Some)
         };
-        let era = state.era.get_untracked();
         mark_unparsed(parsed.is_err());
         match parsed {
             Ok(v) => {
-                typed.set(Some((text, v, era)));
+                typed.set(Some((text, v)));
                 on_input.run(v);
             }
-            Err(_) => typed.set(Some((text, value.get_untracked(), era))),
+            Err(_) => typed.set(Some((text, value.get_untracked()))),
         }
     };
     let forget_key = id.clone();
@@ -173,9 +173,9 @@ pub fn TextField(
     /// The validation message, if any.
     #[prop(into)]
     problem: Signal<Option<String>>,
-    /// A test id for the browser journeys.
+    /// A test id for the browser journeys (it follows a row that moves).
     #[prop(optional, into)]
-    test_id: String,
+    test_id: Signal<String>,
 ) -> impl IntoView {
     let id = unique_id("text");
     let message_id = format!("{id}-msg");

@@ -1,7 +1,7 @@
 //! The lens-options panel: which families to compare, with each parameter
 //! either fixed by the user or left empty for the planner to choose.
 
-use super::bind::{scenario_number, Shown};
+use super::bind::{row_number, Shown};
 use super::fields::{ChoiceField, TextField};
 use super::state::use_app_state;
 use crate::scenario::{FamilyChoice, LensOption, Scenario, MAX_OPTIONS};
@@ -175,22 +175,43 @@ fn parameters(key: &str) -> Vec<Parameter> {
     }
 }
 
-/// The parameter field `param` of option `i`.
-fn parameter_field(i: usize, param: Parameter) -> impl IntoView {
+/// Where an option's row stands in the list now (`None` once it is gone).
+type At = Memo<Option<usize>>;
+
+/// The path of `field` of the option at `at` (`options[1].addition_d`),
+/// following the option as it moves in the list.
+fn option_path(at: At, field: &'static str) -> Signal<String> {
+    Signal::derive(move || {
+        at.get()
+            .map(|i| format!("options[{i}].{field}"))
+            .unwrap_or_default()
+    })
+}
+
+/// The option at `at` (reactive), if it still exists.
+fn option_at(at: At, s: &Scenario) -> Option<&LensOption> {
+    at.get().and_then(|i| s.options.get(i))
+}
+
+/// The option at `at`, to change it, if it still exists.
+fn option_at_mut(at: At, s: &mut Scenario) -> Option<&mut LensOption> {
+    at.get_untracked().and_then(|i| s.options.get_mut(i))
+}
+
+/// The parameter field `param` of the option at `at`.
+fn parameter_field(at: At, param: Parameter) -> impl IntoView {
     let slot = param.slot;
     let get = move |s: &Scenario| {
-        s.options
-            .get(i)
-            .and_then(|o| slot(&mut o.family.clone()).and_then(|v| *v))
+        option_at(at, s).and_then(|o| slot(&mut o.family.clone()).and_then(|v| *v))
     };
     let set = move |s: &mut Scenario, v: Option<f64>| {
-        if let Some(target) = s.options.get_mut(i).and_then(|o| slot(&mut o.family)) {
+        if let Some(target) = option_at_mut(at, s).and_then(|o| slot(&mut o.family)) {
             *target = v;
         }
     };
-    scenario_number(
+    row_number(
         param.label,
-        format!("options[{i}].{}", param.field),
+        option_path(at, param.field),
         Shown::As(param.unit),
         get,
         set,
@@ -198,45 +219,45 @@ fn parameter_field(i: usize, param: Parameter) -> impl IntoView {
     )
 }
 
-/// The card of lens option `i`.
-fn option_card(i: usize) -> impl IntoView {
+/// The card of the lens option with row id `id`.
+fn option_card(id: u64) -> impl IntoView {
     let state = use_app_state();
+    let at: At = Memo::new(move |_| state.rows.with(|rows| rows.option_index(id)));
     let key = Memo::new(move |_| {
         state.scenario.with(|s| {
-            s.options
-                .get(i)
+            option_at(at, s)
                 .map(|o| family_key(&o.family))
                 .unwrap_or("single_vision")
         })
     });
     let label = Signal::derive(move || {
         state.scenario.with(|s| {
-            s.options
-                .get(i)
+            option_at(at, s)
                 .map(|o| o.label.clone())
                 .unwrap_or_default()
         })
     });
     let on_label = Callback::new(move |v: String| {
         state.edit(|s| {
-            if let Some(o) = s.options.get_mut(i) {
+            if let Some(o) = option_at_mut(at, s) {
                 o.label = v;
             }
         })
     });
+    let label_path = option_path(at, "label");
     let label_problem = Signal::derive(move || {
-        state
-            .problem_at(&format!("options[{i}].label"))
+        label_path
+            .with(|p| state.problem_at(p))
             .map(|p| p.to_string())
     });
     let on_family = Callback::new(move |v: String| {
         state.edit(|s| {
-            if let Some(o) = s.options.get_mut(i) {
+            if let Some(o) = option_at_mut(at, s) {
                 o.family = open_family(&v);
             }
         })
     });
-    let remove = move |_| state.reshape(|s| s.remove_option(i));
+    let remove = move |_| state.remove_option(id);
     view! {
         <li class="option-card" data-testid="option-card">
             <div class="task-head">
@@ -255,7 +276,7 @@ fn option_card(i: usize) -> impl IntoView {
                 {move || {
                     parameters(key.get())
                         .into_iter()
-                        .map(|param| parameter_field(i, param))
+                        .map(|param| parameter_field(at, param))
                         .collect_view()
                 }}
             </div>
@@ -283,8 +304,8 @@ pub fn OptionsPanel() -> impl IntoView {
             <h2 id="options-heading">"Lens options"</h2>
             <p class="hint">"Leave a parameter empty and the planner chooses it."</p>
             <ol class="option-list">
-                <For each=move || 0..count() key=|i| *i let:i>
-                    {option_card(i)}
+                <For each=move || state.rows.with(|rows| rows.options().to_vec()) key=|id| *id let:id>
+                    {option_card(id)}
                 </For>
             </ol>
             <button

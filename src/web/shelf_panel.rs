@@ -1,86 +1,47 @@
 //! The shelf panel: the scenarios kept on this device, with new, duplicate,
 //! delete (with undo), export, import, recovery of set-aside entries and
 //! erasing all local data; and the notice bar that reports what happened.
-//! Every action that writes runs in this tab's turn to write
-//! ([`with_write_lock`]).
+//! Every decision is the [`crate::library::Session`]'s; this file calls it
+//! and draws. Every action that writes runs in this tab's turn to write
+//! ([`Shelf::in_turn`]).
 
 use super::fields::TextField;
 use super::files::{download_json, read_text};
-use super::locks::with_write_lock;
-use super::shelf::{now_ms, NoticeAction, Shelf};
+use super::shelf::{now_ms, BrowserSession, Shelf};
 use super::state::{use_app_state, AppState};
-use crate::display::{file_name_for, thousands};
-use crate::library::{parse_import, EntryId, MAX_DOCUMENT_BYTES};
+use crate::display::thousands;
+use crate::library::{EntryId, NoticeAction, MAX_DOCUMENT_BYTES};
 use crate::scenario::Scenario;
 use leptos::prelude::*;
 use wasm_bindgen::JsCast;
 
+/// Runs a session operation in this tab's turn to write and shows the
+/// scenario it opens, if any.
+fn act(state: AppState, op: impl FnOnce(&mut BrowserSession, u64) -> Option<Scenario> + 'static) {
+    state.shelf.in_turn(op, move |shown| state.show(shown));
+}
+
 /// Opens entry `id` in the editor.
-pub fn open_entry(state: AppState, id: EntryId) {
-    let shelf = state.shelf;
-    let scenario = shelf
-        .library
-        .with_untracked(|lib| lib.get(&id).map(|e| e.scenario.clone()));
-    if let Some(scenario) = scenario {
-        shelf.current.set(Some(id));
-        state.replace_scenario(scenario);
-        shelf.remember(None);
+fn open_entry(state: AppState, id: &EntryId) {
+    state.show(state.shelf.run(|s| s.open_entry(id)).flatten());
+}
+
+/// Downloads a file (name and text), saying so if the browser refuses.
+fn download(shelf: Shelf, file: Option<(String, String)>) {
+    if let Some((file_name, text)) = file {
+        if let Err(e) = download_json(&file_name, &text) {
+            shelf.tell(e, true);
+        }
     }
 }
 
 /// Downloads every scenario as one file.
-pub fn export_all(shelf: Shelf) {
-    let result = shelf
-        .library
-        .with_untracked(|lib| lib.export_all(now_ms()))
-        .map_err(|e| e.to_string())
-        .and_then(|text| download_json("clearspan-all-scenarios.json", &text));
-    if let Err(e) = result {
-        shelf.tell(e, true, None);
-    }
-}
-
-/// Restores the scenario deleted last and opens it.
-pub fn undo_delete(state: AppState) {
-    let shelf = state.shelf;
-    with_write_lock(
-        move || match shelf.library.try_update(|lib| lib.undo_delete()) {
-            Some(Ok((id, persisted))) => {
-                shelf.show_persisted(persisted);
-                open_entry(state, id);
-            }
-            Some(Err(e)) => shelf.tell(e.to_string(), true, None),
-            None => {}
-        },
+fn export_all(shelf: Shelf) {
+    let text = shelf.run(|s| s.export_all(now_ms())).flatten();
+    download(
+        shelf,
+        text.map(|text| ("clearspan-all-scenarios.json".to_string(), text)),
     );
-}
-
-/// Deletes entry `id` (offering Undo) and opens the next scenario.
-fn delete_entry(state: AppState, id: EntryId) {
-    let shelf = state.shelf;
-    let name = state.scenario.with_untracked(|s| s.name.clone());
-    match shelf.library.try_update(|lib| lib.delete(&id)) {
-        Some(Ok(persisted)) => {
-            shelf.show_persisted(Ok(persisted));
-            shelf.tell(
-                format!("Deleted \"{name}\"."),
-                false,
-                Some(NoticeAction::UndoDelete),
-            );
-            let next = shelf
-                .library
-                .with_untracked(|lib| lib.list("").first().map(|s| s.id.clone()));
-            match next {
-                Some(next) => open_entry(state, next),
-                None => {
-                    shelf.current.set(None);
-                    state.replace_scenario(Scenario::untitled());
-                }
-            }
-        }
-        Some(Err(e)) => shelf.tell(e.to_string(), true, None),
-        None => {}
-    }
 }
 
 /// A local date and time for a timestamp in milliseconds.
@@ -97,34 +58,14 @@ fn when(ms: u64) -> String {
 pub fn NoticeBar() -> impl IntoView {
     let state = use_app_state();
     let shelf = state.shelf;
-    let keep_mine = move |_| {
-        let Some(c) = shelf.conflict.get_untracked() else {
+    let resolve = move |keep: bool| {
+        let Some(Some(conflict)) = shelf.run(BrowserSession::take_conflict) else {
             return;
         };
-        shelf.conflict.set(None);
-        with_write_lock(move || {
-            match shelf
-                .library
-                .try_update(|lib| lib.keep_mine_as_copy(&c.id, now_ms()))
-            {
-                Some(Ok((id, persisted))) => {
-                    shelf.show_persisted(persisted);
-                    open_entry(state, id);
-                }
-                Some(Err(e)) => shelf.tell(e.to_string(), true, None),
-                None => {}
-            }
-        });
-    };
-    let take_theirs = move |_| {
-        let Some(c) = shelf.conflict.get_untracked() else {
-            return;
-        };
-        shelf.conflict.set(None);
-        match shelf.library.try_update(|lib| lib.take_theirs(&c.id)) {
-            Some(Ok(_)) => open_entry(state, c.id.clone()),
-            Some(Err(e)) => shelf.tell(e.to_string(), true, None),
-            None => {}
+        if keep {
+            act(state, move |s, now| s.keep_mine(&conflict, now));
+        } else {
+            state.show(shelf.run(|s| s.take_theirs(&conflict)).flatten());
         }
     };
     view! {
@@ -132,8 +73,8 @@ pub fn NoticeBar() -> impl IntoView {
             <Show when=move || shelf.conflict.with(Option::is_some)>
                 <div class="notice warning" data-testid="conflict">
                     <p>{move || shelf.conflict.get().map(|c| c.to_string())}</p>
-                    <button type="button" on:click=keep_mine>"Keep mine as a copy"</button>
-                    <button type="button" on:click=take_theirs>"Take theirs"</button>
+                    <button type="button" on:click=move |_| resolve(true)>"Keep mine as a copy"</button>
+                    <button type="button" on:click=move |_| resolve(false)>"Take theirs"</button>
                 </div>
             </Show>
             <For
@@ -145,7 +86,7 @@ pub fn NoticeBar() -> impl IntoView {
                     let id = notice.id;
                     let action = notice.action.map(|a| {
                         let (words, run): (&str, Box<dyn Fn() + Send + Sync>) = match a {
-                            NoticeAction::UndoDelete => ("Undo", Box::new(move || undo_delete(state))),
+                            NoticeAction::UndoDelete => ("Undo", Box::new(move || act(state, |s, _| s.undo_delete()))),
                             NoticeAction::ExportAll => ("Export all scenarios", Box::new(move || export_all(shelf))),
                         };
                         view! {
@@ -190,59 +131,22 @@ pub fn ShelfPanel() -> impl IntoView {
     let shelf = state.shelf;
     let filter = RwSignal::new(String::new());
     let confirming_erase = RwSignal::new(false);
-    let summaries = move || shelf.library.with(|lib| lib.list(&filter.get()));
-    let current = move || shelf.current.get();
-
-    let new_scenario = move |_| {
-        with_write_lock(move || {
-            let created = shelf
-                .library
-                .try_update(|lib| lib.create(Scenario::untitled(), "", now_ms()));
-            if let Some((id, persisted)) = created {
-                shelf.show_persisted(persisted);
-                open_entry(state, id);
-            }
-        });
-    };
-    let duplicate = move |_| {
-        let Some(id) = shelf.current.get_untracked() else {
-            return;
-        };
-        with_write_lock(move || {
-            match shelf.library.try_update(|lib| lib.duplicate(&id, now_ms())) {
-                Some(Ok((copy, persisted))) => {
-                    shelf.show_persisted(persisted);
-                    open_entry(state, copy);
-                }
-                Some(Err(e)) => shelf.tell(e.to_string(), true, None),
-                None => {}
-            }
-        });
-    };
-    let delete = move |_| {
-        let Some(id) = shelf.current.get_untracked() else {
-            return;
-        };
-        with_write_lock(move || delete_entry(state, id));
-    };
-    let export_current = move |_| {
-        let Some(id) = shelf.current.get_untracked() else {
-            shelf.tell(
-                "Edit the scenario once so it is stored, then export it.",
-                false,
-                None,
-            );
-            return;
-        };
-        let name = state.scenario.with_untracked(|s| s.name.clone());
-        let result = shelf
-            .library
-            .with_untracked(|lib| lib.export(&[id], now_ms()))
-            .map_err(|e| e.to_string())
-            .and_then(|text| download_json(&file_name_for(&name), &text));
-        if let Err(e) = result {
-            shelf.tell(e, true, None);
+    let summaries = move || {
+        let words = filter.get();
+        if words.trim().is_empty() {
+            shelf.list.get()
+        } else {
+            shelf.list.track();
+            shelf.read(|s| s.list(&words)).unwrap_or_default()
         }
+    };
+    let current = move || shelf.current.get();
+    let new_scenario = move |_| act(state, |s, now| s.create_untitled(now));
+    let duplicate = move |_| act(state, |s, now| s.duplicate(now));
+    let delete = move |_| act(state, |s, _| s.delete());
+    let export_current = move |_| {
+        let file = shelf.run(|s| s.export_current(now_ms())).flatten();
+        download(shelf, file);
     };
     let import = move |ev: leptos::ev::Event| {
         let Some(input) = ev
@@ -256,83 +160,41 @@ pub fn ShelfPanel() -> impl IntoView {
         };
         input.set_value("");
         leptos::task::spawn_local(async move {
-            let text = match read_text(file, MAX_DOCUMENT_BYTES).await {
-                Ok(text) => text,
+            match read_text(file, MAX_DOCUMENT_BYTES).await {
+                Ok(text) => act(state, move |s, now| s.import(&text, now)),
                 Err(e) => {
-                    shelf.tell(format!("Nothing was imported: {e}."), true, None);
-                    return;
+                    shelf.run(|s| s.import_unreadable(&e));
                 }
-            };
-            match parse_import(&text) {
-                Ok(batch) => with_write_lock(move || {
-                    let report = shelf.library.try_update(|lib| lib.import(batch, now_ms()));
-                    if let Some(report) = report {
-                        shelf.tell_import(&report);
-                        if let Some(first) = report.added.first() {
-                            open_entry(state, first.id.clone());
-                        }
-                    }
-                }),
-                Err(e) => shelf.tell(format!("Nothing was imported: {e}"), true, None),
             }
         });
     };
     let erase = move |_| {
         confirming_erase.set(false);
-        with_write_lock(
-            move || match shelf.library.try_update(|lib| lib.erase_all_local_data()) {
-                Some(Ok(count)) => {
-                    shelf.current.set(None);
-                    state.replace_scenario(Scenario::untitled());
-                    shelf.tell(
-                        format!(
-                            "Erased all of clearspan's data on this device ({count} stored items)."
-                        ),
-                        false,
-                        None,
-                    );
-                }
-                Some(Err(e)) => shelf.tell(e.to_string(), true, None),
-                None => {}
-            },
-        );
+        act(state, |s, _| s.erase_all());
     };
-    let set_aside = move || shelf.library.with(|lib| lib.set_aside().to_vec());
+    let set_aside = move || shelf.set_aside.get();
     let name = Signal::derive(move || state.scenario.with(|s| s.name.clone()));
     let on_name = Callback::new(move |v: String| state.edit(|s| s.name = v));
     let name_problem = Signal::derive(move || state.problem_at("name").map(|p| p.to_string()));
     let note = Signal::derive(move || {
         let id = shelf.current.get();
-        shelf
-            .library
-            .with(|lib| id.and_then(|id| lib.get(&id).map(|e| e.note.clone())))
-            .unwrap_or_default()
+        shelf.list.with(|list| {
+            list.iter()
+                .find(|s| Some(&s.id) == id.as_ref())
+                .map(|s| s.note.clone())
+                .unwrap_or_default()
+        })
     });
     let no_problem = Signal::derive(|| None::<String>);
     let on_note = Callback::new(move |v: String| {
-        let Some(id) = shelf.current.get_untracked() else {
-            shelf.tell(
-                "Edit the scenario once so it is stored, then add a note.",
-                false,
-                None,
-            );
-            return;
-        };
-        with_write_lock(move || {
-            if let Some(result) = shelf
-                .library
-                .try_update(|lib| lib.set_note(&id, &v, now_ms()))
-            {
-                shelf.show_persisted(result);
-            }
-        });
+        shelf.in_turn(move |s, now| s.set_note(&v, now), |()| {});
     });
 
     view! {
         <aside class="panel shelf" aria-labelledby="shelf-heading" data-testid="shelf">
             <h2 id="shelf-heading">"Scenario shelf"</h2>
             <p class="save-state" data-testid="save-state">
-                {move || shelf.status().to_string()}
+                {move || shelf.status.with(ToString::to_string)}
             </p>
             <TextField label="Scenario name" value=name on_input=on_name problem=name_problem test_id="scenario-name" />
             <TextField label="Note" value=note on_input=on_note problem=no_problem test_id="scenario-note" />
@@ -376,7 +238,7 @@ pub fn ShelfPanel() -> impl IntoView {
                                     type="button"
                                     class="shelf-item"
                                     aria-current=move || if is_current() { "true" } else { "false" }
-                                    on:click=move |_| open_entry(state, id.clone())
+                                    on:click=move |_| open_entry(state, &id)
                                 >
                                     <span class="shelf-name">{summary.name.clone()}</span>
                                     <span class="shelf-meta">
@@ -408,18 +270,11 @@ pub fn ShelfPanel() -> impl IntoView {
                                 <li>
                                     <p>{item.to_string()}</p>
                                     <button type="button" on:click=move |_| {
-                                        if let Err(e) = download_json(&name, &raw) {
-                                            shelf.tell(e, true, None);
-                                        }
+                                        download(shelf, Some((name.clone(), raw.clone())));
                                     }>"Download its text"</button>
                                     <button type="button" on:click=move |_| {
                                         let key = key.clone();
-                                        with_write_lock(move || {
-                                            let outcome = shelf.library.try_update(|lib| lib.discard_set_aside(&key));
-                                            if let Some(Err(e)) = outcome {
-                                                shelf.tell(e.to_string(), true, None);
-                                            }
-                                        });
+                                        shelf.in_turn(move |s, _| s.discard_set_aside(&key), |()| {});
                                     }>"Discard"</button>
                                 </li>
                             }

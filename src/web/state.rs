@@ -5,7 +5,7 @@
 use super::shelf::{Opening, Shelf};
 use crate::display::LengthUnit;
 use crate::plan::{plan, Plan};
-use crate::scenario::{validate, FieldError, Problem, Scenario, ValidScenario};
+use crate::scenario::{validate, FieldError, Problem, RowIds, Scenario, ValidScenario};
 use leptos::prelude::*;
 use std::collections::BTreeSet;
 
@@ -22,10 +22,9 @@ pub struct AppState {
     pub outcome: Memo<Outcome>,
     /// The task whose numbers are shown in detail (input index).
     pub chosen_task: RwSignal<Option<usize>>,
-    /// Counts the times what the fields show was replaced from elsewhere
-    /// (a scenario opened, a task or option removed, the unit switched):
-    /// text a user typed before then no longer belongs to the field.
-    pub era: RwSignal<u64>,
+    /// The ids the editor keys its rows by (the wearer's block, each task,
+    /// each option): fresh for every scenario opened and every unit switch.
+    pub rows: RwSignal<RowIds>,
     /// Fields whose typed text is not a number; while any is, the plan on
     /// screen does not reflect what the user sees and is marked stale.
     pub unparsed: RwSignal<BTreeSet<String>>,
@@ -47,6 +46,7 @@ pub struct Outcome {
 
 impl AppState {
     fn new(opening: Opening) -> AppState {
+        let rows = RwSignal::new(RowIds::new(&opening.scenario));
         let scenario = RwSignal::new(opening.scenario);
         let checked = Memo::new(move |_| scenario.with(|s| validate(s.clone())));
         let outcome = Memo::new(move |previous: Option<&Outcome>| {
@@ -77,7 +77,7 @@ impl AppState {
             checked,
             outcome,
             chosen_task: RwSignal::new(None),
-            era: RwSignal::new(0),
+            rows,
             unparsed: RwSignal::new(BTreeSet::new()),
             shelf: opening.shelf,
         }
@@ -107,36 +107,72 @@ impl AppState {
     }
 
     /// Applies `edit` to the scenario being edited and stores the result.
+    /// A task or option it adds at the end of its list gets a new row.
     pub fn edit(&self, edit: impl FnOnce(&mut Scenario)) {
         self.scenario.update(edit);
+        self.scenario
+            .with_untracked(|s| self.rows.maybe_update(|rows| rows.fit(s)));
+        self.store();
+    }
+
+    /// Removes the task with row id `id`, keeping it to be put back;
+    /// returns whether it was there.
+    pub fn remove_task(&self, id: u64) -> bool {
+        let mut removed = false;
+        self.scenario
+            .update(|s| self.rows.update(|rows| removed = rows.remove_task(s, id)));
+        self.store();
+        removed
+    }
+
+    /// Puts the task removed last back in its place; returns where it went.
+    pub fn put_back_task(&self) -> Option<usize> {
+        if self
+            .rows
+            .with_untracked(|rows| rows.removed_task().is_none())
+        {
+            return None;
+        }
+        let mut at = None;
+        self.scenario
+            .update(|s| self.rows.update(|rows| at = rows.put_back_task(s)));
+        self.store();
+        at
+    }
+
+    /// Removes the lens option with row id `id`.
+    pub fn remove_option(&self, id: u64) {
+        self.scenario
+            .update(|s| self.rows.update(|rows| _ = rows.remove_option(s, id)));
+        self.store();
+    }
+
+    /// Stores the scenario being edited.
+    fn store(&self) {
         self.scenario.with_untracked(|s| self.shelf.autosave(s));
     }
 
-    /// Switches the length unit and remembers it for the next visit.
+    /// Switches the length unit and remembers it for the next visit; every
+    /// row is drawn afresh in the new unit.
     pub fn set_unit(&self, unit: LengthUnit) {
-        self.new_era();
+        self.scenario
+            .with_untracked(|s| self.rows.update(|rows| rows.renew(s)));
         self.unit.set(unit);
-        self.shelf.remember(Some(unit));
+        self.shelf.run(|s| s.remember(Some(unit)));
     }
 
     /// Replaces the scenario on screen (opened, reloaded, taken from another
-    /// tab) without storing it again.
+    /// tab) without storing it again; every row is drawn afresh.
     pub fn replace_scenario(&self, scenario: Scenario) {
-        self.new_era();
+        self.rows.update(|rows| rows.renew(&scenario));
         self.scenario.set(scenario);
     }
 
-    /// Applies an edit that changes which task or option each field shows
-    /// (removing one), then stores the result.
-    pub fn reshape(&self, edit: impl FnOnce(&mut Scenario)) {
-        self.new_era();
-        self.edit(edit);
-    }
-
-    /// Starts a new era: typed text no longer belongs to its field.
-    fn new_era(&self) {
-        self.unparsed.update(BTreeSet::clear);
-        self.era.update(|e| *e += 1);
+    /// Shows `scenario` if there is one: what a shelf operation opened.
+    pub fn show(&self, scenario: Option<Scenario>) {
+        if let Some(scenario) = scenario {
+            self.replace_scenario(scenario);
+        }
     }
 }
 

@@ -1,39 +1,47 @@
 //! The working-day panel: one card per task with its distance, position,
 //! size, detail, hours and safety flags; adding a task is one action.
 
-use super::bind::{scenario_number, Shown};
+use super::bind::{row_number, Shown};
 use super::fields::{CheckField, ChoiceField, TextField};
 use super::state::use_app_state;
-use crate::scenario::{Task, TaskFlags, VerticalPosition, MAX_TASKS};
+use crate::scenario::{Scenario, Task, TaskFlags, VerticalPosition, MAX_TASKS};
 use leptos::prelude::*;
 
-/// Reads a number of task `i`; `None` once the task is gone.
-fn task_value(
-    i: usize,
-    read: fn(&Task) -> f64,
-) -> impl Fn(&crate::scenario::Scenario) -> Option<f64> + Copy {
-    move |s| s.tasks.get(i).map(read)
+/// Where a task's row stands in the list now (`None` once it is gone).
+type At = Memo<Option<usize>>;
+
+/// The task at `at` (reactive), if it still exists.
+fn task_at(at: At, s: &Scenario) -> Option<&Task> {
+    at.get().and_then(|i| s.tasks.get(i))
 }
 
-/// Writes a number of task `i`, if it still exists.
-fn task_write(
-    i: usize,
-    write: fn(&mut Task, f64),
-) -> impl Fn(&mut crate::scenario::Scenario, Option<f64>) + Copy {
+/// The task at `at`, to change it, if it still exists.
+fn task_at_mut(at: At, s: &mut Scenario) -> Option<&mut Task> {
+    at.get_untracked().and_then(|i| s.tasks.get_mut(i))
+}
+
+/// Reads a number of the task at `at`; `None` once the task is gone.
+fn task_value(at: At, read: fn(&Task) -> f64) -> impl Fn(&Scenario) -> Option<f64> + Copy {
+    move |s| task_at(at, s).map(read)
+}
+
+/// Writes a number of the task at `at`, if it still exists.
+fn task_write(at: At, write: fn(&mut Task, f64)) -> impl Fn(&mut Scenario, Option<f64>) + Copy {
     move |s, v| {
-        if let (Some(t), Some(v)) = (s.tasks.get_mut(i), v) {
+        if let (Some(t), Some(v)) = (task_at_mut(at, s), v) {
             write(t, v);
         }
     }
 }
 
-/// The task last removed, where it stood, and the era of the list after
-/// the removal (an undo is offered only while the list keeps that shape).
-#[derive(Debug, Clone)]
-struct Removed {
-    index: usize,
-    task: Task,
-    era: u64,
+/// The path of `field` of the task at `at` (`tasks[1].distance_m`),
+/// following the task as it moves in the list.
+fn task_path(at: At, field: &'static str) -> Signal<String> {
+    Signal::derive(move || {
+        at.get()
+            .map(|i| format!("tasks[{i}].{field}"))
+            .unwrap_or_default()
+    })
 }
 
 /// Moves the keyboard focus to the element with test id `id` once the
@@ -51,18 +59,14 @@ fn focus_test_id(id: &str) {
     });
 }
 
-/// A check box bound to one flag of task `i`.
-fn flag_field(
-    i: usize,
-    label: &'static str,
-    flag: fn(&mut TaskFlags) -> &mut bool,
-) -> impl IntoView {
+/// A check box bound to one flag of the task at `at`.
+fn flag_field(at: At, label: &'static str, flag: fn(&mut TaskFlags) -> &mut bool) -> impl IntoView {
     let state = use_app_state();
     let checked = Signal::derive(move || {
         state
             .scenario
             .with(|s| {
-                s.tasks.get(i).map(|t| {
+                task_at(at, s).map(|t| {
                     let mut flags = t.flags;
                     *flag(&mut flags)
                 })
@@ -71,7 +75,7 @@ fn flag_field(
     });
     let on_change = Callback::new(move |v: bool| {
         state.edit(|s| {
-            if let Some(t) = s.tasks.get_mut(i) {
+            if let Some(t) = task_at_mut(at, s) {
                 *flag(&mut t.flags) = v;
             }
         })
@@ -79,19 +83,17 @@ fn flag_field(
     view! { <CheckField label=label checked=checked on_change=on_change /> }
 }
 
-/// The vertical position of task `i`: a gaze angle or a height from the eyes.
-fn position_fields(i: usize) -> impl IntoView {
+/// The vertical position of the task at `at`: a gaze angle or a height from the eyes.
+fn position_fields(at: At) -> impl IntoView {
     let state = use_app_state();
     let by_angle = move || {
         state.scenario.with(|s| {
-            s.tasks
-                .get(i)
-                .is_none_or(|t| matches!(t.vertical, VerticalPosition::GazeAngle { .. }))
+            task_at(at, s).is_none_or(|t| matches!(t.vertical, VerticalPosition::GazeAngle { .. }))
         })
     };
     let on_kind = Callback::new(move |v: String| {
         state.edit(|s| {
-            if let Some(t) = s.tasks.get_mut(i) {
+            if let Some(t) = task_at_mut(at, s) {
                 t.vertical = if v == "height" {
                     VerticalPosition::HeightFromEyes { metres: -0.2 }
                 } else {
@@ -109,16 +111,16 @@ fn position_fields(i: usize) -> impl IntoView {
         />
         {move || {
             if by_angle() {
-                scenario_number(
+                row_number(
                         "Gaze angle (up +, down −)",
-                        format!("tasks[{i}].vertical.degrees"),
+                        task_path(at, "vertical.degrees"),
                         Shown::As("°"),
-                        move |s| match s.tasks.get(i).map(|t| t.vertical) {
+                        move |s| match task_at(at, s).map(|t| t.vertical) {
                             Some(VerticalPosition::GazeAngle { degrees }) => Some(degrees),
                             _ => None,
                         },
                         move |s, v| {
-                            if let (Some(t), Some(degrees)) = (s.tasks.get_mut(i), v) {
+                            if let (Some(t), Some(degrees)) = (task_at_mut(at, s), v) {
                                 t.vertical = VerticalPosition::GazeAngle { degrees };
                             }
                         },
@@ -126,16 +128,16 @@ fn position_fields(i: usize) -> impl IntoView {
                     )
                     .into_any()
             } else {
-                scenario_number(
+                row_number(
                         "Height from eyes (up +, down −)",
-                        format!("tasks[{i}].vertical.metres"),
+                        task_path(at, "vertical.metres"),
                         Shown::Length,
-                        move |s| match s.tasks.get(i).map(|t| t.vertical) {
+                        move |s| match task_at(at, s).map(|t| t.vertical) {
                             Some(VerticalPosition::HeightFromEyes { metres }) => Some(metres),
                             _ => None,
                         },
                         move |s, v| {
-                            if let (Some(t), Some(metres)) = (s.tasks.get_mut(i), v) {
+                            if let (Some(t), Some(metres)) = (task_at_mut(at, s), v) {
                                 t.vertical = VerticalPosition::HeightFromEyes { metres };
                             }
                         },
@@ -196,56 +198,56 @@ const TASK_NUMBERS: [TaskNumber; 5] = [
     },
 ];
 
-/// The field of number `n` of task `i`.
-fn task_number(i: usize, n: &TaskNumber) -> impl IntoView {
-    scenario_number(
+/// The field of number `n` of the task at `at`.
+fn task_number(at: At, n: &TaskNumber) -> impl IntoView {
+    row_number(
         n.label,
-        format!("tasks[{i}].{}", n.field),
+        task_path(at, n.field),
         n.shown,
-        task_value(i, n.read),
-        task_write(i, n.write),
+        task_value(at, n.read),
+        task_write(at, n.write),
         false,
     )
 }
 
-/// The card of task `i`.
-fn task_card(i: usize, removed: RwSignal<Option<Removed>>) -> impl IntoView {
+/// The card of the task with row id `id`.
+fn task_card(id: u64) -> impl IntoView {
     let state = use_app_state();
+    let at: At = Memo::new(move |_| state.rows.with(|rows| rows.task_index(id)));
     let name = Signal::derive(move || {
         state
             .scenario
-            .with(|s| s.tasks.get(i).map(|t| t.name.clone()).unwrap_or_default())
+            .with(|s| task_at(at, s).map(|t| t.name.clone()).unwrap_or_default())
     });
     let on_name = Callback::new(move |v: String| {
         state.edit(|s| {
-            if let Some(t) = s.tasks.get_mut(i) {
+            if let Some(t) = task_at_mut(at, s) {
                 t.name = v;
             }
         })
     });
+    let name_path = task_path(at, "name");
     let name_problem = Signal::derive(move || {
-        state
-            .problem_at(&format!("tasks[{i}].name"))
+        name_path
+            .with(|p| state.problem_at(p))
             .map(|p| p.to_string())
     });
+    let name_test_id = Signal::derive(move || {
+        at.get()
+            .map(|i| format!("task-{i}-name"))
+            .unwrap_or_default()
+    });
     let remove = move |_| {
-        let mut taken = None;
-        state.reshape(|s| taken = s.remove_task(i));
-        if let Some(task) = taken {
-            removed.set(Some(Removed {
-                index: i,
-                task,
-                era: state.era.get_untracked(),
-            }));
-            // Focus lands on the undo button, so a second Enter puts the
-            // task back instead of removing the next one.
+        // Focus lands on the undo button, so a second Enter puts the task
+        // back instead of removing the next one.
+        if state.remove_task(id) {
             focus_test_id("undo-remove");
         }
     };
     view! {
         <li class="task-card" data-testid="task-card">
             <div class="task-head">
-                <TextField label="Task" value=name on_input=on_name problem=name_problem test_id=format!("task-{i}-name") />
+                <TextField label="Task" value=name on_input=on_name problem=name_problem test_id=name_test_id />
                 <button
                     type="button"
                     class="quiet"
@@ -256,22 +258,22 @@ fn task_card(i: usize, removed: RwSignal<Option<Removed>>) -> impl IntoView {
                 </button>
             </div>
             <div class="grid">
-                {task_number(i, &TASK_NUMBERS[0])}
-                {position_fields(i)}
-                {TASK_NUMBERS[1..].iter().map(|n| task_number(i, n)).collect_view()}
+                {task_number(at, &TASK_NUMBERS[0])}
+                {position_fields(at)}
+                {TASK_NUMBERS[1..].iter().map(|n| task_number(at, n)).collect_view()}
             </div>
             <div class="flags">
-                {flag_field(i, "Driving (road, mirrors, dashboard)", |f| &mut f.driving)}
-                {flag_field(i, "Moving machinery", |f| &mut f.moving_machinery)}
-                {flag_field(i, "Overhead", |f| &mut f.overhead)}
-                {flag_field(i, "Screen text (detail is the character height)", |f| &mut f.screen)}
+                {flag_field(at, "Driving (road, mirrors, dashboard)", |f| &mut f.driving)}
+                {flag_field(at, "Moving machinery", |f| &mut f.moving_machinery)}
+                {flag_field(at, "Overhead", |f| &mut f.overhead)}
+                {flag_field(at, "Screen text (detail is the character height)", |f| &mut f.screen)}
             </div>
             <fieldset class="flags">
                 <legend>"Eye hazards"</legend>
-                {flag_field(i, "Impact", |f| &mut f.hazards.impact)}
-                {flag_field(i, "Splash or aerosol", |f| &mut f.hazards.splash_or_aerosol)}
-                {flag_field(i, "Dust", |f| &mut f.hazards.dust)}
-                {flag_field(i, "Optical radiation", |f| &mut f.hazards.optical_radiation)}
+                {flag_field(at, "Impact", |f| &mut f.hazards.impact)}
+                {flag_field(at, "Splash or aerosol", |f| &mut f.hazards.splash_or_aerosol)}
+                {flag_field(at, "Dust", |f| &mut f.hazards.dust)}
+                {flag_field(at, "Optical radiation", |f| &mut f.hazards.optical_radiation)}
             </fieldset>
         </li>
     }
@@ -281,7 +283,6 @@ fn task_card(i: usize, removed: RwSignal<Option<Removed>>) -> impl IntoView {
 #[component]
 pub fn TasksPanel() -> impl IntoView {
     let state = use_app_state();
-    let removed: RwSignal<Option<Removed>> = RwSignal::new(None);
     let count = move || state.scenario.with(|s| s.tasks.len());
     let add = move |_: leptos::ev::MouseEvent| {
         state.edit(|s| {
@@ -298,21 +299,14 @@ pub fn TasksPanel() -> impl IntoView {
         focus_test_id(&format!("task-{last}-name"));
     };
     let undo = move |_| {
-        if let Some(r) = removed.get_untracked() {
-            // Only while nothing else reshaped the list (another removal, a
-            // scenario opened, the unit switched) does the place still fit.
-            if r.era == state.era.get_untracked() {
-                state.reshape(|s| s.restore_task(r.index, r.task.clone()));
-                focus_test_id(&format!("task-{}-name", r.index));
-            }
+        if let Some(at) = state.put_back_task() {
+            focus_test_id(&format!("task-{at}-name"));
         }
-        removed.set(None);
     };
     let undo_label = move || {
-        removed.with(|r| {
-            r.as_ref()
-                .filter(|r| r.era == state.era.get())
-                .map(|r| format!("Put back \"{}\"", r.task.name))
+        state.rows.with(|rows| {
+            rows.removed_task()
+                .map(|task| format!("Put back \"{}\"", task.name))
         })
     };
     let tasks_problem = move || state.problem_at("tasks").map(|p| p.to_string());
@@ -327,8 +321,8 @@ pub fn TasksPanel() -> impl IntoView {
                 </p>
             })}
             <ol class="task-list">
-                <For each=move || 0..count() key=|i| *i let:i>
-                    {task_card(i, removed)}
+                <For each=move || state.rows.with(|rows| rows.tasks().to_vec()) key=|id| *id let:id>
+                    {task_card(id)}
                 </For>
             </ol>
             <button

@@ -199,6 +199,38 @@ test(
   },
 );
 
+test("text typed in a task stays with that task when a task above it is removed or put back", async () => {
+  const { context, page, planner } = await newScenario();
+  const cards = (n) => page.waitForFunction((n) => document.querySelectorAll('[data-testid="task-card"]').length === n, n);
+  await planner.byTestId("add-task").click();
+  await cards(2);
+  await planner.byTestId("add-task").click();
+  await cards(3);
+  await planner.byTestId("task-2-name").fill("Bench");
+  // Half-typed and not a number: it stays in the field, with its message, and the plan is stale.
+  await planner.setNumber("tasks-2--distance_m", "12,,");
+  const message = await planner.messageFor("tasks-2--distance_m");
+  assert.notEqual(message, "", "the typed text is refused with a message");
+  await page.getByTestId("stale").waitFor();
+
+  await page.getByRole("button", { name: "Remove task Screen" }).click();
+  await cards(2);
+  assert.equal(await planner.valueOf("task-1-name"), "Bench", "the bench task moved up");
+  assert.equal(await planner.valueOf("tasks-1--distance_m"), "12,,", "its typed text moved with it");
+  assert.equal(await planner.messageFor("tasks-1--distance_m"), message);
+  assert.equal(await planner.valueOf(DISTANCE), "65", "the task now first shows its own distance");
+  assert.equal(await planner.messageFor(DISTANCE), "");
+  assert.ok(await page.getByTestId("stale").isVisible(), "still stale: the bench field holds no number");
+
+  await planner.byTestId("undo-remove").click();
+  await cards(3);
+  assert.equal(await planner.valueOf("task-0-name"), "Screen", "the removed task is back in first place");
+  assert.equal(await planner.valueOf("tasks-2--distance_m"), "12,,", "and the bench task keeps its text");
+
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
 /** Controls a user touches whose drawn box is under 44 px tall or wide. */
 function smallControls(page) {
   return page.evaluate(() => {
