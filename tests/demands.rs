@@ -179,3 +179,45 @@ fn the_distance_correction_is_used_when_no_glasses_are_entered() {
     let s = sheet(4.0, 50.0, vec![screen(0.65, -10.0, 3.5)], None);
     assert!(s.glasses.starts_with("distance correction only"));
 }
+
+#[test]
+fn a_paper_at_the_same_distance_gets_no_screen_changes() {
+    // The worker of the monitor test above (2.50 D measured at 50, 1.25 D
+    // usable) with a paper document where the monitor was: 65 cm needs
+    // 1.54 D, short by 0.29 D. A paper is no display: moving a screen and
+    // enlarging its text are workstation changes for screens only
+    // (Directive 90/270/EEC, Annex, point 1(b)), so the task goes on to the
+    // eyewear question. The plain shortfall of 0.29 D rounds up to +0.50 D
+    // on the 0.25 D grid; counting the depth of focus may leave +0.25 D.
+    let mut doc = task("document", 0.65, -10.0, 4.0);
+    doc.detail_mm = 3.5;
+    let s = sheet(2.5, 50.0, vec![doc], None);
+    let t = &s.tasks[0];
+    let Flag::TaskEyewear { reasons, addition } = &t.flag else {
+        panic!("expected task eyewear, got {:?}", t.flag);
+    };
+    assert!(
+        matches!(reasons[0], Reason::ShortOfFocus { short_by, .. } if (short_by.0 - 0.288).abs() < 0.005)
+    );
+    assert!(
+        addition.0 == 0.25 || addition.0 == 0.5,
+        "addition {addition:?}"
+    );
+}
+
+#[test]
+fn a_screen_in_a_vehicle_is_not_moved() {
+    // The same shortfall on a driving task marked as a screen (a dashboard
+    // display): the vehicle is no workstation to rearrange, so no change is
+    // offered, whatever the screen flag says.
+    let mut dash = screen(0.65, -10.0, 3.5);
+    dash.flags.driving = true;
+    let s = sheet(2.5, 50.0, vec![dash], None);
+    let t = &s.tasks[0];
+    assert!(
+        !matches!(t.flag, Flag::WorkstationChange { .. }),
+        "no change for a driving task: {:?}",
+        t.flag
+    );
+    assert_ne!(t.flag, Flag::Fine, "still short by about 0.29 D");
+}
