@@ -179,3 +179,105 @@ fn the_distance_correction_is_used_when_no_glasses_are_entered() {
     let s = sheet(4.0, 50.0, vec![screen(0.65, -10.0, 3.5)], None);
     assert!(s.glasses.starts_with("distance correction only"));
 }
+
+#[test]
+fn a_paper_at_the_same_distance_gets_no_screen_changes() {
+    // The worker of the monitor test above (2.50 D measured at 50, 1.25 D
+    // usable) with a paper document where the monitor was: 65 cm needs
+    // 1.54 D, short by 0.29 D. A paper is no display: moving a screen and
+    // enlarging its text are workstation changes for screens only
+    // (Directive 90/270/EEC, Annex, point 1(b)), so the task goes on to the
+    // eyewear question. The plain shortfall of 0.29 D rounds up to +0.50 D
+    // on the 0.25 D grid; counting the depth of focus may leave +0.25 D.
+    let mut doc = task("document", 0.65, -10.0, 4.0);
+    doc.detail_mm = 3.5;
+    let s = sheet(2.5, 50.0, vec![doc], None);
+    let t = &s.tasks[0];
+    let Flag::TaskEyewear { reasons, addition } = &t.flag else {
+        panic!("expected task eyewear, got {:?}", t.flag);
+    };
+    assert!(
+        matches!(reasons[0], Reason::ShortOfFocus { short_by, .. } if (short_by.0 - 0.288).abs() < 0.005)
+    );
+    assert!(
+        addition.0 == 0.25 || addition.0 == 0.5,
+        "addition {addition:?}"
+    );
+}
+
+#[test]
+fn a_screen_in_a_vehicle_is_not_moved() {
+    // The same shortfall on a driving task marked as a screen (a dashboard
+    // display): the vehicle is no workstation to rearrange, so no change is
+    // offered, whatever the screen flag says.
+    let mut dash = screen(0.65, -10.0, 3.5);
+    dash.flags.driving = true;
+    let s = sheet(2.5, 50.0, vec![dash], None);
+    let t = &s.tasks[0];
+    assert!(
+        !matches!(t.flag, Flag::WorkstationChange { .. }),
+        "no change for a driving task: {:?}",
+        t.flag
+    );
+    assert_ne!(t.flag, Flag::Fine, "still short by about 0.29 D");
+}
+
+#[test]
+fn the_sheet_words_carry_the_figures_worked_above() {
+    // The worker just out of reach (2.50 D measured at 50, 1.25 D usable):
+    // 65 cm needs 1/0.65 = 1.54 D, short by 0.29 D; 3.5 mm at 65 cm is
+    // 18.5' against ISO 9241-3:1992's 16' minimum and 20-22' preferred.
+    let s = sheet(2.5, 50.0, vec![screen(0.65, -10.0, 3.5)], None);
+    let t = &s.tasks[0];
+    assert_eq!(
+        t.focus_words(),
+        "needs 1.54 D, has 1.25 D comfortably, short by 0.29 D"
+    );
+    assert_eq!(
+        t.detail_words(),
+        "18.5′; display text: at least 16′, 20′ or more preferred (ISO 9241-3:1992)"
+    );
+    assert_eq!(t.posture_words(), "head upright: comfortable");
+    // 2.50 D is exactly Hofstetter's minimum at 50 (15 - 12.5): not below.
+    assert_eq!(
+        s.age_norm_words().as_deref(),
+        Some("Measured 2.50 D against 2.50 D, the minimum expected at this age (Hofstetter).")
+    );
+
+    // With 4.00 D measured, 2.00 D is usable and nothing is short.
+    let fine = sheet(4.0, 50.0, vec![screen(0.65, -10.0, 3.5)], None);
+    assert_eq!(
+        fine.tasks[0].focus_words(),
+        "needs 1.54 D, has 2.00 D comfortably"
+    );
+
+    // A paper is no display text: its angle is given without the guidance.
+    let mut doc = task("document", 0.42, -30.0, 2.0);
+    doc.detail_mm = 1.5;
+    // 2 atan(1.5 / (2 x 420)) = 0.003571 rad = 12.3'.
+    let d = sheet(1.0, 60.0, vec![doc], None);
+    assert_eq!(d.tasks[0].detail_words(), "12.3′ (not display text)");
+}
+
+#[test]
+fn the_sheet_words_name_a_forced_chin_lift_and_a_low_amplitude() {
+    let glasses = FamilyChoice::Progressive {
+        addition_d: Some(2.0),
+        progression_length_mm: Some(14.0),
+    };
+    let s = sheet(1.0, 60.0, vec![screen(0.65, -15.0, 4.0)], Some(glasses));
+    let t = &s.tasks[0];
+    assert!(
+        t.posture_words()
+            .starts_with(&format!("chin up {:.0}°: ", t.chin_up.0)),
+        "{}",
+        t.posture_words()
+    );
+    // At 40 the minimum is 15 - 10 = 5.00 D; 2.50 D is 2.50 D below it.
+    let low = sheet(2.5, 40.0, vec![screen(0.5, -15.0, 3.5)], None);
+    let words = low.age_norm_words().unwrap_or_default();
+    assert!(
+        words.starts_with("Measured 2.50 D against 5.00 D") && words.contains("far below"),
+        "{words}"
+    );
+}

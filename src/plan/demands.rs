@@ -359,7 +359,7 @@ pub fn demand_sheet(scenario: &ValidScenario) -> Result<DemandSheet, DemandError
             });
             Flag::Refer { reasons: r }
         } else {
-            let changes = changes_for(s, i, tp, t.flags.screen);
+            let changes = changes_for(s, i, tp);
             let cleared = if changes.is_empty() {
                 false
             } else {
@@ -525,12 +525,20 @@ fn problems(tp: &TaskPlan, screen: bool, arcmin: f64, amplitude: &AmplitudeUsed)
 
 /// The workstation changes that would clear task `i` seen as `tp`: a new
 /// distance inside the comfortable range at its lens point, a new height
-/// that undoes the head tilt, and for screen text a character height at
-/// the preferred size for the (new) distance.
-fn changes_for(s: &Scenario, i: usize, tp: &TaskPlan, screen: bool) -> Vec<Change> {
+/// that undoes the head tilt, and a character height at the preferred size
+/// for the (new) distance. Only a display screen is a workstation part that
+/// can be moved, raised or given larger text (Directive 90/270/EEC, Annex,
+/// point 1(b), from memory: characters of adequate size, a screen that
+/// swivels and tilts, on a separate base or an adjustable table); a paper, a
+/// bench, a dashboard or a mirror gets none of these, and a driving task
+/// none at all, so other tasks go on to the eyewear question.
+fn changes_for(s: &Scenario, i: usize, tp: &TaskPlan) -> Vec<Change> {
     let Some(t) = s.tasks.get(i) else {
         return Vec::new();
     };
+    if !t.flags.screen || t.flags.driving {
+        return Vec::new();
+    }
     let mut out = Vec::new();
     let mut distance = t.distance_m;
     if tp.verdict != Verdict::Comfortable {
@@ -567,7 +575,7 @@ fn changes_for(s: &Scenario, i: usize, tp: &TaskPlan, screen: bool) -> Vec<Chang
             height_change: Metres(height(to, distance) - height(now, t.distance_m)),
         });
     }
-    if screen && subtended_arcmin(t.detail_mm, distance) < CHARACTER_HEIGHT_MIN_ARCMIN {
+    if subtended_arcmin(t.detail_mm, distance) < CHARACTER_HEIGHT_MIN_ARCMIN {
         let to_mm =
             (size_for_arcmin(CHARACTER_HEIGHT_PREFERRED_ARCMIN, distance) * 10.0).ceil() / 10.0;
         out.push(Change::EnlargeText {

@@ -14,6 +14,9 @@ pub const CHARACTER_HEIGHT_MIN_ARCMIN: f64 = 16.0;
 /// tasks" (same source as [`CHARACTER_HEIGHT_MIN_ARCMIN`]).
 pub const CHARACTER_HEIGHT_PREFERRED_ARCMIN: f64 = 20.0;
 
+/// Where the character heights above come from, as the sheet names them.
+pub const CHARACTER_HEIGHT_SOURCE: &str = "ISO 9241-3:1992";
+
 /// How far a measured amplitude of accommodation may fall below Hofstetter's
 /// minimum for the age before the sheet suggests an eye examination, in
 /// dioptres: an amplitude 2 D or more below the age minimum is the usual

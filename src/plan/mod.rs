@@ -12,11 +12,13 @@
 //! driving, judged by [`driving`], last when the day includes driving);
 //! [`cautions`] adds the warnings; [`text`] renders the plan for the
 //! command line. [`demands`] builds the occupational-health task-demand
-//! sheet on top of the plan (reference values in [`ergonomics`]), and
+//! sheet on top of the plan (reference values in [`ergonomics`], its
+//! figures in words in [`demand_words`]), and
 //! [`roster`] screens a team with it.
 
 pub mod cautions;
 pub mod context;
+pub mod demand_words;
 pub mod demands;
 pub mod driving;
 pub mod ergonomics;

@@ -1,5 +1,6 @@
 //! The top-level layout of the app: masthead, the input panels and the outcome.
 
+use super::demands::WorkVisionLauncher;
 use super::options_panel::OptionsPanel;
 use super::outcome::OutcomePanel;
 use super::shelf_panel::{NoticeBar, ShelfPanel};
@@ -62,6 +63,7 @@ pub fn App() -> impl IntoView {
                 <a href="#options-heading">"Lens options"</a>
                 <a href="#outcome-heading">"Plan"</a>
             </nav>
+            <WorkVisionLauncher />
             <button type="button" data-testid="unit-toggle" on:click=toggle_unit>
                 {unit_label}
             </button>

@@ -6,10 +6,16 @@ use wasm_bindgen_futures::JsFuture;
 
 /// Offers `text` to the user as a JSON file named `file_name`.
 pub fn download_json(file_name: &str, text: &str) -> Result<(), String> {
+    download_text(file_name, "application/json", text)
+}
+
+/// Offers `text` to the user as a file named `file_name` of media type
+/// `mime` (a Blob behind an object address: nothing leaves the device).
+pub fn download_text(file_name: &str, mime: &str, text: &str) -> Result<(), String> {
     let fail = |what: &str| format!("the file could not be offered for download ({what})");
     let parts = js_sys::Array::of1(&text.into());
     let options = web_sys::BlobPropertyBag::new();
-    options.set_type("application/json");
+    options.set_type(mime);
     let blob = web_sys::Blob::new_with_str_sequence_and_options(&parts, &options)
         .map_err(|_| fail("blob"))?;
     let url = web_sys::Url::create_object_url_with_blob(&blob).map_err(|_| fail("address"))?;
@@ -32,10 +38,19 @@ pub fn download_json(file_name: &str, text: &str) -> Result<(), String> {
 /// Reads the text of a file the user picked, refusing files larger than
 /// `max_bytes` before reading them.
 pub async fn read_text(file: web_sys::File, max_bytes: usize) -> Result<String, String> {
+    read_text_or_advise(file, max_bytes, "export fewer scenarios per file").await
+}
+
+/// Like [`read_text`], with `advice` on what to do with a file too large.
+pub async fn read_text_or_advise(
+    file: web_sys::File,
+    max_bytes: usize,
+    advice: &str,
+) -> Result<String, String> {
     let size = file.size();
     if size > max_bytes as f64 {
         return Err(format!(
-            "the file is {:.1} MiB, more than the {} MiB allowed; export fewer scenarios per file",
+            "the file is {:.1} MiB, more than the {} MiB allowed; {advice}",
             size / 1_048_576.0,
             max_bytes / 1_048_576
         ));

@@ -3,6 +3,7 @@
 
 mod app;
 mod bind;
+mod demands;
 mod fields;
 mod files;
 mod locks;
