@@ -207,6 +207,58 @@ impl LensFrame {
     }
 }
 
+/// Height of a point label's box, in SVG units (12-unit bold type).
+const LABEL_HEIGHT: f64 = 14.0;
+/// Width of one character of a point label, in SVG units (bold, generous).
+const LABEL_CHAR_WIDTH: f64 = 7.8;
+/// Half the side of the square kept clear around the fitting cross.
+const CROSS_CLEARANCE: f64 = 10.0;
+
+/// Where to write the labels of task points so that no label covers
+/// another or the fitting cross: each point is `(x, y, characters)` in SVG
+/// units, the cross is at `cross`; the result is each label's left end and
+/// baseline. A label goes right of its dot when it can, else left of it,
+/// moved up or down a line at a time until it is clear (after six lines
+/// either way it is written where it first would be).
+pub fn label_places(points: &[(f64, f64, usize)], cross: (f64, f64)) -> Vec<(f64, f64)> {
+    /// A box as left, top, right, bottom.
+    type Box = (f64, f64, f64, f64);
+    let overlaps = |a: Box, b: Box| a.0 < b.2 && b.0 < a.2 && a.1 < b.3 && b.1 < a.3;
+    let mut taken: Vec<Box> = vec![(
+        cross.0 - CROSS_CLEARANCE,
+        cross.1 - CROSS_CLEARANCE,
+        cross.0 + CROSS_CLEARANCE,
+        cross.1 + CROSS_CLEARANCE,
+    )];
+    // Every dot is taken too, so no label covers another task's dot.
+    taken.extend(
+        points
+            .iter()
+            .map(|&(x, y, _)| (x - 5.0, y - 5.0, x + 5.0, y + 5.0)),
+    );
+    let mut places = Vec::with_capacity(points.len());
+    for &(x, y, characters) in points {
+        let width = characters as f64 * LABEL_CHAR_WIDTH;
+        let candidate = |line: i32, right: bool| {
+            let left = if right { x + 8.0 } else { x - 8.0 - width };
+            let baseline = y + 4.0 + f64::from(line) * LABEL_HEIGHT;
+            (
+                left,
+                baseline,
+                (left, baseline - 11.0, left + width, baseline + 3.0),
+            )
+        };
+        let lines = (0..=6).flat_map(|n: i32| if n == 0 { vec![0] } else { vec![n, -n] });
+        let found = lines
+            .flat_map(|line| [candidate(line, true), candidate(line, false)])
+            .find(|&(_, _, b)| taken.iter().all(|&t| !overlaps(b, t)));
+        let (left, baseline, b) = found.unwrap_or_else(|| candidate(0, true));
+        taken.push(b);
+        places.push((left, baseline));
+    }
+    places
+}
+
 /// A fill colour for a local addition out of `max_d`: a single-hue ramp from
 /// near-white (no addition) to deep blue (full addition), which reads in
 /// greyscale and for every common colour-vision deficiency.
@@ -292,6 +344,32 @@ mod tests {
         assert!(flat_runs
             .iter()
             .all(|r| (r.width - grid_width).abs() < 1e-9));
+    }
+
+    #[test]
+    fn labels_of_points_at_one_place_do_not_cover_each_other_or_the_cross() {
+        // Two tasks seen at the same point of the lens, beside the fitting
+        // cross: both labels are written, one a line away from the other,
+        // and neither covers the cross.
+        let places = label_places(&[(100.0, 50.0, 8), (100.0, 50.0, 8)], (108.0, 54.0));
+        assert_eq!(places.len(), 2);
+        let (a, b) = (places[0], places[1]);
+        assert!((a.1 - b.1).abs() >= LABEL_HEIGHT || (a.0 - b.0).abs() >= 8.0 * LABEL_CHAR_WIDTH);
+        for (left, baseline) in places {
+            let clear_of_cross = left > 118.0
+                || left + 8.0 * LABEL_CHAR_WIDTH < 98.0
+                || baseline - 11.0 > 64.0
+                || baseline + 3.0 < 44.0;
+            assert!(
+                clear_of_cross,
+                "label at ({left}, {baseline}) covers the cross"
+            );
+        }
+        // A lone point far from the cross keeps its label right of the dot.
+        assert_eq!(
+            label_places(&[(10.0, 10.0, 4)], (200.0, 200.0)),
+            vec![(18.0, 14.0)]
+        );
     }
 
     #[test]

@@ -50,6 +50,37 @@ pub struct TaskMarker {
     pub x: f64,
     /// The task distance, in metres.
     pub distance_m: f64,
+    /// The marker's lane above the rows, 0 nearest: markers closer than
+    /// [`MARKER_SPACING`] to one on a lower lane move up a lane, so none
+    /// covers another.
+    pub lane: usize,
+}
+
+/// The least distance between the centres of two markers on one lane, in
+/// SVG units: a marker's diameter and a little air.
+pub const MARKER_SPACING: f64 = 30.0;
+
+/// Lanes for markers at `xs` (SVG x, any order): each marker takes the
+/// lowest lane whose markers all stand at least [`MARKER_SPACING`] away.
+fn lanes(xs: &[f64]) -> Vec<usize> {
+    let mut order: Vec<usize> = (0..xs.len()).collect();
+    order.sort_by(|&a, &b| xs[a].total_cmp(&xs[b]));
+    // The x of the last marker placed on each lane, left to right.
+    let mut last: Vec<f64> = Vec::new();
+    let mut lane_of = vec![0; xs.len()];
+    for i in order {
+        let lane = last
+            .iter()
+            .position(|&x| xs[i] - x >= MARKER_SPACING)
+            .unwrap_or(last.len());
+        if lane == last.len() {
+            last.push(xs[i]);
+        } else {
+            last[lane] = xs[i];
+        }
+        lane_of[i] = lane;
+    }
+    lane_of
 }
 
 fn span(range: &ZoneRange, axis: &DioptricAxis) -> Option<Span> {
@@ -91,13 +122,20 @@ pub fn range_rows(plan: &Plan, option: &OptionPlan, axis: &DioptricAxis) -> Vec<
 
 /// A marker for every task of `plan`, in task order, placed on `axis`.
 pub fn task_markers(plan: &Plan, axis: &DioptricAxis) -> Vec<TaskMarker> {
+    let xs: Vec<f64> = plan
+        .tasks
+        .iter()
+        .map(|t| axis.x_of_distance(Some(t.distance.0)))
+        .collect();
     plan.tasks
         .iter()
-        .map(|t| TaskMarker {
+        .zip(xs.iter().zip(lanes(&xs)))
+        .map(|(t, (&x, lane))| TaskMarker {
             index: t.task.index,
             name: t.task.name.clone(),
-            x: axis.x_of_distance(Some(t.distance.0)),
+            x,
             distance_m: t.distance.0,
+            lane,
         })
         .collect()
 }
@@ -158,6 +196,16 @@ mod tests {
             comfortable: None,
             words: String::new(),
         }
+    }
+
+    #[test]
+    fn markers_too_close_take_separate_lanes() {
+        // 67 cm and 70 cm sit a few units apart: the second goes up a lane;
+        // a marker far from both comes back to the lowest lane.
+        assert_eq!(lanes(&[100.0, 110.0, 300.0]), vec![0, 1, 0]);
+        assert_eq!(lanes(&[110.0, 100.0, 105.0]), vec![2, 0, 1]);
+        assert_eq!(lanes(&[0.0, 30.0, 60.0]), vec![0, 0, 0]);
+        assert!(lanes(&[]).is_empty());
     }
 
     #[test]

@@ -2,7 +2,7 @@
 
 use super::demands::WorkVisionLauncher;
 use super::options_panel::OptionsPanel;
-use super::outcome::OutcomePanel;
+use super::outcome::{OutcomePanel, PlanPeek};
 use super::shelf_panel::{NoticeBar, ShelfPanel};
 use super::state::provide_app_state;
 use super::tasks_panel::TasksPanel;
@@ -82,5 +82,6 @@ pub fn App() -> impl IntoView {
             </div>
             <OutcomePanel />
         </main>
+        <PlanPeek />
     }
 }

@@ -21,6 +21,21 @@ fn act(state: AppState, op: impl FnOnce(&mut BrowserSession, u64) -> Option<Scen
     state.shelf.in_turn(op, move |shown| state.show(shown));
 }
 
+/// Moves keyboard focus to the element with test id `id`, if it is there.
+fn focus_test_id(id: &str) {
+    let element = web_sys::window()
+        .and_then(|w| w.document())
+        .and_then(|d| {
+            d.query_selector(&format!("[data-testid=\"{id}\"]"))
+                .ok()
+                .flatten()
+        })
+        .and_then(|e| e.dyn_into::<web_sys::HtmlElement>().ok());
+    if let Some(element) = element {
+        let _ = element.focus();
+    }
+}
+
 /// Opens entry `id` in the editor.
 fn open_entry(state: AppState, id: &EntryId) {
     state.show(state.shelf.run(|s| s.open_entry(id)).flatten());
@@ -141,7 +156,16 @@ pub fn ShelfPanel() -> impl IntoView {
         }
     };
     let current = move || shelf.current.get();
-    let new_scenario = move |_| act(state, |s, now| s.create_untitled(now));
+    // A new scenario is named first: focus goes to its name.
+    let new_scenario = move |_| {
+        state.shelf.in_turn(
+            |s, now| s.create_untitled(now),
+            move |shown| {
+                state.show(shown);
+                focus_test_id("scenario-name");
+            },
+        )
+    };
     let duplicate = move |_| act(state, |s, now| s.duplicate(now));
     let delete = move |_| act(state, |s, _| s.delete());
     let export_current = move |_| {

@@ -7,7 +7,7 @@
 //! follow every edit (keyed, so only the points that moved are redrawn).
 
 use crate::chart::coord::Coord;
-use crate::chart::lens_map::{LensFrame, ShadeRun};
+use crate::chart::lens_map::{label_places, LensFrame, ShadeRun};
 use crate::core::lens::LensDesign;
 use crate::core::units::{Dioptres, Millimetres};
 use crate::plan::{context::TOLERATED_ASTIGMATISM_D, OptionPlan};
@@ -69,6 +69,8 @@ struct PointMark {
     index: usize,
     x: Coord,
     y: Coord,
+    label_x: Coord,
+    label_y: Coord,
     label: String,
     tooltip: String,
 }
@@ -102,15 +104,34 @@ fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
         Dioptres(TOLERATED_ASTIGMATISM_D),
         Millimetres(lens_to_cor),
     );
+    let (fx, fy) = (frame.x(0.0), frame.y(0.0));
     let points = move || {
         chosen.with(|o| {
-            o.iter()
-                .flat_map(|o| o.tasks.iter())
-                .map(|t| PointMark {
+            let tasks: Vec<_> = o.iter().flat_map(|o| o.tasks.iter()).collect();
+            let labels: Vec<String> = tasks
+                .iter()
+                .map(|t| format!("{} {}", t.task.index + 1, t.local_power.addition))
+                .collect();
+            let dots: Vec<(f64, f64, usize)> = tasks
+                .iter()
+                .zip(&labels)
+                .map(|(t, l)| {
+                    let (x, y) = (frame.x(t.lens_point.x.0), frame.y(t.lens_point.y.0));
+                    (x, y, l.chars().count())
+                })
+                .collect();
+            let places = label_places(&dots, (fx, fy));
+            tasks
+                .iter()
+                .zip(dots.iter().zip(places))
+                .zip(labels)
+                .map(|((t, (&(x, y, _), (lx, ly))), label)| PointMark {
                     index: t.task.index,
-                    x: Coord::of(frame.x(t.lens_point.x.0)),
-                    y: Coord::of(frame.y(t.lens_point.y.0)),
-                    label: format!("{} {}", t.task.index + 1, t.local_power.addition),
+                    x: Coord::of(x),
+                    y: Coord::of(y),
+                    label_x: Coord::of(lx),
+                    label_y: Coord::of(ly),
+                    label,
                     tooltip: format!(
                         "{}. {}: {} zone, addition {}, {}",
                         t.task.index + 1,
@@ -129,11 +150,10 @@ fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
             <g class="lens-point" on:click=move |_| state.chosen_task.set(Some(index))>
                 <title>{p.tooltip}</title>
                 <circle cx=p.x.get() cy=p.y.get() r="5" />
-                <text x=p.x.plus(8.0) y=p.y.plus(4.0)>{p.label}</text>
+                <text x=p.label_x.get() y=p.label_y.get()>{p.label}</text>
             </g>
         }
     };
-    let (fx, fy) = (frame.x(0.0), frame.y(0.0));
     let outline = frame.outline();
     let label = move || {
         chosen.with(|o| {

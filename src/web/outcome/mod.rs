@@ -9,6 +9,7 @@ mod lens_map;
 mod marks;
 mod matrix;
 mod order_sheet;
+mod peek;
 mod range_chart;
 
 use crate::plan::text::{amplitude_line, family_name, pupil_line, refraction_line};
@@ -20,6 +21,8 @@ use leptos::prelude::*;
 use marks::verdict_mark;
 use matrix::Comparison;
 use range_chart::RangeChart;
+
+pub use peek::PlanPeek;
 
 /// The recommended (best-ranked) option with its parameters and reasons.
 fn recommendation(best: &OptionPlan) -> impl IntoView {

@@ -8,7 +8,9 @@
 
 use super::marks::verdict_mark;
 use crate::chart::coord::Coord;
-use crate::chart::range_rows::{axis_for, range_rows, row_label, task_markers, Span};
+use crate::chart::range_rows::{
+    axis_for, range_rows, row_label, task_markers, Span, MARKER_SPACING,
+};
 use crate::core::units::Metres;
 use crate::display::{trim_number, LengthUnit};
 use crate::plan::{OptionPlan, Plan};
@@ -19,6 +21,7 @@ const WIDTH: f64 = 820.0;
 const LABEL_END: f64 = 250.0;
 const X_NEAR: f64 = 270.0;
 const X_FAR: f64 = 800.0;
+/// Top of the first row when every task marker fits on one lane.
 const TOP: f64 = 70.0;
 /// Side of the square that takes a tap on a task marker, in SVG units: about
 /// 44 px or more at the widths the chart is drawn (touch-target size, WCAG 2.5.5).
@@ -52,11 +55,12 @@ struct RowMark {
     x_task: Coord,
 }
 
-/// A numbered task marker above the rows, as drawn.
+/// A numbered task marker above the rows, as drawn; `y` is its centre.
 #[derive(Clone, PartialEq, Eq, Hash)]
 struct TaskMark {
     index: usize,
     x: Coord,
+    y: Coord,
     label: String,
 }
 
@@ -65,6 +69,7 @@ struct TaskMark {
 struct Drawing {
     caption: String,
     height: Coord,
+    top: Coord,
     bottom: Coord,
     ticks: Vec<TickMark>,
     rows: Vec<RowMark>,
@@ -82,7 +87,10 @@ fn band(span: Option<Span>) -> Option<BandMark> {
 fn drawing(plan: &Plan, option: &OptionPlan, unit: LengthUnit) -> Drawing {
     let axis = axis_for(plan, X_NEAR, X_FAR);
     let rows = range_rows(plan, option, &axis);
-    let bottom = TOP + rows.len() as f64 * ROW;
+    let markers = task_markers(plan, &axis);
+    let lanes = markers.iter().map(|m| m.lane).max().unwrap_or(0);
+    let top = TOP + lanes as f64 * MARKER_SPACING;
+    let bottom = top + rows.len() as f64 * ROW;
     let ticks = axis
         .ticks(unit)
         .into_iter()
@@ -95,7 +103,7 @@ fn drawing(plan: &Plan, option: &OptionPlan, unit: LengthUnit) -> Drawing {
         .into_iter()
         .enumerate()
         .map(|(i, r)| {
-            let y = TOP + i as f64 * ROW;
+            let y = top + i as f64 * ROW;
             let (symbol, class, _) = verdict_mark(r.focus);
             RowMark {
                 y: Coord::of(y),
@@ -117,11 +125,12 @@ fn drawing(plan: &Plan, option: &OptionPlan, unit: LengthUnit) -> Drawing {
             }
         })
         .collect();
-    let markers = task_markers(plan, &axis)
+    let markers = markers
         .into_iter()
         .map(|m| TaskMark {
             index: m.index,
             x: Coord::of(m.x),
+            y: Coord::of(top - 40.0 - m.lane as f64 * MARKER_SPACING),
             label: format!(
                 "{}. {} at {} {}",
                 m.index + 1,
@@ -134,6 +143,7 @@ fn drawing(plan: &Plan, option: &OptionPlan, unit: LengthUnit) -> Drawing {
     Drawing {
         caption: format!("#{} {}: ", option.rank, option.option.label),
         height: Coord::of(bottom + 36.0),
+        top: Coord::of(top),
         bottom: Coord::of(bottom),
         ticks,
         rows,
@@ -154,11 +164,12 @@ pub fn RangeChart() -> impl IntoView {
                 .unwrap_or_default()
         })
     });
+    let top = move |offset: f64| shown.with(|d| d.top.plus(offset));
     let bottom = move |offset: f64| shown.with(|d| d.bottom.plus(offset));
     let tick = move |t: TickMark| {
         let x = t.x.get();
         view! {
-            <line class="grid" x1=x x2=x y1={TOP - 4.0} y2=move || bottom(0.0) />
+            <line class="grid" x1=x x2=x y1=move || top(-4.0) y2=move || bottom(0.0) />
             <text class="tick" x=x y=move || bottom(18.0) text-anchor="middle">{t.label}</text>
         }
     };
@@ -198,10 +209,10 @@ pub fn RangeChart() -> impl IntoView {
                 }
             >
                 <title>{m.label}</title>
-                <rect class="hit" x=m.x.plus(-HIT / 2.0) y={TOP - 8.0 - HIT} width=HIT height=HIT />
-                <line x1=m.x.get() x2=m.x.get() y1={TOP - 10.0} y2=move || bottom(0.0) />
-                <circle cx=m.x.get() cy={TOP - 40.0} r="13" />
-                <text x=m.x.get() y={TOP - 35.0} text-anchor="middle">{(index + 1).to_string()}</text>
+                <rect class="hit" x=m.x.plus(-HIT / 2.0) y=m.y.plus(-HIT / 2.0 - 6.0) width=HIT height=HIT />
+                <line x1=m.x.get() x2=m.x.get() y1=m.y.plus(13.0) y2=move || bottom(0.0) />
+                <circle cx=m.x.get() cy=m.y.get() r="13" />
+                <text x=m.x.get() y=m.y.plus(5.0) text-anchor="middle">{(index + 1).to_string()}</text>
             </g>
         }
     };

@@ -27,6 +27,10 @@ async function newScenario(options) {
 test("a new scenario with an age and a monitor distance gets a plan", async () => {
   const { context, page, planner } = await newScenario();
   assert.equal(await planner.taskCount(), 1, "a new scenario starts with one task");
+  await assert.doesNotReject(
+    page.waitForFunction(() => document.activeElement?.dataset.testid === "scenario-name"),
+    "after New, focus is on the scenario's name",
+  );
 
   await planner.fieldByLabel("Age").fill("52");
   await planner.byTestId("task-0-name").fill("Monitor");
@@ -49,6 +53,40 @@ test("a new scenario with an age and a monitor distance gets a plan", async () =
   assert.match(await planner.byTestId("cautions").textContent(), /planning aid/i);
   assert.equal(await page.getByTestId("stale").count(), 0);
 
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
+test("on a tablet in portrait the plan at a glance follows an edit and leads to the plan and back", async () => {
+  const { context, page, planner } = await newScenario({ viewport: VIEWPORTS.tabletPortrait });
+  const peek = planner.byTestId("plan-peek");
+  await peek.waitFor();
+  await planner.setNumber(DISTANCE, "35");
+  await assert.doesNotReject(
+    page.waitForFunction(() => /\d comfortable, \d tiring, \d blurred$/.test(
+      document.querySelector('[data-testid="plan-peek"] p')?.textContent ?? "")),
+    "the bar counts the tasks by verdict",
+  );
+  const before = await page.evaluate(() => window.scrollY);
+  await peek.getByRole("button", { name: "See the plan" }).click();
+  await page.waitForFunction((y) => window.scrollY > y + 200, before);
+  await peek.getByRole("button", { name: "Back to the form" }).click();
+  await page.waitForFunction((y) => Math.abs(window.scrollY - y) < 2, before);
+  await screenshot(page, "tablet-portrait-peek");
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
+test("on a desktop the plan stays in view while the form scrolls", async () => {
+  const { context, page, planner } = await newScenario({ viewport: VIEWPORTS.desktop });
+  await planner.byTestId("recommendation").waitFor();
+  await page.evaluate(() => window.scrollTo(0, document.body.scrollHeight));
+  const { top, bottom, height } = await page.evaluate(() => {
+    const box = document.querySelector('[data-testid="outcome"]').getBoundingClientRect();
+    return { top: box.top, bottom: box.bottom, height: window.innerHeight };
+  });
+  assert.ok(top > -2 && bottom < height + 2, `the plan spans ${top} to ${bottom} px of a ${height} px window`);
+  assert.equal(await planner.byTestId("plan-peek").isVisible(), false, "no bar on a wide screen");
   assert.deepEqual(page.problems(), []);
   await context.close();
 });
