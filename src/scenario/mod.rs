@@ -1,9 +1,11 @@
-//! The planning case as the user enters and saves it, and the single gate
-//! that checks it before the optics runs.
+//! The planning case as the user enters and saves it, the table of its
+//! editable numbers (`fields`), and the single gate that checks it before
+//! the optics runs.
 
 mod convert;
 mod defaults;
 mod edit;
+pub mod fields;
 mod model;
 mod validate;
 

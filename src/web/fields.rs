@@ -64,12 +64,24 @@ pub fn NumberField(
     /// written on prescriptions ("+0.75").
     #[prop(optional)]
     signed: bool,
+    /// A short help text (what the number is, how it is measured, the
+    /// usual range), opened by a button beside the label and read out as
+    /// the input's description.
+    #[prop(optional, into)]
+    help: String,
     /// A test id for the browser journeys.
     #[prop(optional, into)]
     test_id: String,
 ) -> impl IntoView {
     let id = unique_id("field");
     let message_id = format!("{id}-msg");
+    let help_id = format!("{id}-help");
+    let help_open = RwSignal::new(false);
+    let described_by = if help.is_empty() {
+        message_id.clone()
+    } else {
+        format!("{help_id} {message_id}")
+    };
     let state = use_app_state();
     // What the user typed, the value the field held then, and the era it was typed in.
     let typed: RwSignal<Option<(String, Option<f64>, u64)>> = RwSignal::new(None);
@@ -136,7 +148,24 @@ pub fn NumberField(
     });
     view! {
         <div class="field" class:invalid=move || message().is_some()>
-            <label for=id.clone()>{label}</label>
+            <span class="label-row">
+                <label for=id.clone()>{label}</label>
+                {(!help.is_empty())
+                    .then(|| {
+                        view! {
+                            <button
+                                type="button"
+                                class="help-toggle"
+                                aria-label="Help"
+                                aria-controls=help_id.clone()
+                                aria-expanded=move || help_open.get().to_string()
+                                on:click=move |_| help_open.update(|open| *open = !*open)
+                            >
+                                <span aria-hidden="true">"?"</span>
+                            </button>
+                        }
+                    })}
+            </span>
             <span class="entry">
                 <input
                     id=id
@@ -147,11 +176,19 @@ pub fn NumberField(
                     data-testid=test_id
                     prop:value=text
                     aria-invalid=move || if message().is_some() { "true" } else { "false" }
-                    aria-describedby=message_id.clone()
+                    aria-describedby=described_by
                     on:input=on_text
                 />
                 <span class="unit">{unit}</span>
             </span>
+            {(!help.is_empty())
+                .then(|| {
+                    view! {
+                        <small class="help" id=help_id hidden=move || !help_open.get()>
+                            {help}
+                        </small>
+                    }
+                })}
             <span class="message" id=message_id aria-live="polite">
                 {message}
             </span>

@@ -1,10 +1,11 @@
 //! The lens-options panel: which families to compare, with each parameter
 //! either fixed by the user or left empty for the planner to choose.
 
-use super::bind::{scenario_number, Shown};
+use super::bind::number_field;
 use super::fields::{ChoiceField, TextField};
 use super::state::use_app_state;
-use crate::scenario::{FamilyChoice, LensOption, Scenario, MAX_OPTIONS};
+use crate::scenario::fields::lens_field;
+use crate::scenario::{FamilyChoice, LensOption, MAX_OPTIONS};
 use leptos::prelude::*;
 
 /// Machine value and words for each family, in the order offered.
@@ -56,146 +57,6 @@ fn open_family(key: &str) -> FamilyChoice {
         },
         _ => FamilyChoice::SingleVision { addition_d: None },
     }
-}
-
-/// One open parameter of a family: its label, field name, unit, and how to
-/// reach it inside the family choice.
-struct Parameter {
-    label: &'static str,
-    field: &'static str,
-    unit: &'static str,
-    slot: fn(&mut FamilyChoice) -> Option<&mut Option<f64>>,
-}
-
-/// The parameters of the family with machine value `key`.
-fn parameters(key: &str) -> Vec<Parameter> {
-    let p = |label, field, unit, slot| Parameter {
-        label,
-        field,
-        unit,
-        slot,
-    };
-    match key {
-        "single_vision" => vec![p("Addition", "addition_d", "D", |f| match f {
-            FamilyChoice::SingleVision { addition_d } => Some(addition_d),
-            _ => None,
-        })],
-        "bifocal" => vec![
-            p("Addition", "addition_d", "D", |f| match f {
-                FamilyChoice::Bifocal { addition_d, .. } => Some(addition_d),
-                _ => None,
-            }),
-            p(
-                "Segment top from fitting point",
-                "segment_top_mm",
-                "mm",
-                |f| match f {
-                    FamilyChoice::Bifocal { segment_top_mm, .. } => Some(segment_top_mm),
-                    _ => None,
-                },
-            ),
-        ],
-        "trifocal" => vec![
-            p("Addition", "addition_d", "D", |f| match f {
-                FamilyChoice::Trifocal { addition_d, .. } => Some(addition_d),
-                _ => None,
-            }),
-            p(
-                "Intermediate share of addition",
-                "intermediate_ratio",
-                "",
-                |f| match f {
-                    FamilyChoice::Trifocal {
-                        intermediate_ratio, ..
-                    } => Some(intermediate_ratio),
-                    _ => None,
-                },
-            ),
-            p(
-                "Segment top from fitting point",
-                "segment_top_mm",
-                "mm",
-                |f| match f {
-                    FamilyChoice::Trifocal { segment_top_mm, .. } => Some(segment_top_mm),
-                    _ => None,
-                },
-            ),
-        ],
-        "progressive" => vec![
-            p("Addition", "addition_d", "D", |f| match f {
-                FamilyChoice::Progressive { addition_d, .. } => Some(addition_d),
-                _ => None,
-            }),
-            p(
-                "Progression length",
-                "progression_length_mm",
-                "mm",
-                |f| match f {
-                    FamilyChoice::Progressive {
-                        progression_length_mm,
-                        ..
-                    } => Some(progression_length_mm),
-                    _ => None,
-                },
-            ),
-        ],
-        "degressive" => vec![
-            p("Near addition", "near_addition_d", "D", |f| match f {
-                FamilyChoice::Degressive {
-                    near_addition_d, ..
-                } => Some(near_addition_d),
-                _ => None,
-            }),
-            p("Degression", "degression_d", "D", |f| match f {
-                FamilyChoice::Degressive { degression_d, .. } => Some(degression_d),
-                _ => None,
-            }),
-        ],
-        _ => vec![
-            p("Addition", "addition_d", "D", |f| match f {
-                FamilyChoice::DoubleSegment { addition_d, .. } => Some(addition_d),
-                _ => None,
-            }),
-            p("Lower segment top", "lower_top_mm", "mm", |f| match f {
-                FamilyChoice::DoubleSegment { lower_top_mm, .. } => Some(lower_top_mm),
-                _ => None,
-            }),
-            p(
-                "Upper segment bottom",
-                "upper_bottom_mm",
-                "mm",
-                |f| match f {
-                    FamilyChoice::DoubleSegment {
-                        upper_bottom_mm, ..
-                    } => Some(upper_bottom_mm),
-                    _ => None,
-                },
-            ),
-        ],
-    }
-}
-
-/// The parameter field `param` of option `i`.
-fn parameter_field(i: usize, param: Parameter) -> impl IntoView {
-    let slot = param.slot;
-    let get = move |s: &Scenario| {
-        s.options
-            .get(i)
-            .and_then(|o| slot(&mut o.family.clone()).and_then(|v| *v))
-    };
-    let set = move |s: &mut Scenario, v: Option<f64>| {
-        if let Some(target) = s.options.get_mut(i).and_then(|o| slot(&mut o.family)) {
-            *target = v;
-        }
-    };
-    scenario_number(
-        param.label,
-        format!("options[{i}].{}", param.field),
-        Shown::As(param.unit),
-        get,
-        set,
-        true,
-    )
 }
 
 /// The card of lens option `i`.
@@ -253,9 +114,9 @@ fn option_card(i: usize) -> impl IntoView {
             <div class="grid">
                 <ChoiceField label="Lens family" choices=FAMILIES.to_vec() value=key on_change=on_family />
                 {move || {
-                    parameters(key.get())
-                        .into_iter()
-                        .map(|param| parameter_field(i, param))
+                    open_family(key.get())
+                        .parameters()
+                        .map(|p| number_field(lens_field(p), i))
                         .collect_view()
                 }}
             </div>

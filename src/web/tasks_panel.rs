@@ -1,31 +1,11 @@
 //! The working-day panel: one card per task with its distance, position,
 //! size, detail, hours and safety flags; adding a task is one action.
 
-use super::bind::{scenario_number, Shown};
+use super::bind::number_field;
 use super::fields::{CheckField, ChoiceField, TextField};
 use super::state::use_app_state;
-use crate::scenario::{Task, TaskFlags, VerticalPosition, MAX_TASKS};
+use crate::scenario::{fields, Task, TaskFlags, VerticalPosition, MAX_TASKS};
 use leptos::prelude::*;
-
-/// Reads a number of task `i`; `None` once the task is gone.
-fn task_value(
-    i: usize,
-    read: fn(&Task) -> f64,
-) -> impl Fn(&crate::scenario::Scenario) -> Option<f64> + Copy {
-    move |s| s.tasks.get(i).map(read)
-}
-
-/// Writes a number of task `i`, if it still exists.
-fn task_write(
-    i: usize,
-    write: fn(&mut Task, f64),
-) -> impl Fn(&mut crate::scenario::Scenario, Option<f64>) + Copy {
-    move |s, v| {
-        if let (Some(t), Some(v)) = (s.tasks.get_mut(i), v) {
-            write(t, v);
-        }
-    }
-}
 
 /// The task last removed, where it stood, and the era of the list after
 /// the removal (an undo is offered only while the list keeps that shape).
@@ -93,9 +73,13 @@ fn position_fields(i: usize) -> impl IntoView {
         state.edit(|s| {
             if let Some(t) = s.tasks.get_mut(i) {
                 t.vertical = if v == "height" {
-                    VerticalPosition::HeightFromEyes { metres: -0.2 }
+                    VerticalPosition::HeightFromEyes {
+                        metres: fields::TASK_HEIGHT.start(),
+                    }
                 } else {
-                    VerticalPosition::GazeAngle { degrees: -15.0 }
+                    VerticalPosition::GazeAngle {
+                        degrees: fields::TASK_ANGLE.start(),
+                    }
                 };
             }
         })
@@ -109,103 +93,12 @@ fn position_fields(i: usize) -> impl IntoView {
         />
         {move || {
             if by_angle() {
-                scenario_number(
-                        "Gaze angle (up +, down −)",
-                        format!("tasks[{i}].vertical.degrees"),
-                        Shown::As("°"),
-                        move |s| match s.tasks.get(i).map(|t| t.vertical) {
-                            Some(VerticalPosition::GazeAngle { degrees }) => Some(degrees),
-                            _ => None,
-                        },
-                        move |s, v| {
-                            if let (Some(t), Some(degrees)) = (s.tasks.get_mut(i), v) {
-                                t.vertical = VerticalPosition::GazeAngle { degrees };
-                            }
-                        },
-                        false,
-                    )
-                    .into_any()
+                number_field(&fields::TASK_ANGLE, i).into_any()
             } else {
-                scenario_number(
-                        "Height from eyes (up +, down −)",
-                        format!("tasks[{i}].vertical.metres"),
-                        Shown::Length,
-                        move |s| match s.tasks.get(i).map(|t| t.vertical) {
-                            Some(VerticalPosition::HeightFromEyes { metres }) => Some(metres),
-                            _ => None,
-                        },
-                        move |s, v| {
-                            if let (Some(t), Some(metres)) = (s.tasks.get_mut(i), v) {
-                                t.vertical = VerticalPosition::HeightFromEyes { metres };
-                            }
-                        },
-                        false,
-                    )
-                    .into_any()
+                number_field(&fields::TASK_HEIGHT, i).into_any()
             }
         }}
     }
-}
-
-/// One plain number of a task: its label, field name, how it is shown, and
-/// how to read and write it.
-struct TaskNumber {
-    label: &'static str,
-    field: &'static str,
-    shown: Shown,
-    read: fn(&Task) -> f64,
-    write: fn(&mut Task, f64),
-}
-
-/// The plain numbers of a task card, distance first.
-const TASK_NUMBERS: [TaskNumber; 5] = [
-    TaskNumber {
-        label: "Distance",
-        field: "distance_m",
-        shown: Shown::Length,
-        read: |t| t.distance_m,
-        write: |t, v| t.distance_m = v,
-    },
-    TaskNumber {
-        label: "Sideways (right +)",
-        field: "sideways_m",
-        shown: Shown::Length,
-        read: |t| t.sideways_m,
-        write: |t, v| t.sideways_m = v,
-    },
-    TaskNumber {
-        label: "Width of task area",
-        field: "width_m",
-        shown: Shown::Length,
-        read: |t| t.width_m,
-        write: |t, v| t.width_m = v,
-    },
-    TaskNumber {
-        label: "Smallest detail",
-        field: "detail_mm",
-        shown: Shown::As("mm"),
-        read: |t| t.detail_mm,
-        write: |t, v| t.detail_mm = v,
-    },
-    TaskNumber {
-        label: "Hours per day",
-        field: "hours_per_day",
-        shown: Shown::As("h"),
-        read: |t| t.hours_per_day,
-        write: |t, v| t.hours_per_day = v,
-    },
-];
-
-/// The field of number `n` of task `i`.
-fn task_number(i: usize, n: &TaskNumber) -> impl IntoView {
-    scenario_number(
-        n.label,
-        format!("tasks[{i}].{}", n.field),
-        n.shown,
-        task_value(i, n.read),
-        task_write(i, n.write),
-        false,
-    )
 }
 
 /// The card of task `i`.
@@ -256,9 +149,16 @@ fn task_card(i: usize, removed: RwSignal<Option<Removed>>) -> impl IntoView {
                 </button>
             </div>
             <div class="grid">
-                {task_number(i, &TASK_NUMBERS[0])}
+                {number_field(&fields::TASK_DISTANCE, i)}
                 {position_fields(i)}
-                {TASK_NUMBERS[1..].iter().map(|n| task_number(i, n)).collect_view()}
+                {[
+                    &fields::TASK_SIDEWAYS,
+                    &fields::TASK_WIDTH,
+                    &fields::TASK_DETAIL,
+                    &fields::TASK_HOURS,
+                ]
+                    .map(|f| number_field(f, i))
+                    .collect_view()}
             </div>
             <div class="flags">
                 {flag_field(i, "Driving (road, mirrors, dashboard)", |f| &mut f.driving)}
