@@ -7,9 +7,9 @@ mod defaults;
 mod edit;
 pub mod fields;
 mod model;
+mod valid;
 mod validate;
 
 pub use model::*;
-pub use validate::{
-    validate, FieldError, Problem, ValidScenario, MAX_NAME_CHARS, MAX_OPTIONS, MAX_TASKS,
-};
+pub use valid::ValidScenario;
+pub use validate::{validate, FieldError, Problem, MAX_NAME_CHARS, MAX_OPTIONS, MAX_TASKS};

@@ -1,10 +1,12 @@
 //! The one gate between raw input (form fields, saved files) and the optics:
 //! every number of a [`Scenario`] is checked for finiteness and for a range
 //! that is physically possible and supported by the models. A scenario that
-//! passes becomes a [`ValidScenario`], the only form the planner accepts.
+//! passes becomes a [`ValidScenario`] (with its values in the core's types),
+//! the only form the planner accepts.
 
 use super::fields::{self, Field};
 use super::model::*;
+use super::valid::ValidScenario;
 use crate::core::bounds::{unit_suffix, Bounds, RangeFault};
 use crate::core::lens::{option_axes, MIN_LENS_ABOVE_FITTING_MM};
 use crate::core::limits::HOURS;
@@ -47,6 +49,10 @@ pub enum Problem {
     /// The value could not be read at all (wrong type, missing, unknown
     /// variant in a file); the text is the reader's own explanation.
     Unreadable(String),
+    /// A core model refused a value the checks above let through (a defect:
+    /// the gate and the models share one bounds table); the text is the
+    /// model's own message.
+    Refused(String),
 }
 
 impl fmt::Display for Problem {
@@ -68,7 +74,7 @@ impl fmt::Display for Problem {
             Problem::Empty => f.write_str("must not be empty"),
             Problem::TooLong(max) => write!(f, "is longer than {max} characters"),
             Problem::Inconsistent(rule) => f.write_str(rule),
-            Problem::Unreadable(why) => f.write_str(why),
+            Problem::Unreadable(why) | Problem::Refused(why) => f.write_str(why),
         }
     }
 }
@@ -80,17 +86,6 @@ impl fmt::Display for FieldError {
 }
 
 impl std::error::Error for FieldError {}
-
-/// A scenario whose every field has been checked; only [`validate`] makes one.
-#[derive(Debug, Clone, PartialEq)]
-pub struct ValidScenario(Scenario);
-
-impl ValidScenario {
-    /// The checked scenario.
-    pub fn get(&self) -> &Scenario {
-        &self.0
-    }
-}
 
 /// The most tasks one scenario may hold (a working day, not a database).
 pub const MAX_TASKS: usize = 40;
@@ -335,7 +330,7 @@ pub fn validate(scenario: Scenario) -> Result<ValidScenario, Vec<FieldError>> {
         c.current_glasses(g);
     }
     if c.errors.is_empty() {
-        Ok(ValidScenario(scenario))
+        ValidScenario::build(scenario)
     } else {
         Err(c.errors)
     }
