@@ -338,7 +338,7 @@ impl Context {
                     tolerance,
                     pupil,
                     Millimetres(t.detail_mm),
-                    Metres(t.distance_m),
+                    valid.positions()[i].distance,
                 )
                 .map_err(PlanError::optics(field.clone()))?;
                 // The practitioner's own clinical tolerance stands as entered.
@@ -364,7 +364,7 @@ impl Context {
                     index: i,
                     name: t.name.clone(),
                 },
-                distance: Metres(t.distance_m),
+                distance: valid.positions()[i].distance,
                 hours_per_day: t.hours_per_day,
                 gaze_elevation: elevation,
                 half_depth,
@@ -568,7 +568,7 @@ fn prepare_task(
     fitting: &Fitting,
     field: &str,
 ) -> Result<(TaskPrep, Degrees), PlanError> {
-    let l = object_vergence(Metres(t.distance_m))
+    let l = object_vergence(position.distance)
         .map_err(PlanError::optics(field))?
         .0;
     let dof = half_depth.0;
@@ -591,7 +591,7 @@ fn prepare_task(
     let upright = fitting.crossing(Eye::Right, &point, Degrees(0.0));
     let width = subtended_angle(
         Millimetres(t.width_m * 1000.0),
-        Millimetres(t.distance_m * 1000.0 + c),
+        Millimetres(position.distance.to_mm().0 + c),
     )
     .map_err(PlanError::lens(field))?;
     let cor_to_lens = upright.map_or(c, |c| c.cor_to_lens.0);
@@ -602,7 +602,7 @@ fn prepare_task(
     );
     let prep = TaskPrep {
         hours: t.hours_per_day,
-        distance: Metres(t.distance_m),
+        distance: position.distance,
         half_depth,
         focus_depth,
         comfort: addition_band(
@@ -625,7 +625,7 @@ fn prepare_task(
         cor_to_lens,
         width_deg: width.0,
         driving: t.flags.driving,
-        road: t.flags.driving && t.distance_m >= ROAD_DISTANCE_M,
+        road: t.flags.driving && position.distance.0 >= ROAD_DISTANCE_M,
         prism_per_mm: 0.0,
         prism_limit: f64::INFINITY,
     };
