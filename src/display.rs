@@ -3,6 +3,7 @@
 //! stores metres; units change only here, at the interface.
 
 use crate::core::units::Metres;
+use crate::scenario::fields::Unit;
 use crate::scenario::Problem;
 use serde::{Deserialize, Serialize};
 
@@ -99,31 +100,54 @@ pub fn parse_number(text: &str) -> Result<f64, ParseNumberError> {
     }
 }
 
-/// A field problem restated for a form as a sentence: ranges of lengths
-/// stored in metres are given in the user's length system, each bound in
-/// the unit that reads best (centimetres below a metre and metres above it,
-/// or inches below a yard and feet above it); large numbers carry
-/// thousands separators.
-pub fn describe_problem(problem: &Problem, unit: LengthUnit) -> String {
+/// A stored value of a field in `unit` as the form shows it: lengths in the
+/// user's length unit, shares as percentages, everything else as stored.
+pub fn to_shown(unit: Unit, length: LengthUnit, stored: f64) -> f64 {
+    match unit {
+        Unit::Metres => length.from_metres(Metres(stored)),
+        Unit::Share => stored * 100.0,
+        _ => stored,
+    }
+}
+
+/// A value typed into a field in `unit` as it is stored (the inverse of [`to_shown`]).
+pub fn to_stored(unit: Unit, length: LengthUnit, shown: f64) -> f64 {
+    match unit {
+        Unit::Metres => length.to_metres(shown).0,
+        Unit::Share => shown / 100.0,
+        _ => shown,
+    }
+}
+
+/// The unit symbol written after a field in `unit` ("cm", "%", "D").
+pub fn shown_symbol(unit: Unit, length: LengthUnit) -> &'static str {
+    match unit {
+        Unit::Metres => length.symbol(),
+        Unit::Share => "%",
+        other => other.symbol(),
+    }
+}
+
+/// A field problem restated for a form as a sentence, for a field stored in
+/// `unit`: ranges of lengths are given in the user's length system, each
+/// bound in the unit that reads best (centimetres below a metre and metres
+/// above it, or inches below a yard and feet above it), shares as
+/// percentages; large numbers carry thousands separators.
+pub fn describe_problem(problem: &Problem, unit: Unit, length: LengthUnit) -> String {
     match problem {
-        Problem::OutOfRange {
-            min,
-            max,
-            unit: "m",
-            ..
-        } => format!(
+        Problem::OutOfRange { min, max, .. } if unit == Unit::Metres => format!(
             "Must be between {} and {}.",
-            readable_length(*min, unit),
-            readable_length(*max, unit)
+            readable_length(*min, length),
+            readable_length(*max, length)
         ),
-        Problem::OutOfRange {
-            min, max, unit: u, ..
-        } => {
-            let space = if u.is_empty() || *u == "°" { "" } else { " " };
+        Problem::OutOfRange { min, max, .. } => {
+            let u = shown_symbol(unit, length);
+            let space = if u.is_empty() || u == "°" { "" } else { " " };
+            let shown = |v: f64| readable_number(to_shown(unit, length, v), 2);
             format!(
                 "Must be between {}{space}{u} and {}{space}{u}.",
-                readable_number(*min, 2),
-                readable_number(*max, 2)
+                shown(*min),
+                shown(*max)
             )
         }
         Problem::Empty => "Must not be empty.".to_string(),
@@ -306,30 +330,46 @@ mod tests {
             max,
             unit,
         };
-        let check = |p: Problem, unit, text: &str| assert_eq!(describe_problem(&p, unit), text);
+        let check = |p: Problem, unit, length, text: &str| {
+            assert_eq!(describe_problem(&p, unit, length), text)
+        };
+        use LengthUnit::{Centimetres, Inches};
         check(
             range(0.1, 1000.0, "m"),
-            LengthUnit::Centimetres,
+            Unit::Metres,
+            Centimetres,
             "Must be between 10 cm and 1,000 m.",
         );
         check(
             range(0.1, 2.54, "m"),
-            LengthUnit::Inches,
+            Unit::Metres,
+            Inches,
             "Must be between 3.9 in and 8.3 ft.",
         );
         check(
             range(20.0, 45.0, "mm"),
-            LengthUnit::Inches,
+            Unit::Millimetres,
+            Inches,
             "Must be between 20 mm and 45 mm.",
         );
         check(
             range(-80.0, 80.0, "°"),
-            LengthUnit::Inches,
+            Unit::Degrees,
+            Inches,
             "Must be between -80° and 80°.",
+        );
+        // A share is typed as a percentage, so its range is given as one
+        // (it was given as the stored ratio, 0.2 to 1, beside a % field).
+        check(
+            range(0.2, 1.0, ""),
+            Unit::Share,
+            Centimetres,
+            "Must be between 20 % and 100 %.",
         );
         check(
             Problem::Empty,
-            LengthUnit::Centimetres,
+            Unit::Ratio,
+            Centimetres,
             "Must not be empty.",
         );
     }

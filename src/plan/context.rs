@@ -28,12 +28,12 @@ use super::outcome::{
     AmplitudeSource, AmplitudeUsed, HalfDepthBasis, PupilOrigin, PupilUsed, RefractionBasis,
     RefractionUsed, TaskContext, TaskRef, Verdict,
 };
-use crate::core::accommodation::{ocular_from_spectacle, AgeModel, UsableShare};
+use crate::core::accommodation::{ocular_from_spectacle, AgeModel};
 use crate::core::acuity::defocus_for_decimal_acuity;
 use crate::core::clear_range::{Viewer, MAX_AMPLITUDE_D};
 use crate::core::depth_of_field::{self, task_half_depth, DEFAULT_BLUR_TO_DETAIL};
 use crate::core::gaze::{
-    keep_on_lens, subtended_angle, Eye, Fitting, FittingParams, COR_BEHIND_CORNEA_MM,
+    keep_on_lens, subtended_angle, Eye, Fitting, FittingParams, TaskPosition, COR_BEHIND_CORNEA_MM,
     TYPICAL_LENS_HALF_WIDTH_MM,
 };
 use crate::core::lens::VerticalExtent;
@@ -42,8 +42,8 @@ use crate::core::pupil::{watson_yellott, AdaptedEyes, Luminance, WATSON_YELLOTT_
 use crate::core::units::{Degrees, Dioptres, Metres, Millimetres};
 use crate::core::vergence::{object_vergence, CorrectedEye};
 use crate::scenario::{
-    BlurTolerance, Correction, PlanSettings, Prescription, PupilSource, ReferencePlane, Scenario,
-    Task, ValidScenario,
+    BlurTolerance, Correction, PlanSettings, PupilSource, ReferencePlane, Scenario, Task,
+    ValidScenario,
 };
 
 /// Vertex distance assumed for the lens geometry of contact-lens wearers,
@@ -258,22 +258,12 @@ pub struct Context {
     pub clamped: Vec<(&'static str, &'static str, f64, f64)>,
 }
 
-fn rx(p: &Prescription, field: &str) -> Result<SpheroCylinder, PlanError> {
-    SpheroCylinder::new(
-        Dioptres(p.sphere_d),
-        Dioptres(p.cylinder_d),
-        Degrees(p.axis_deg),
-    )
-    .map_err(PlanError::optics(field))
-}
-
 impl Context {
     /// Works out everything that does not depend on a lens option.
     pub fn new(valid: &ValidScenario) -> Result<Context, PlanError> {
         let s: &Scenario = valid.get();
         let w = &s.wearer;
-        let worn_right = rx(&w.right, "wearer.right")?;
-        let worn_left = rx(&w.left, "wearer.left")?;
+        let (worn_right, worn_left) = (valid.right(), valid.left());
         let over_contact_lenses = w.correction == Correction::ContactLenses;
         let (right, left, vertex_mm) = match w.correction {
             Correction::Spectacles { vertex_mm } => (worn_right, worn_left, vertex_mm),
@@ -290,8 +280,7 @@ impl Context {
         let mut clamped = Vec::new();
 
         let (amplitude, ocular) = amplitude_of(w, &eye, &mut clamped)?;
-        let usable = UsableShare::new(w.usable_fraction)
-            .map_err(PlanError::optics("wearer.usable_fraction"))?;
+        let usable = valid.usable();
         // Every amplitude the planner takes (Hofstetter's push-up norm, a
         // push-up or minus-lens measurement) is subjective: it already holds
         // the depth of focus at the near end.
@@ -309,11 +298,7 @@ impl Context {
         let pupil_used = pupil_of(w.pupil, w.age_years, &mut clamped)?;
         let pupil = pupil_used.diameter;
 
-        let extent = VerticalExtent::from_frame(
-            Millimetres(w.fitting_height_mm),
-            Millimetres(w.lens_height_mm),
-        )
-        .map_err(PlanError::lens("wearer.fitting_height_mm"))?;
+        let extent = valid.extent();
         let fitting = Fitting::new(FittingParams {
             pd_right: Millimetres(w.pd_right_mm),
             pd_left: Millimetres(w.pd_left_mm),
@@ -353,7 +338,7 @@ impl Context {
                     tolerance,
                     pupil,
                     Millimetres(t.detail_mm),
-                    Metres(t.distance_m),
+                    valid.positions()[i].distance,
                 )
                 .map_err(PlanError::optics(field.clone()))?;
                 // The practitioner's own clinical tolerance stands as entered.
@@ -365,6 +350,7 @@ impl Context {
             };
             let (mut prep, elevation) = prepare_task(
                 t,
+                &valid.positions()[i],
                 &viewer,
                 mean,
                 (half_depth, focus_depth),
@@ -378,7 +364,7 @@ impl Context {
                     index: i,
                     name: t.name.clone(),
                 },
-                distance: Metres(t.distance_m),
+                distance: valid.positions()[i].distance,
                 hours_per_day: t.hours_per_day,
                 gaze_elevation: elevation,
                 half_depth,
@@ -575,22 +561,21 @@ fn addition_band(viewer: &Viewer, l: f64, distance_power: f64, lo_acc: f64, hi_a
 /// A task's solver data and its upright gaze elevation (degrees).
 fn prepare_task(
     t: &Task,
+    position: &TaskPosition,
     viewer: &Viewer,
     distance_power: Dioptres,
     (half_depth, focus_depth): (Dioptres, Dioptres),
     fitting: &Fitting,
     field: &str,
 ) -> Result<(TaskPrep, Degrees), PlanError> {
-    let l = object_vergence(Metres(t.distance_m))
+    let l = object_vergence(position.distance)
         .map_err(PlanError::optics(field))?
         .0;
     let dof = half_depth.0;
     let amp = viewer.amplitude().0;
     let usable = viewer.usable().of(viewer.amplitude()).0;
     let f = distance_power.0;
-    let point = fitting
-        .locate(&t.position())
-        .map_err(PlanError::lens(field))?;
+    let point = fitting.locate(position).map_err(PlanError::lens(field))?;
     let mut heights = [0.0; PITCH_SAMPLES];
     for (i, h) in heights.iter_mut().enumerate() {
         let pitch = Degrees(i as f64 - MAX_CHIN_DOWN_DEG as f64);
@@ -606,7 +591,7 @@ fn prepare_task(
     let upright = fitting.crossing(Eye::Right, &point, Degrees(0.0));
     let width = subtended_angle(
         Millimetres(t.width_m * 1000.0),
-        Millimetres(t.distance_m * 1000.0 + c),
+        Millimetres(position.distance.to_mm().0 + c),
     )
     .map_err(PlanError::lens(field))?;
     let cor_to_lens = upright.map_or(c, |c| c.cor_to_lens.0);
@@ -617,7 +602,7 @@ fn prepare_task(
     );
     let prep = TaskPrep {
         hours: t.hours_per_day,
-        distance: Metres(t.distance_m),
+        distance: position.distance,
         half_depth,
         focus_depth,
         comfort: addition_band(
@@ -640,7 +625,7 @@ fn prepare_task(
         cor_to_lens,
         width_deg: width.0,
         driving: t.flags.driving,
-        road: t.flags.driving && t.distance_m >= ROAD_DISTANCE_M,
+        road: t.flags.driving && position.distance.0 >= ROAD_DISTANCE_M,
         prism_per_mm: 0.0,
         prism_limit: f64::INFINITY,
     };

@@ -19,7 +19,7 @@ pub enum PlanError {
     },
     /// A lens or gaze model refused a value derived from the scenario.
     Lens {
-        /// The scenario field or step concerned ("options[1]", "wearer.fitting_height_mm").
+        /// The scenario field or step concerned ("options[1]", "tasks[2]").
         context: String,
         /// What the lens model said.
         error: LensError,

@@ -1,8 +1,24 @@
 //! Starting values for a new scenario, a new task and a new lens option.
 //! They are typical adult values of the trade (common practice), meant to be
-//! overwritten with the wearer's own measurements.
+//! overwritten with the wearer's own measurements; each number is its
+//! field's starting value in the field table ([`super::fields`]).
 
+use super::fields as f;
 use super::model::*;
+
+/// The prescription of eye fields at their starting values (plano, no prism).
+fn plano() -> Prescription {
+    Prescription {
+        sphere_d: f::SPHERE.start(),
+        cylinder_d: f::CYLINDER.start(),
+        axis_deg: f::AXIS.start(),
+        prism: Prism {
+            horizontal_pd: f::PRISM_HORIZONTAL.start(),
+            vertical_pd: f::PRISM_VERTICAL.start(),
+            ..Prism::default()
+        },
+    }
+}
 
 impl Wearer {
     /// A wearer with typical fitting data and a plano prescription, to be
@@ -10,28 +26,25 @@ impl Wearer {
     /// PDs, 8° pantoscopic tilt (common practice), half the amplitude kept in
     /// reserve (common practice, see the domain notes).
     pub fn typical(age_years: f64) -> Wearer {
-        let plano = Prescription {
-            sphere_d: 0.0,
-            cylinder_d: 0.0,
-            axis_deg: 0.0,
-            prism: Prism::default(),
-        };
+        let plano = plano();
         Wearer {
             age_years,
             measured_amplitude: None,
             right: plano,
             left: plano,
             prescribed_addition_d: None,
-            correction: Correction::Spectacles { vertex_mm: 12.0 },
-            pd_right_mm: 32.0,
-            pd_left_mm: 32.0,
-            fitting_height_mm: 20.0,
-            lens_height_mm: 34.0,
-            pantoscopic_tilt_deg: 8.0,
-            pupil: PupilSource::FromLighting {
-                luminance_cd_m2: 100.0,
+            correction: Correction::Spectacles {
+                vertex_mm: f::VERTEX.start(),
             },
-            usable_fraction: 0.5,
+            pd_right_mm: f::PD_RIGHT.start(),
+            pd_left_mm: f::PD_LEFT.start(),
+            fitting_height_mm: f::FITTING_HEIGHT.start(),
+            lens_height_mm: f::LENS_HEIGHT.start(),
+            pantoscopic_tilt_deg: f::TILT.start(),
+            pupil: PupilSource::FromLighting {
+                luminance_cd_m2: f::LUMINANCE.start(),
+            },
+            usable_fraction: f::USABLE_FRACTION.start(),
             blur_tolerance: BlurTolerance::FromDetail,
         }
     }
@@ -43,12 +56,14 @@ impl Task {
     pub fn desk_screen(name: &str) -> Task {
         Task {
             name: name.to_string(),
-            distance_m: 0.65,
-            vertical: VerticalPosition::GazeAngle { degrees: -15.0 },
-            sideways_m: 0.0,
-            width_m: 0.5,
-            detail_mm: 2.5,
-            hours_per_day: 4.0,
+            distance_m: f::TASK_DISTANCE.start(),
+            vertical: VerticalPosition::GazeAngle {
+                degrees: f::TASK_ANGLE.start(),
+            },
+            sideways_m: f::TASK_SIDEWAYS.start(),
+            width_m: f::TASK_WIDTH.start(),
+            detail_mm: f::TASK_DETAIL.start(),
+            hours_per_day: f::TASK_HOURS.start(),
             flags: TaskFlags::default(),
         }
     }
@@ -92,7 +107,7 @@ impl Scenario {
         Scenario {
             name: "Untitled scenario".to_string(),
             settings: PlanSettings::default(),
-            wearer: Wearer::typical(50.0),
+            wearer: Wearer::typical(f::AGE.start()),
             tasks: vec![Task::desk_screen("Screen")],
             options: LensOption::starter_set(),
             chosen_option: None,

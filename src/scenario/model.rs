@@ -83,8 +83,8 @@ impl AdditionRounding {
 impl Default for PlanSettings {
     fn default() -> PlanSettings {
         PlanSettings {
-            driving_acuity_decimal: 0.5,
-            vertical_imbalance_limit_pd: 1.0,
+            driving_acuity_decimal: super::fields::DRIVING_ACUITY.start(),
+            vertical_imbalance_limit_pd: super::fields::IMBALANCE_LIMIT.start(),
             addition_rounding: AdditionRounding::Up,
             use_prescribed_addition: false,
         }

@@ -16,6 +16,21 @@ pub fn unique_id(prefix: &str) -> String {
     format!("{prefix}-{}", NEXT.fetch_add(1, Ordering::Relaxed))
 }
 
+/// Moves the keyboard focus to the element with test id `id` once the
+/// next frame has drawn it.
+pub fn focus_test_id(id: &str) {
+    let selector = format!("[data-testid=\"{id}\"]");
+    request_animation_frame(move || {
+        let element = web_sys::window()
+            .and_then(|w| w.document())
+            .and_then(|d| d.query_selector(&selector).ok().flatten())
+            .and_then(|e| wasm_bindgen::JsCast::dyn_into::<web_sys::HtmlElement>(e).ok());
+        if let Some(element) = element {
+            let _ = element.focus();
+        }
+    });
+}
+
 /// Whether two field values are the same number, allowing for the rounding of
 /// a unit conversion there and back.
 fn same_value(a: Option<f64>, b: Option<f64>) -> bool {
@@ -66,12 +81,24 @@ pub fn NumberField(
     /// written on prescriptions ("+0.75").
     #[prop(optional)]
     signed: bool,
+    /// A short help text (what the number is, how it is measured, the
+    /// usual range), opened by a button beside the label and read out as
+    /// the input's description.
+    #[prop(optional, into)]
+    help: String,
     /// A test id for the browser journeys (it follows a row that moves).
     #[prop(optional, into)]
     test_id: Signal<String>,
 ) -> impl IntoView {
     let id = unique_id("field");
     let message_id = format!("{id}-msg");
+    let help_id = format!("{id}-help");
+    let help_open = RwSignal::new(false);
+    let described_by = if help.is_empty() {
+        message_id.clone()
+    } else {
+        format!("{help_id} {message_id}")
+    };
     let state = use_app_state();
     // What the user typed and the value the field held then.
     let typed: RwSignal<Option<(String, Option<f64>)>> = RwSignal::new(None);
@@ -136,7 +163,24 @@ pub fn NumberField(
     });
     view! {
         <div class="field" class:invalid=move || message().is_some()>
-            <label for=id.clone()>{label}</label>
+            <span class="label-row">
+                <label for=id.clone()>{label}</label>
+                {(!help.is_empty())
+                    .then(|| {
+                        view! {
+                            <button
+                                type="button"
+                                class="help-toggle"
+                                aria-label="Help"
+                                aria-controls=help_id.clone()
+                                aria-expanded=move || help_open.get().to_string()
+                                on:click=move |_| help_open.update(|open| *open = !*open)
+                            >
+                                <span aria-hidden="true">"?"</span>
+                            </button>
+                        }
+                    })}
+            </span>
             <span class="entry">
                 <input
                     id=id
@@ -147,11 +191,19 @@ pub fn NumberField(
                     data-testid=test_id
                     prop:value=text
                     aria-invalid=move || if message().is_some() { "true" } else { "false" }
-                    aria-describedby=message_id.clone()
+                    aria-describedby=described_by
                     on:input=on_text
                 />
                 <span class="unit">{unit}</span>
             </span>
+            {(!help.is_empty())
+                .then(|| {
+                    view! {
+                        <small class="help" id=help_id hidden=move || !help_open.get()>
+                            {help}
+                        </small>
+                    }
+                })}
             <span class="message" id=message_id aria-live="polite">
                 {message}
             </span>

@@ -1,9 +1,10 @@
 //! The lens-options panel: which families to compare, with each parameter
 //! either fixed by the user or left empty for the planner to choose.
 
-use super::bind::{row_number, Shown};
+use super::bind::row_field;
 use super::fields::{ChoiceField, TextField};
 use super::state::use_app_state;
+use crate::scenario::fields::lens_field;
 use crate::scenario::{FamilyChoice, LensOption, Scenario, MAX_OPTIONS};
 use leptos::prelude::*;
 
@@ -58,127 +59,10 @@ fn open_family(key: &str) -> FamilyChoice {
     }
 }
 
-/// One open parameter of a family: its label, field name, unit, and how to
-/// reach it inside the family choice.
-struct Parameter {
-    label: &'static str,
-    field: &'static str,
-    unit: &'static str,
-    slot: fn(&mut FamilyChoice) -> Option<&mut Option<f64>>,
-}
-
-/// The parameters of the family with machine value `key`.
-fn parameters(key: &str) -> Vec<Parameter> {
-    let p = |label, field, unit, slot| Parameter {
-        label,
-        field,
-        unit,
-        slot,
-    };
-    match key {
-        "single_vision" => vec![p("Addition", "addition_d", "D", |f| match f {
-            FamilyChoice::SingleVision { addition_d } => Some(addition_d),
-            _ => None,
-        })],
-        "bifocal" => vec![
-            p("Addition", "addition_d", "D", |f| match f {
-                FamilyChoice::Bifocal { addition_d, .. } => Some(addition_d),
-                _ => None,
-            }),
-            p(
-                "Segment top from fitting point",
-                "segment_top_mm",
-                "mm",
-                |f| match f {
-                    FamilyChoice::Bifocal { segment_top_mm, .. } => Some(segment_top_mm),
-                    _ => None,
-                },
-            ),
-        ],
-        "trifocal" => vec![
-            p("Addition", "addition_d", "D", |f| match f {
-                FamilyChoice::Trifocal { addition_d, .. } => Some(addition_d),
-                _ => None,
-            }),
-            p(
-                "Intermediate share of addition",
-                "intermediate_ratio",
-                "",
-                |f| match f {
-                    FamilyChoice::Trifocal {
-                        intermediate_ratio, ..
-                    } => Some(intermediate_ratio),
-                    _ => None,
-                },
-            ),
-            p(
-                "Segment top from fitting point",
-                "segment_top_mm",
-                "mm",
-                |f| match f {
-                    FamilyChoice::Trifocal { segment_top_mm, .. } => Some(segment_top_mm),
-                    _ => None,
-                },
-            ),
-        ],
-        "progressive" => vec![
-            p("Addition", "addition_d", "D", |f| match f {
-                FamilyChoice::Progressive { addition_d, .. } => Some(addition_d),
-                _ => None,
-            }),
-            p(
-                "Progression length",
-                "progression_length_mm",
-                "mm",
-                |f| match f {
-                    FamilyChoice::Progressive {
-                        progression_length_mm,
-                        ..
-                    } => Some(progression_length_mm),
-                    _ => None,
-                },
-            ),
-        ],
-        "degressive" => vec![
-            p("Near addition", "near_addition_d", "D", |f| match f {
-                FamilyChoice::Degressive {
-                    near_addition_d, ..
-                } => Some(near_addition_d),
-                _ => None,
-            }),
-            p("Degression", "degression_d", "D", |f| match f {
-                FamilyChoice::Degressive { degression_d, .. } => Some(degression_d),
-                _ => None,
-            }),
-        ],
-        _ => vec![
-            p("Addition", "addition_d", "D", |f| match f {
-                FamilyChoice::DoubleSegment { addition_d, .. } => Some(addition_d),
-                _ => None,
-            }),
-            p("Lower segment top", "lower_top_mm", "mm", |f| match f {
-                FamilyChoice::DoubleSegment { lower_top_mm, .. } => Some(lower_top_mm),
-                _ => None,
-            }),
-            p(
-                "Upper segment bottom",
-                "upper_bottom_mm",
-                "mm",
-                |f| match f {
-                    FamilyChoice::DoubleSegment {
-                        upper_bottom_mm, ..
-                    } => Some(upper_bottom_mm),
-                    _ => None,
-                },
-            ),
-        ],
-    }
-}
-
 /// Where an option's row stands in the list now (`None` once it is gone).
 type At = Memo<Option<usize>>;
 
-/// The path of `field` of the option at `at` (`options[1].addition_d`),
+/// The path of `field` of the option at `at` (`options[1].label`),
 /// following the option as it moves in the list.
 fn option_path(at: At, field: &'static str) -> Signal<String> {
     Signal::derive(move || {
@@ -196,27 +80,6 @@ fn option_at(at: At, s: &Scenario) -> Option<&LensOption> {
 /// The option at `at`, to change it, if it still exists.
 fn option_at_mut(at: At, s: &mut Scenario) -> Option<&mut LensOption> {
     at.get_untracked().and_then(|i| s.options.get_mut(i))
-}
-
-/// The parameter field `param` of the option at `at`.
-fn parameter_field(at: At, param: Parameter) -> impl IntoView {
-    let slot = param.slot;
-    let get = move |s: &Scenario| {
-        option_at(at, s).and_then(|o| slot(&mut o.family.clone()).and_then(|v| *v))
-    };
-    let set = move |s: &mut Scenario, v: Option<f64>| {
-        if let Some(target) = option_at_mut(at, s).and_then(|o| slot(&mut o.family)) {
-            *target = v;
-        }
-    };
-    row_number(
-        param.label,
-        option_path(at, param.field),
-        Shown::As(param.unit),
-        get,
-        set,
-        true,
-    )
 }
 
 /// The card of the lens option with row id `id`.
@@ -274,9 +137,9 @@ fn option_card(id: u64) -> impl IntoView {
             <div class="grid">
                 <ChoiceField label="Lens family" choices=FAMILIES.to_vec() value=key on_change=on_family />
                 {move || {
-                    parameters(key.get())
-                        .into_iter()
-                        .map(|param| parameter_field(at, param))
+                    open_family(key.get())
+                        .parameters()
+                        .map(|p| row_field(lens_field(p), at.into()))
                         .collect_view()
                 }}
             </div>

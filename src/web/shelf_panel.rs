@@ -5,7 +5,7 @@
 //! and draws. Every action that writes runs in this tab's turn to write
 //! ([`Shelf::in_turn`]).
 
-use super::fields::TextField;
+use super::fields::{focus_test_id, TextField};
 use super::files::{download_json, read_text};
 use super::shelf::{now_ms, BrowserSession, Shelf};
 use super::state::{use_app_state, AppState};
@@ -19,21 +19,6 @@ use wasm_bindgen::JsCast;
 /// scenario it opens, if any.
 fn act(state: AppState, op: impl FnOnce(&mut BrowserSession, u64) -> Option<Scenario> + 'static) {
     state.shelf.in_turn(op, move |shown| state.show(shown));
-}
-
-/// Moves keyboard focus to the element with test id `id`, if it is there.
-fn focus_test_id(id: &str) {
-    let element = web_sys::window()
-        .and_then(|w| w.document())
-        .and_then(|d| {
-            d.query_selector(&format!("[data-testid=\"{id}\"]"))
-                .ok()
-                .flatten()
-        })
-        .and_then(|e| e.dyn_into::<web_sys::HtmlElement>().ok());
-    if let Some(element) = element {
-        let _ = element.focus();
-    }
 }
 
 /// Opens entry `id` in the editor.

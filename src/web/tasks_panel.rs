@@ -1,10 +1,10 @@
 //! The working-day panel: one card per task with its distance, position,
 //! size, detail, hours and safety flags; adding a task is one action.
 
-use super::bind::{row_number, Shown};
-use super::fields::{CheckField, ChoiceField, TextField};
+use super::bind::row_field;
+use super::fields::{focus_test_id, CheckField, ChoiceField, TextField};
 use super::state::use_app_state;
-use crate::scenario::{Scenario, Task, TaskFlags, VerticalPosition, MAX_TASKS};
+use crate::scenario::{fields, Scenario, Task, TaskFlags, VerticalPosition, MAX_TASKS};
 use leptos::prelude::*;
 
 /// Where a task's row stands in the list now (`None` once it is gone).
@@ -15,27 +15,8 @@ fn task_at(at: At, s: &Scenario) -> Option<&Task> {
     at.get().and_then(|i| s.tasks.get(i))
 }
 
-/// The task at `at`, to change it, if it still exists.
-fn task_at_mut(at: At, s: &mut Scenario) -> Option<&mut Task> {
-    at.get_untracked().and_then(|i| s.tasks.get_mut(i))
-}
-
-/// Reads a number of the task at `at`; `None` once the task is gone.
-fn task_value(at: At, read: fn(&Task) -> f64) -> impl Fn(&Scenario) -> Option<f64> + Copy {
-    move |s| task_at(at, s).map(read)
-}
-
-/// Writes a number of the task at `at`, if it still exists.
-fn task_write(at: At, write: fn(&mut Task, f64)) -> impl Fn(&mut Scenario, Option<f64>) + Copy {
-    move |s, v| {
-        if let (Some(t), Some(v)) = (task_at_mut(at, s), v) {
-            write(t, v);
-        }
-    }
-}
-
-/// The path of `field` of the task at `at` (`tasks[1].distance_m`),
-/// following the task as it moves in the list.
+/// The path of `field` of the task at `at` (`tasks[1].name`), following
+/// the task as it moves in the list.
 fn task_path(at: At, field: &'static str) -> Signal<String> {
     Signal::derive(move || {
         at.get()
@@ -44,19 +25,9 @@ fn task_path(at: At, field: &'static str) -> Signal<String> {
     })
 }
 
-/// Moves the keyboard focus to the element with test id `id` once the
-/// next frame has drawn it.
-fn focus_test_id(id: &str) {
-    let selector = format!("[data-testid=\"{id}\"]");
-    request_animation_frame(move || {
-        let element = web_sys::window()
-            .and_then(|w| w.document())
-            .and_then(|d| d.query_selector(&selector).ok().flatten())
-            .and_then(|e| wasm_bindgen::JsCast::dyn_into::<web_sys::HtmlElement>(e).ok());
-        if let Some(element) = element {
-            let _ = element.focus();
-        }
-    });
+/// The task at `at`, to change it, if it still exists.
+fn task_at_mut(at: At, s: &mut Scenario) -> Option<&mut Task> {
+    at.get_untracked().and_then(|i| s.tasks.get_mut(i))
 }
 
 /// A check box bound to one flag of the task at `at`.
@@ -95,9 +66,13 @@ fn position_fields(at: At) -> impl IntoView {
         state.edit(|s| {
             if let Some(t) = task_at_mut(at, s) {
                 t.vertical = if v == "height" {
-                    VerticalPosition::HeightFromEyes { metres: -0.2 }
+                    VerticalPosition::HeightFromEyes {
+                        metres: fields::TASK_HEIGHT.start(),
+                    }
                 } else {
-                    VerticalPosition::GazeAngle { degrees: -15.0 }
+                    VerticalPosition::GazeAngle {
+                        degrees: fields::TASK_ANGLE.start(),
+                    }
                 };
             }
         })
@@ -111,103 +86,12 @@ fn position_fields(at: At) -> impl IntoView {
         />
         {move || {
             if by_angle() {
-                row_number(
-                        "Gaze angle (up +, down −)",
-                        task_path(at, "vertical.degrees"),
-                        Shown::As("°"),
-                        move |s| match task_at(at, s).map(|t| t.vertical) {
-                            Some(VerticalPosition::GazeAngle { degrees }) => Some(degrees),
-                            _ => None,
-                        },
-                        move |s, v| {
-                            if let (Some(t), Some(degrees)) = (task_at_mut(at, s), v) {
-                                t.vertical = VerticalPosition::GazeAngle { degrees };
-                            }
-                        },
-                        false,
-                    )
-                    .into_any()
+                row_field(&fields::TASK_ANGLE, at.into()).into_any()
             } else {
-                row_number(
-                        "Height from eyes (up +, down −)",
-                        task_path(at, "vertical.metres"),
-                        Shown::Length,
-                        move |s| match task_at(at, s).map(|t| t.vertical) {
-                            Some(VerticalPosition::HeightFromEyes { metres }) => Some(metres),
-                            _ => None,
-                        },
-                        move |s, v| {
-                            if let (Some(t), Some(metres)) = (task_at_mut(at, s), v) {
-                                t.vertical = VerticalPosition::HeightFromEyes { metres };
-                            }
-                        },
-                        false,
-                    )
-                    .into_any()
+                row_field(&fields::TASK_HEIGHT, at.into()).into_any()
             }
         }}
     }
-}
-
-/// One plain number of a task: its label, field name, how it is shown, and
-/// how to read and write it.
-struct TaskNumber {
-    label: &'static str,
-    field: &'static str,
-    shown: Shown,
-    read: fn(&Task) -> f64,
-    write: fn(&mut Task, f64),
-}
-
-/// The plain numbers of a task card, distance first.
-const TASK_NUMBERS: [TaskNumber; 5] = [
-    TaskNumber {
-        label: "Distance",
-        field: "distance_m",
-        shown: Shown::Length,
-        read: |t| t.distance_m,
-        write: |t, v| t.distance_m = v,
-    },
-    TaskNumber {
-        label: "Sideways (right +)",
-        field: "sideways_m",
-        shown: Shown::Length,
-        read: |t| t.sideways_m,
-        write: |t, v| t.sideways_m = v,
-    },
-    TaskNumber {
-        label: "Width of task area",
-        field: "width_m",
-        shown: Shown::Length,
-        read: |t| t.width_m,
-        write: |t, v| t.width_m = v,
-    },
-    TaskNumber {
-        label: "Smallest detail",
-        field: "detail_mm",
-        shown: Shown::As("mm"),
-        read: |t| t.detail_mm,
-        write: |t, v| t.detail_mm = v,
-    },
-    TaskNumber {
-        label: "Hours per day",
-        field: "hours_per_day",
-        shown: Shown::As("h"),
-        read: |t| t.hours_per_day,
-        write: |t, v| t.hours_per_day = v,
-    },
-];
-
-/// The field of number `n` of the task at `at`.
-fn task_number(at: At, n: &TaskNumber) -> impl IntoView {
-    row_number(
-        n.label,
-        task_path(at, n.field),
-        n.shown,
-        task_value(at, n.read),
-        task_write(at, n.write),
-        false,
-    )
 }
 
 /// The card of the task with row id `id`.
@@ -258,9 +142,16 @@ fn task_card(id: u64) -> impl IntoView {
                 </button>
             </div>
             <div class="grid">
-                {task_number(at, &TASK_NUMBERS[0])}
+                {row_field(&fields::TASK_DISTANCE, at.into())}
                 {position_fields(at)}
-                {TASK_NUMBERS[1..].iter().map(|n| task_number(at, n)).collect_view()}
+                {[
+                    &fields::TASK_SIDEWAYS,
+                    &fields::TASK_WIDTH,
+                    &fields::TASK_DETAIL,
+                    &fields::TASK_HOURS,
+                ]
+                    .map(|f| row_field(f, at.into()))
+                    .collect_view()}
             </div>
             <div class="flags">
                 {flag_field(at, "Driving (road, mirrors, dashboard)", |f| &mut f.driving)}

@@ -1,90 +1,45 @@
 //! The wearer panel: age or measured amplitude, distance prescription,
 //! fitting data, pupil and blur tolerance.
 
-use super::bind::{scenario_number, Shown};
+use super::bind::number_field;
 use super::fields::{CheckField, ChoiceField};
 use super::state::use_app_state;
+use crate::scenario::fields;
 use crate::scenario::{
     AdditionRounding, AmplitudeMethod, BlurTolerance, Correction, HorizontalBase,
     MeasuredAmplitude, Prescription, PupilSource, ReferencePlane, Scenario, VerticalBase,
 };
 use leptos::prelude::*;
 
-/// The three fields of one eye's distance prescription.
+/// The fields of one eye's distance prescription (`index` 0 right, 1 left):
+/// sphere, cylinder, axis, and the prism with its bases.
 fn eye_fields(
     eye: &'static str,
+    index: usize,
     pick: fn(&Scenario) -> &Prescription,
     pick_mut: fn(&mut Scenario) -> &mut Prescription,
 ) -> impl IntoView {
-    let key = eye.to_lowercase();
     view! {
         <fieldset class="eye">
             <legend>{format!("{eye} eye")}</legend>
-            {scenario_number(
-                "Sphere",
-                format!("wearer.{key}.sphere_d"),
-                Shown::As("D"),
-                move |s| Some(pick(s).sphere_d),
-                move |s, v| pick_mut(s).sphere_d = v.unwrap_or(0.0),
-                false,
+            {number_field(&fields::SPHERE, index)}
+            {number_field(&fields::CYLINDER, index)}
+            {number_field(&fields::AXIS, index)}
+            {number_field(&fields::PRISM_HORIZONTAL, index)}
+            {scenario_choice(
+                format!("{eye} horizontal base"),
+                [("in", "Base in", HorizontalBase::In), ("out", "Base out", HorizontalBase::Out)],
+                move |s| pick(s).prism.horizontal_base,
+                move |s, v| pick_mut(s).prism.horizontal_base = v,
             )}
-            {scenario_number(
-                "Cylinder",
-                format!("wearer.{key}.cylinder_d"),
-                Shown::As("D"),
-                move |s| Some(pick(s).cylinder_d),
-                move |s, v| pick_mut(s).cylinder_d = v.unwrap_or(0.0),
-                false,
+            {number_field(&fields::PRISM_VERTICAL, index)}
+            {scenario_choice(
+                format!("{eye} vertical base"),
+                [("up", "Base up", VerticalBase::Up), ("down", "Base down", VerticalBase::Down)],
+                move |s| pick(s).prism.vertical_base,
+                move |s, v| pick_mut(s).prism.vertical_base = v,
             )}
-            {scenario_number(
-                "Axis",
-                format!("wearer.{key}.axis_deg"),
-                Shown::As("°"),
-                move |s| Some(pick(s).axis_deg),
-                move |s, v| pick_mut(s).axis_deg = v.unwrap_or(0.0),
-                false,
-            )}
-            {prism_fields(eye, key, pick, pick_mut)}
         </fieldset>
-    }
-}
-
-/// The prescribed prism of one eye: horizontal and vertical amounts with their bases.
-fn prism_fields(
-    eye: &'static str,
-    key: String,
-    pick: fn(&Scenario) -> &Prescription,
-    pick_mut: fn(&mut Scenario) -> &mut Prescription,
-) -> impl IntoView {
-    view! {
-        {scenario_number(
-            "Horizontal prism",
-            format!("wearer.{key}.prism.horizontal_pd"),
-            Shown::As("Δ"),
-            move |s| Some(pick(s).prism.horizontal_pd),
-            move |s, v| pick_mut(s).prism.horizontal_pd = v.unwrap_or(0.0),
-            false,
-        )}
-        {scenario_choice(
-            format!("{eye} horizontal base"),
-            [("in", "Base in", HorizontalBase::In), ("out", "Base out", HorizontalBase::Out)],
-            move |s| pick(s).prism.horizontal_base,
-            move |s, v| pick_mut(s).prism.horizontal_base = v,
-        )}
-        {scenario_number(
-            "Vertical prism",
-            format!("wearer.{key}.prism.vertical_pd"),
-            Shown::As("Δ"),
-            move |s| Some(pick(s).prism.vertical_pd),
-            move |s, v| pick_mut(s).prism.vertical_pd = v.unwrap_or(0.0),
-            false,
-        )}
-        {scenario_choice(
-            format!("{eye} vertical base"),
-            [("up", "Base up", VerticalBase::Up), ("down", "Base down", VerticalBase::Down)],
-            move |s| pick(s).prism.vertical_base,
-            move |s, v| pick_mut(s).prism.vertical_base = v,
-        )}
     }
 }
 
@@ -161,7 +116,10 @@ fn amplitude_fields() -> impl IntoView {
                 _ => None,
             };
             s.wearer.measured_amplitude = method.map(|method| MeasuredAmplitude {
-                dioptres: s.wearer.measured_amplitude.map_or(4.0, |m| m.dioptres),
+                dioptres: s
+                    .wearer
+                    .measured_amplitude
+                    .map_or(fields::MEASURED_AMPLITUDE.start(), |m| m.dioptres),
                 method,
                 plane: s
                     .wearer
@@ -186,14 +144,7 @@ fn amplitude_fields() -> impl IntoView {
         })
     });
     view! {
-        {scenario_number(
-            "Age",
-            "wearer.age_years".into(),
-            Shown::As("years"),
-            |s| Some(s.wearer.age_years),
-            |s, v| s.wearer.age_years = v.unwrap_or(0.0),
-            false,
-        )}
+        {number_field(&fields::AGE, 0)}
         <ChoiceField
             label="Amplitude of accommodation"
             choices=vec![
@@ -206,18 +157,7 @@ fn amplitude_fields() -> impl IntoView {
             test_id="amplitude-source"
         />
         <Show when=move || measured().is_some()>
-            {scenario_number(
-                "Measured amplitude",
-                "wearer.measured_amplitude.dioptres".into(),
-                Shown::As("D"),
-                |s| s.wearer.measured_amplitude.map(|m| m.dioptres),
-                |s, v| {
-                    if let Some(m) = s.wearer.measured_amplitude.as_mut() {
-                        m.dioptres = v.unwrap_or(0.0);
-                    }
-                },
-                false,
-            )}
+            {number_field(&fields::MEASURED_AMPLITUDE, 0)}
             <ChoiceField
                 label="Measured at"
                 choices=vec![("spectacle", "Spectacle plane"), ("ocular", "The eye (ocular)")]
@@ -241,7 +181,9 @@ fn correction_fields() -> impl IntoView {
             s.wearer.correction = if v == "contacts" {
                 Correction::ContactLenses
             } else {
-                Correction::Spectacles { vertex_mm: 12.0 }
+                Correction::Spectacles {
+                    vertex_mm: fields::VERTEX.start(),
+                }
             }
         })
     });
@@ -253,17 +195,7 @@ fn correction_fields() -> impl IntoView {
             on_change=on_kind
         />
         <Show when=is_spectacles>
-            {scenario_number(
-                "Vertex distance",
-                "wearer.correction.vertex_mm".into(),
-                Shown::As("mm"),
-                |s| match s.wearer.correction {
-                    Correction::Spectacles { vertex_mm } => Some(vertex_mm),
-                    Correction::ContactLenses => None,
-                },
-                |s, v| s.wearer.correction = Correction::Spectacles { vertex_mm: v.unwrap_or(0.0) },
-                false,
-            )}
+            {number_field(&fields::VERTEX, 0)}
         </Show>
     }
 }
@@ -279,10 +211,12 @@ fn pupil_and_blur_fields() -> impl IntoView {
     let on_pupil = Callback::new(move |v: String| {
         state.edit(|s| {
             s.wearer.pupil = if v == "measured" {
-                PupilSource::Measured { diameter_mm: 4.0 }
+                PupilSource::Measured {
+                    diameter_mm: fields::PUPIL_DIAMETER.start(),
+                }
             } else {
                 PupilSource::FromLighting {
-                    luminance_cd_m2: 100.0,
+                    luminance_cd_m2: fields::LUMINANCE.start(),
                 }
             }
         })
@@ -295,7 +229,9 @@ fn pupil_and_blur_fields() -> impl IntoView {
     let on_blur = Callback::new(move |v: String| {
         state.edit(|s| {
             s.wearer.blur_tolerance = if v == "clinical" {
-                BlurTolerance::Clinical { half_depth_d: 0.25 }
+                BlurTolerance::Clinical {
+                    half_depth_d: fields::HALF_DEPTH.start(),
+                }
             } else {
                 BlurTolerance::FromDetail
             }
@@ -310,34 +246,10 @@ fn pupil_and_blur_fields() -> impl IntoView {
         />
         {move || {
             if pupil_measured() {
-                scenario_number(
-                        "Pupil diameter",
-                        "wearer.pupil.diameter_mm".into(),
-                        Shown::As("mm"),
-                        |s| match s.wearer.pupil {
-                            PupilSource::Measured { diameter_mm } => Some(diameter_mm),
-                            PupilSource::FromLighting { .. } => None,
-                        },
-                        |s, v| s.wearer.pupil = PupilSource::Measured { diameter_mm: v.unwrap_or(0.0) },
-                        false,
-                    )
+                number_field(&fields::PUPIL_DIAMETER, 0)
                     .into_any()
             } else {
-                scenario_number(
-                        "Task luminance",
-                        "wearer.pupil.luminance_cd_m2".into(),
-                        Shown::As("cd/m²"),
-                        |s| match s.wearer.pupil {
-                            PupilSource::FromLighting { luminance_cd_m2 } => Some(luminance_cd_m2),
-                            PupilSource::Measured { .. } => None,
-                        },
-                        |s, v| {
-                            s.wearer.pupil = PupilSource::FromLighting {
-                                luminance_cd_m2: v.unwrap_or(0.0),
-                            }
-                        },
-                        false,
-                    )
+                number_field(&fields::LUMINANCE, 0)
                     .into_any()
             }
         }}
@@ -348,84 +260,9 @@ fn pupil_and_blur_fields() -> impl IntoView {
             on_change=on_blur
         />
         <Show when=clinical>
-            {scenario_number(
-                "Half depth of field",
-                "wearer.blur_tolerance.half_depth_d".into(),
-                Shown::As("D"),
-                |s| match s.wearer.blur_tolerance {
-                    BlurTolerance::Clinical { half_depth_d } => Some(half_depth_d),
-                    BlurTolerance::FromDetail => None,
-                },
-                |s, v| s.wearer.blur_tolerance = BlurTolerance::Clinical { half_depth_d: v.unwrap_or(0.0) },
-                false,
-            )}
+            {number_field(&fields::HALF_DEPTH, 0)}
         </Show>
     }
-}
-
-/// One fitting measurement: label, field path, unit, and how to read and write it.
-struct Fitting {
-    label: &'static str,
-    path: &'static str,
-    unit: &'static str,
-    read: fn(&Scenario) -> f64,
-    write: fn(&mut Scenario, f64),
-}
-
-/// The fitting measurements, in the order a dispenser takes them.
-const FITTING: [Fitting; 5] = [
-    Fitting {
-        label: "PD right",
-        path: "wearer.pd_right_mm",
-        unit: "mm",
-        read: |s| s.wearer.pd_right_mm,
-        write: |s, v| s.wearer.pd_right_mm = v,
-    },
-    Fitting {
-        label: "PD left",
-        path: "wearer.pd_left_mm",
-        unit: "mm",
-        read: |s| s.wearer.pd_left_mm,
-        write: |s, v| s.wearer.pd_left_mm = v,
-    },
-    Fitting {
-        label: "Fitting height",
-        path: "wearer.fitting_height_mm",
-        unit: "mm",
-        read: |s| s.wearer.fitting_height_mm,
-        write: |s, v| s.wearer.fitting_height_mm = v,
-    },
-    Fitting {
-        label: "Lens height",
-        path: "wearer.lens_height_mm",
-        unit: "mm",
-        read: |s| s.wearer.lens_height_mm,
-        write: |s, v| s.wearer.lens_height_mm = v,
-    },
-    Fitting {
-        label: "Pantoscopic tilt",
-        path: "wearer.pantoscopic_tilt_deg",
-        unit: "°",
-        read: |s| s.wearer.pantoscopic_tilt_deg,
-        write: |s, v| s.wearer.pantoscopic_tilt_deg = v,
-    },
-];
-
-/// The field of one fitting measurement.
-fn fitting_field(f: &Fitting) -> impl IntoView {
-    let (read, write) = (f.read, f.write);
-    scenario_number(
-        f.label,
-        f.path.to_string(),
-        Shown::As(f.unit),
-        move |s| Some(read(s)),
-        move |s, v| {
-            if let Some(v) = v {
-                write(s, v);
-            }
-        },
-        false,
-    )
 }
 
 /// The wearer panel.
@@ -436,54 +273,26 @@ pub fn WearerPanel() -> impl IntoView {
             <h2 id="wearer-heading">"Wearer"</h2>
             <div class="grid">{amplitude_fields()}</div>
             <div class="eyes">
-                {eye_fields("Right", |s| &s.wearer.right, |s| &mut s.wearer.right)}
-                {eye_fields("Left", |s| &s.wearer.left, |s| &mut s.wearer.left)}
+                {eye_fields("Right", 0, |s| &s.wearer.right, |s| &mut s.wearer.right)}
+                {eye_fields("Left", 1, |s| &s.wearer.left, |s| &mut s.wearer.left)}
             </div>
             <div class="grid">
-                {scenario_number(
-                    "Prescribed addition",
-                    "wearer.prescribed_addition_d".into(),
-                    Shown::As("D"),
-                    |s| s.wearer.prescribed_addition_d,
-                    |s, v| s.wearer.prescribed_addition_d = v,
-                    true,
-                )}
+                {number_field(&fields::PRESCRIBED_ADDITION, 0)}
                 {correction_fields()}
             </div>
             <h3>"Fitting"</h3>
             <div class="grid">
-                {FITTING.iter().map(fitting_field).collect_view()}
+                {fields::FITTING.iter().map(|f| number_field(f, 0)).collect_view()}
             </div>
             <h3>"Sustained work"</h3>
             <div class="grid">
-                {scenario_number(
-                    "Usable share of amplitude",
-                    "wearer.usable_fraction".into(),
-                    Shown::Percent,
-                    |s| Some(s.wearer.usable_fraction),
-                    |s, v| s.wearer.usable_fraction = v.unwrap_or(0.0),
-                    false,
-                )}
+                {number_field(&fields::USABLE_FRACTION, 0)}
                 {pupil_and_blur_fields()}
             </div>
             <fieldset class="grid">
                 <legend>"Limits the plan is judged against"</legend>
-                {scenario_number(
-                    "Driving acuity standard (decimal)",
-                    "settings.driving_acuity_decimal".into(),
-                    Shown::As(""),
-                    |s| Some(s.settings.driving_acuity_decimal),
-                    |s, v| s.settings.driving_acuity_decimal = v.unwrap_or(0.0),
-                    false,
-                )}
-                {scenario_number(
-                    "Vertical prism limit",
-                    "settings.vertical_imbalance_limit_pd".into(),
-                    Shown::As("Δ"),
-                    |s| Some(s.settings.vertical_imbalance_limit_pd),
-                    |s, v| s.settings.vertical_imbalance_limit_pd = v.unwrap_or(0.0),
-                    false,
-                )}
+                {number_field(&fields::DRIVING_ACUITY, 0)}
+                {number_field(&fields::IMBALANCE_LIMIT, 0)}
                 {addition_settings()}
             </fieldset>
         </section>

@@ -289,6 +289,14 @@ pub fn option_axes(choice: &FamilyChoice) -> (Family, [Option<Axis>; 3]) {
     }
 }
 
+impl FamilyChoice {
+    /// The parameters of this specification's family, in the order of
+    /// [`option_axes`] (fixed or open alike).
+    pub fn parameters(&self) -> impl Iterator<Item = Parameter> {
+        option_axes(self).1.into_iter().flatten().map(|a| a.kind)
+    }
+}
+
 /// `choice` with every parameter set from `v` (in the order of [`option_axes`]).
 pub fn with_values(choice: &FamilyChoice, v: [f64; 3]) -> FamilyChoice {
     match choice {

@@ -3,7 +3,7 @@
 // minimum (4.5:1, or 3:1 for large text) against the background it is drawn on.
 import { test } from "node:test";
 import assert from "node:assert/strict";
-import { appUnderTest } from "../support/harness.js";
+import { appUnderTest, screenshot } from "../support/harness.js";
 import { freshPlanner } from "../support/planner-page.js";
 
 const app = appUnderTest();
@@ -18,6 +18,41 @@ test("every form control has a label", async () => {
       .map((el) => el.outerHTML.slice(0, 120)),
   );
   assert.deepEqual(unlabelled, []);
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
+test("every number field has help, opened by keyboard or finger and read as its description", async () => {
+  const { context, page, planner } = await freshPlanner(app.browser(), app.url());
+  await planner.open();
+  await planner.byTestId("range-chart").waitFor();
+  const withoutHelp = await page.evaluate(() =>
+    [...document.querySelectorAll('input[inputmode="decimal"]')]
+      .filter((input) => {
+        const described = (input.getAttribute("aria-describedby") ?? "").split(" ");
+        const help = described.map((id) => document.getElementById(id)).find((e) => e?.matches("small.help"));
+        return !help || help.textContent.trim().length < 60;
+      })
+      .map((input) => input.dataset.testid),
+  );
+  assert.deepEqual(withoutHelp, []);
+  const field = page.locator(".field", { has: page.getByTestId("tasks-0--distance_m") });
+  const toggle = field.getByRole("button", { name: "Help", exact: true });
+  const help = field.locator("small.help");
+  assert.equal(await help.isVisible(), false, "help starts closed, so the form stays short");
+  await toggle.focus();
+  await page.keyboard.press("Enter");
+  await help.waitFor({ state: "visible" });
+  assert.equal(await toggle.getAttribute("aria-expanded"), "true");
+  assert.match(await help.textContent(), /line of sight.*tape.*common practice/s);
+  const detail = page.locator(".field", { has: page.getByTestId("tasks-0--detail_mm") });
+  await detail.getByRole("button", { name: "Help", exact: true }).click();
+  await detail.locator("small.help").waitFor({ state: "visible" });
+  await field.scrollIntoViewIfNeeded();
+  await screenshot(page, "field-help", { fullPage: false });
+  await toggle.focus();
+  await page.keyboard.press("Enter");
+  await help.waitFor({ state: "hidden" });
   assert.deepEqual(page.problems(), []);
   await context.close();
 });

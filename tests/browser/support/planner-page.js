@@ -74,12 +74,13 @@ export class PlannerPage {
     return this.byTestId(testId).inputValue();
   }
 
-  /** The message shown for a field: the element its aria-describedby names. */
+  /** The message shown for a field: the message among the elements its aria-describedby names (the field's help is the other). */
   async messageFor(testId) {
     const field = this.byTestId(testId);
-    const id = await field.getAttribute("aria-describedby");
-    if (!id) throw new Error(`field ${testId} has no aria-describedby`);
-    return (await this.page.locator(`[id="${id}"]`).textContent()).trim();
+    const ids = (await field.getAttribute("aria-describedby"))?.split(" ") ?? [];
+    const message = ids.map((id) => `[id="${id}"].message`).join(", ");
+    if (!message) throw new Error(`field ${testId} has no aria-describedby`);
+    return (await this.page.locator(message).textContent()).trim();
   }
 
   /** The unit written after the field with test id `testId`. */
