@@ -1,6 +1,6 @@
 //! Pictures of a task for the wearer walkthrough, drawn by the app in grey:
 //! a screen with text, a printed page, a bench with small parts, a road with
-//! a sign, or a notice on a wall. Everything is measured in *cells*, the
+//! a sign, a vehicle's instrument panel, or a notice on a wall. Everything is measured in *cells*, the
 //! size of the task's critical detail in the picture: the strokes of the
 //! letters (a 5 x 7 dot matrix, so a letter is 7 details high) and the
 //! smallest parts are one cell wide, so blurring the picture with the blur
@@ -30,49 +30,82 @@ pub fn px_per_arcmin(detail: Millimetres, distance: Metres) -> f64 {
     DETAIL_PX / (angle * ARCMIN_PER_RADIAN)
 }
 
+/// Distance beyond which a task that is not driving is drawn as something
+/// across the room, in metres: past the reach of the arms (common practice).
+pub const ACROSS_THE_ROOM_M: f64 = 1.0;
+
+/// Distance beyond which a driving task is drawn as the road (what is seen
+/// ahead or in a mirror) rather than the instrument panel, in metres (a
+/// product choice: the panel and controls lie within about a metre).
+pub const ROAD_BEYOND_M: f64 = 2.0;
+
+/// Distance up to which an unflagged task is drawn as something held in the
+/// hands (a page or a phone), in metres (common practice: near work at
+/// 40 cm, reaching to about 55 cm).
+pub const HELD_WITHIN_M: f64 = 0.55;
+
+/// Detail finer than this is drawn as parts on a bench, in millimetres (a
+/// product choice: finer than the strokes of small print).
+pub const FINE_WORK_DETAIL_MM: f64 = 0.3;
+
 /// The kinds of picture the walkthrough can draw.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
 pub enum SceneKind {
-    /// A display with lines of text (monitor, laptop, dashboard, instrument).
+    /// A display with lines of text under an "INBOX" title bar (monitor,
+    /// laptop, phone or tablet read as a screen).
     Screen,
     /// A printed page or a phone held close, with lines of text.
     Page,
     /// A work surface with small parts, wires and a printed label.
     Bench,
-    /// A road ahead with a sign beside it.
+    /// A road with a sign beside it (ahead, or behind in a mirror).
     Road,
+    /// A vehicle's instrument panel: dials with needles and figures, and a
+    /// small display.
+    Dashboard,
     /// A notice on a wall across the room.
     Wall,
 }
 
 /// Every scene kind, in a fixed order (for tests and listings).
-pub const SCENE_KINDS: [SceneKind; 5] = [
+pub const SCENE_KINDS: [SceneKind; 6] = [
     SceneKind::Screen,
     SceneKind::Page,
     SceneKind::Bench,
     SceneKind::Road,
+    SceneKind::Dashboard,
     SceneKind::Wall,
 ];
 
 impl SceneKind {
-    /// The picture for a task, from what the scenario says of it: a road
-    /// for driving beyond 2 m, a notice for anything else beyond 1.2 m,
-    /// parts on a bench for hazardous or overhead work and for detail
-    /// finer than 0.3 mm, a page for text within 55 cm, a screen otherwise.
+    /// The picture for a task, from what the scenario says of it, first
+    /// rule that applies: driving is the road beyond [`ROAD_BEYOND_M`] and
+    /// the instrument panel within it; a task marked as reading a screen is
+    /// a screen at any distance; anything from [`ACROSS_THE_ROOM_M`] on is a
+    /// notice across the room; work with an eye hazard, overhead or at moving
+    /// machinery
+    /// and detail finer than [`FINE_WORK_DETAIL_MM`] are parts on a bench;
+    /// within [`HELD_WITHIN_M`] a page; a screen otherwise (the usual task
+    /// at arm's length).
     pub fn for_task(task: &Task) -> SceneKind {
-        let hazards = task.flags.hazards;
-        let workshop = hazards.impact
-            || hazards.splash_or_aerosol
-            || hazards.dust
-            || task.flags.overhead
-            || task.detail_mm < 0.3;
-        if task.flags.driving && task.distance_m > 2.0 {
-            SceneKind::Road
-        } else if task.distance_m > 1.2 {
+        let flags = task.flags;
+        let workshop = flags.hazards.any()
+            || flags.overhead
+            || flags.moving_machinery
+            || task.detail_mm < FINE_WORK_DETAIL_MM;
+        if flags.driving {
+            if task.distance_m > ROAD_BEYOND_M {
+                SceneKind::Road
+            } else {
+                SceneKind::Dashboard
+            }
+        } else if flags.screen {
+            SceneKind::Screen
+        } else if task.distance_m >= ACROSS_THE_ROOM_M {
             SceneKind::Wall
         } else if workshop {
             SceneKind::Bench
-        } else if task.distance_m <= 0.55 {
+        } else if task.distance_m <= HELD_WITHIN_M {
             SceneKind::Page
         } else {
             SceneKind::Screen
@@ -85,7 +118,8 @@ impl SceneKind {
             SceneKind::Screen => "a screen with text",
             SceneKind::Page => "a page of print",
             SceneKind::Bench => "small parts on a work surface",
-            SceneKind::Road => "the road ahead with a sign",
+            SceneKind::Road => "the road with a sign",
+            SceneKind::Dashboard => "the dials and display of a dashboard",
             SceneKind::Wall => "a notice across the room",
         }
     }
@@ -175,6 +209,30 @@ impl Canvas {
             .fill_rect(x * c, y * c, (x + w) * c, (y + h) * c, value);
     }
 
+    /// Fills a disc centred at (`cx`, `cy`) of radius `r`, all in cells, one
+    /// pixel row at a time.
+    fn disc(&mut self, cx: f64, cy: f64, r: f64, value: u8) {
+        let row = 1.0 / self.cell;
+        let mut y = cy - r;
+        while y < cy + r {
+            let dy = y + row / 2.0 - cy;
+            let half = (r * r - dy * dy).max(0.0).sqrt();
+            self.rect(cx - half, y, 2.0 * half, row, value);
+            y += row;
+        }
+    }
+
+    /// A line one cell wide from (`x`, `y`) for `length` cells at `angle`
+    /// radians (counter-clockwise from the right), as cells along it.
+    fn ray(&mut self, x: f64, y: f64, angle: f64, from: f64, length: f64, value: u8) {
+        let mut k = from;
+        while k < from + length {
+            let (px, py) = (x + k * angle.cos(), y - k * angle.sin());
+            self.rect(px - 0.5, py - 0.5, 1.0, 1.0, value);
+            k += 0.5;
+        }
+    }
+
     /// Writes `text` with its top left at (`x`, `y`) cells, one cell per
     /// dot, stopping at `right` cells.
     fn text(&mut self, x: f64, y: f64, right: f64, text: &str, value: u8) {
@@ -221,6 +279,7 @@ pub fn draw(kind: SceneKind, width: usize, height: usize, cell_px: f64) -> GreyI
         SceneKind::Page => page(&mut canvas),
         SceneKind::Bench => bench(&mut canvas),
         SceneKind::Road => road(&mut canvas),
+        SceneKind::Dashboard => dashboard(&mut canvas),
         SceneKind::Wall => wall(&mut canvas),
     }
     canvas.image
@@ -315,6 +374,45 @@ fn road(c: &mut Canvas) {
     c.text(sx + 4.0, sy + 12.0, sx + 30.0, "4 KM", 245);
 }
 
+/// An instrument panel, light on dark: a speed dial and a rev dial, each
+/// with tick marks, a needle and figures one detail in stroke, and a small
+/// display with a line of text between them.
+fn dashboard(c: &mut Canvas) {
+    let (w, h) = c.size();
+    c.rect(0.0, 0.0, w, h, 45);
+    let radius = (w * 0.21).min(h * 0.4);
+    let cy = h * 0.46;
+    // Dials sweep 270 degrees, from 225 degrees (lower left) clockwise.
+    let sweep = |share: f64| (225.0 - 270.0 * share).to_radians();
+    for (cx, ticks, needle, figure) in [(w * 0.27, 8, 0.4, "64 KMH"), (w * 0.73, 7, 0.3, "2 RPM")] {
+        c.disc(cx, cy, radius, 15);
+        for i in 0..=ticks {
+            c.ray(
+                cx,
+                cy,
+                sweep(f64::from(i) / f64::from(ticks)),
+                radius - 5.0,
+                3.5,
+                230,
+            );
+        }
+        c.ray(cx, cy, sweep(needle), 0.0, radius - 7.0, 245);
+        let width = figure.len() as f64 * ADVANCE - 1.0;
+        c.text(
+            cx - width / 2.0,
+            cy + radius * 0.4,
+            cx + radius,
+            figure,
+            230,
+        );
+    }
+    // The display between the dials.
+    let (dw, dh) = ((w * 0.2).max(26.0), 11.0);
+    let (dx, dy) = ((w - dw) / 2.0, cy + radius - dh);
+    c.rect(dx, dy, dw, dh, 25);
+    c.text(dx + 2.0, dy + 2.0, dx + dw - 1.0, "RANGE 310 KM", 220);
+}
+
 /// A wall with a framed notice of a few lines.
 fn wall(c: &mut Canvas) {
     let (w, h) = c.size();
@@ -330,6 +428,137 @@ fn wall(c: &mut Canvas) {
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::scenario::{Hazards, Task};
+
+    /// A task at `distance_m` with `detail_mm` detail, changed by `flags`.
+    fn task(distance_m: f64, detail_mm: f64, flags: impl Fn(&mut Task)) -> Task {
+        let mut t = Task::desk_screen("task");
+        t.distance_m = distance_m;
+        t.detail_mm = detail_mm;
+        flags(&mut t);
+        t
+    }
+
+    // One case per rule of the picker, each at the kind of task the demo
+    // days hold (tests/walkthrough_words.rs walks every demo task).
+    #[test]
+    fn the_picker_follows_its_rules_in_order() {
+        let driving = |t: &mut Task| t.flags.driving = true;
+        let screen = |t: &mut Task| t.flags.screen = true;
+        let impact = |t: &mut Task| t.flags.hazards.impact = true;
+        let plain = |_: &mut Task| {};
+        let cases: [(&str, Task, SceneKind); 14] = [
+            ("road ahead", task(30.0, 100.0, driving), SceneKind::Road),
+            ("door mirror", task(8.0, 10.0, driving), SceneKind::Road),
+            ("dashboard", task(0.75, 3.0, driving), SceneKind::Dashboard),
+            (
+                "dashboard at the limit",
+                task(ROAD_BEYOND_M, 3.0, driving),
+                SceneKind::Dashboard,
+            ),
+            (
+                "inbox on a monitor",
+                task(0.65, 2.5, screen),
+                SceneKind::Screen,
+            ),
+            (
+                "phone read as a screen",
+                task(0.35, 1.2, screen),
+                SceneKind::Screen,
+            ),
+            (
+                "meeting-room screen",
+                task(4.0, 15.0, screen),
+                SceneKind::Screen,
+            ),
+            (
+                "drawers on the wall",
+                task(ACROSS_THE_ROOM_M, 3.0, plain),
+                SceneKind::Wall,
+            ),
+            (
+                "colleague across the desk",
+                task(1.5, 20.0, plain),
+                SceneKind::Wall,
+            ),
+            ("soldering", task(0.28, 0.2, impact), SceneKind::Bench),
+            (
+                "fine parts, no hazard",
+                task(0.3, 0.2, plain),
+                SceneKind::Bench,
+            ),
+            (
+                "lathe",
+                task(0.6, 1.0, |t| t.flags.moving_machinery = true),
+                SceneKind::Bench,
+            ),
+            (
+                "notes on paper",
+                task(HELD_WITHIN_M, 1.5, plain),
+                SceneKind::Page,
+            ),
+            (
+                "monitor without the screen mark",
+                task(0.7, 1.5, plain),
+                SceneKind::Screen,
+            ),
+        ];
+        for (what, t, kind) in cases {
+            assert_eq!(SceneKind::for_task(&t), kind, "{what}");
+        }
+        // A screen at a hazardous bench is still read as a screen; welding
+        // (optical radiation) is bench work.
+        let guarded = task(0.5, 3.0, |t| {
+            t.flags.screen = true;
+            t.flags.hazards = Hazards {
+                impact: true,
+                ..Hazards::default()
+            };
+        });
+        assert_eq!(SceneKind::for_task(&guarded), SceneKind::Screen);
+        let welding = task(0.5, 1.0, |t| t.flags.hazards.optical_radiation = true);
+        assert_eq!(SceneKind::for_task(&welding), SceneKind::Bench);
+    }
+
+    /// Pixels of `value` within the rows `top..bottom` of `image`.
+    fn count_in_rows(image: &GreyImage, value: u8, top: usize, bottom: usize) -> usize {
+        image.pixels()[top * image.width()..bottom * image.width()]
+            .iter()
+            .filter(|&&p| p == value)
+            .count()
+    }
+
+    #[test]
+    fn a_screen_shows_lines_of_text_under_its_title_bar() {
+        let cell = 3.0;
+        let image = draw(SceneKind::Screen, 480, 300, cell);
+        // The title bar (cells 4 to 16) holds the word INBOX in ink.
+        let title = count_in_rows(&image, INK, (4.0 * cell) as usize, (16.0 * cell) as usize);
+        // Dots counted by hand on the 5 x 7 letters: I 11, N 17, B 20, O 16, X 13.
+        let inbox_dots = 11 + 17 + 20 + 16 + 13;
+        assert_eq!(title, inbox_dots * 9, "INBOX, 3 x 3 px a dot");
+        // Below it, one text line every 11 cells, each with ink.
+        for line in 0..5 {
+            let top = ((22.0 + 11.0 * f64::from(line)) * cell) as usize;
+            let ink = count_in_rows(&image, INK, top, top + (7.0 * cell) as usize);
+            assert!(ink > 200, "line {line} has letters ({ink} ink pixels)");
+        }
+    }
+
+    #[test]
+    fn a_dashboard_shows_dials_and_figures_light_on_dark() {
+        let image = draw(SceneKind::Dashboard, 480, 300, 3.0);
+        let count_at_least = |value: u8| image.pixels().iter().filter(|&&p| p >= value).count();
+        let dark = image.pixels().iter().filter(|&&p| p <= 45).count();
+        assert!(dark > image.pixels().len() / 2, "a dark panel");
+        assert!(
+            count_at_least(220) > 1000,
+            "light ticks, needles and figures"
+        );
+        // The dial faces are darker than the panel, one either side.
+        assert_eq!(image.get(480 * 27 / 100, 300 * 46 / 100 + 20), Some(15));
+        assert_eq!(image.get(480 * 73 / 100, 300 * 46 / 100 + 20), Some(15));
+    }
 
     fn count(image: &GreyImage, value: u8) -> usize {
         image.pixels().iter().filter(|&&p| p == value).count()

@@ -84,6 +84,8 @@ impl Sharpness {
 pub struct Picture {
     /// Whose lenses: "Your glasses now" or the option's label.
     pub label: String,
+    /// The option's input index; `None` for the glasses now.
+    pub option: Option<usize>,
     /// Whether these are the lenses the walkthrough is about.
     pub chosen: bool,
     /// The defocus the eye cannot remove there, in dioptres (0 when in focus).
@@ -221,12 +223,13 @@ pub fn walkthrough(
             }
             let pictures = now
                 .zip(before)
-                .map(|(_, b)| picture(now_label(plan), false, b))
+                .map(|(_, b)| picture(now_label(plan), None, false, b))
                 .into_iter()
                 .chain(plan.options.iter().filter_map(|o| {
                     let t = o.tasks.iter().find(|t| t.task.index == i)?;
                     Some(picture(
                         &o.option.label,
+                        Some(o.option.index),
                         o.option.index == option.option.index,
                         t,
                     ))
@@ -250,9 +253,10 @@ pub fn walkthrough(
     })
 }
 
-fn picture(label: &str, chosen: bool, task: &TaskPlan) -> Picture {
+fn picture(label: &str, option: Option<usize>, chosen: bool, task: &TaskPlan) -> Picture {
     Picture {
         label: label.to_string(),
+        option,
         chosen,
         defocus: task.blur.defocus,
         sharpness: Sharpness::of(task),

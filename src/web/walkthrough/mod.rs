@@ -1,9 +1,12 @@
 //! The wearer walkthrough: a read-only presentation over the whole screen,
 //! opened from the plan, one task per step and a closing step, with next and
-//! back by tap, swipe and the arrow keys, and Escape to close. The words
-//! come from `plan::walkthrough`, the pictures from the core's scene and blur
-//! disc; this layer only reads the app state and draws. Nothing here edits
-//! the scenario.
+//! back by tap, swipe and the left and right arrow keys, and Escape to
+//! close. The lenses the words are about start as the planned option; the
+//! wearer may look at any other option planned (a tap on its name, or the
+//! up and down arrow keys), which changes only what this presentation shows.
+//! The words come from `plan::walkthrough`, the pictures from the core's
+//! scene and blur disc; this layer only reads the app state and draws.
+//! Nothing here edits the scenario.
 
 mod picture;
 
@@ -70,6 +73,7 @@ fn task_view(
     state: AppState,
     step: &TaskStep,
     pupil: Millimetres,
+    planned: Option<usize>,
     enlarged: RwSignal<Option<(PictureSpec, String)>>,
 ) -> impl IntoView {
     let unit = state.unit.get_untracked();
@@ -111,7 +115,7 @@ fn task_view(
                         </button>
                         <figcaption>
                             <strong>{p.label.clone()}</strong>
-                            {p.chosen.then_some(" (planned for you)")}
+                            {(p.option.is_some() && p.option == planned).then_some(" (planned for you)")}
                             <span class=format!("walk-sharpness {}", sharpness_class(p.sharpness))>
                                 {caption(p)}
                             </span>
@@ -195,19 +199,53 @@ pub fn WalkthroughLauncher() -> impl IntoView {
             })
             .flatten()
     });
+    // The option the order is written for: the dispenser's choice or the
+    // recommendation (the first option ranked).
+    let planned = Memo::new(move |_| {
+        state.outcome.with(|o| {
+            o.plan.as_ref().and_then(|p| {
+                p.choice
+                    .as_ref()
+                    .map(|c| c.chosen.index)
+                    .or_else(|| p.options.first().map(|o| o.option.index))
+            })
+        })
+    });
+    // The options planned, by input index and label, for the lens switch.
+    let lenses = Memo::new(move |_| {
+        if !open.get() {
+            return Vec::new();
+        }
+        state.outcome.with(|o| {
+            o.plan.as_ref().map_or_else(Vec::new, |p| {
+                p.options
+                    .iter()
+                    .map(|o| (o.option.index, o.option.label.clone()))
+                    .collect::<Vec<_>>()
+            })
+        })
+    });
+    // The option the wearer is looking at: only this presentation's own
+    // state, never written to the scenario.
+    let shown = RwSignal::new(None::<usize>);
+    let showing = move || shown.get().or_else(|| planned.get());
     let walk = Memo::new(move |_| {
         if !open.get() {
             return None;
         }
+        let index = showing();
         state.outcome.with(|o| {
-            o.plan.as_ref().and_then(|p| {
-                // The option the order is written for: the dispenser's choice
-                // or the recommendation.
-                let chosen = p.choice.as_ref().map(|c| c.chosen.index);
-                current.with(|now| walkthrough(p, now.as_ref(), chosen))
-            })
+            o.plan
+                .as_ref()
+                .and_then(|p| current.with(|now| walkthrough(p, now.as_ref(), index)))
         })
     });
+    // The lenses at `position` in the list (from the number keys, 0 first).
+    let show_at = move |position: usize| {
+        if let Some(index) = lenses.with_untracked(|l| l.get(position).map(|(i, _)| *i)) {
+            shown.set(Some(index));
+        }
+    };
     let count = move || walk.with(|w| w.as_ref().map_or(1, |w| w.steps.len() + 1));
     let at = move || step.get().min(count() - 1);
     let close = move || {
@@ -232,6 +270,13 @@ pub fn WalkthroughLauncher() -> impl IntoView {
             "Escape" => close(),
             "ArrowRight" | "PageDown" if enlarged.get_untracked().is_none() => next(),
             "ArrowLeft" | "PageUp" if enlarged.get_untracked().is_none() => back(),
+            key if enlarged.get_untracked().is_none()
+                && key.len() == 1
+                && key.as_bytes()[0].is_ascii_digit()
+                && key != "0" =>
+            {
+                show_at(usize::from(key.as_bytes()[0] - b'1'))
+            }
             _ => return,
         }
         ev.prevent_default();
@@ -263,7 +308,7 @@ pub fn WalkthroughLauncher() -> impl IntoView {
             };
             let i = at();
             match w.steps.get(i) {
-                Some(s) => task_view(state, s, w.pupil, enlarged).into_any(),
+                Some(s) => task_view(state, s, w.pupil, planned.get(), enlarged).into_any(),
                 None => closing_view(&w.closing).into_any(),
             }
         })
@@ -274,7 +319,10 @@ pub fn WalkthroughLauncher() -> impl IntoView {
                 || "Walkthrough".to_string(),
                 |w: &Walkthrough| match w.steps.get(at()) {
                     Some(s) => s.name.clone(),
-                    None => format!("Your choice: {}", w.closing.option.label),
+                    None if Some(w.closing.option.index) == planned.get() => {
+                        format!("Your choice: {}", w.closing.option.label)
+                    }
+                    None => format!("Another choice: {}", w.closing.option.label),
                 },
             )
         })
@@ -308,6 +356,7 @@ pub fn WalkthroughLauncher() -> impl IntoView {
             data-testid="walk-open"
             on:click=move |_| {
                 step.set(0);
+                shown.set(None);
                 open.set(true);
             }
         >
@@ -333,6 +382,29 @@ pub fn WalkthroughLauncher() -> impl IntoView {
                         "Close"
                     </button>
                 </header>
+                <div class="walk-lenses" role="group" aria-label="Lenses shown" data-testid="walk-lenses">
+                    <span class="walk-lenses-label">"Lenses shown:"</span>
+                    {move || {
+                        lenses
+                            .get()
+                            .into_iter()
+                            .enumerate()
+                            .map(|(position, (index, label))| {
+                                view! {
+                                    <button
+                                        type="button"
+                                        aria-pressed=move || (showing() == Some(index)).to_string()
+                                        aria-keyshortcuts=(position < 9).then(|| (position + 1).to_string())
+                                        data-testid="walk-lens"
+                                        on:click=move |_| shown.set(Some(index))
+                                    >
+                                        {label}
+                                    </button>
+                                }
+                            })
+                            .collect_view()
+                    }}
+                </div>
                 <div class="walk-body" aria-live="polite">{body}</div>
                 <nav class="walk-nav" aria-label="Walkthrough steps">
                     <button
@@ -343,7 +415,7 @@ pub fn WalkthroughLauncher() -> impl IntoView {
                     >
                         "Back"
                     </button>
-                    <p class="walk-hint">"Swipe, or use the arrow keys"</p>
+                    <p class="walk-hint">"Swipe, or use the arrow keys; number keys pick the lenses"</p>
                     <button type="button" class="primary" data-testid="walk-next" on:click=move |_| next()>
                         {move || if last() { "Done" } else { "Next" }}
                     </button>

@@ -1,7 +1,8 @@
 //! One picture of a task on a `<canvas>`: the core draws the scene and
 //! blurs it with the geometric blur disc; this file only hands the pixels to
-//! the canvas and notes how long that took (`data-render-ms`, read by the
-//! browser measurement).
+//! the canvas and notes how long that took (`data-render-ms`, and the split
+//! into drawing, blurring into RGBA and handing over to the canvas in
+//! `data-render-phases`, read by the browser measurement).
 
 use crate::chart::scene::{draw, px_per_arcmin, SceneKind, DETAIL_PX};
 use crate::core::blur_image::BlurDisc;
@@ -28,27 +29,45 @@ pub struct PictureSpec {
 }
 
 /// Draws `spec` into `canvas` at the canvas's own pixel size and records the
-/// time taken in milliseconds on the element. A blur the core cannot size
-/// leaves the sharp scene (the caption still gives the words).
+/// time taken in milliseconds on the element, in all and by phase. A blur
+/// the core cannot size leaves the sharp scene (the caption still gives the
+/// words).
 fn paint(canvas: &HtmlCanvasElement, spec: PictureSpec) {
     let start = now_ms();
     let (w, h) = (canvas.width() as usize, canvas.height() as usize);
     let scene = draw(spec.kind, w, h, DETAIL_PX);
+    let drawn_at = now_ms();
     let scale = px_per_arcmin(spec.detail, spec.distance);
-    let image = match BlurDisc::from_defocus(spec.defocus, spec.pupil, scale) {
-        Ok(disc) => disc.apply(&scene),
-        Err(_) => scene,
-    };
-    let rgba = image.to_rgba();
+    let disc = BlurDisc::from_defocus(spec.defocus, spec.pupil, scale).ok();
+    let mut pixels = Vec::new();
+    match disc {
+        Some(disc) => disc.apply_rgba(&scene, &mut pixels),
+        None => scene.write_rgba(&mut pixels),
+    }
+    let blurred_at = now_ms();
+    let rgba = pixels.as_flattened();
+    // An opaque canvas: the pictures have no transparency, so nothing behind
+    // them needs blending.
+    let options = js_sys::Object::new();
+    let _ = js_sys::Reflect::set(&options, &"alpha".into(), &false.into());
     let drawn = canvas
-        .get_context("2d")
+        .get_context_with_context_options("2d", &options)
         .ok()
         .flatten()
         .and_then(|c| c.dyn_into::<CanvasRenderingContext2d>().ok())
-        .zip(ImageData::new_with_u8_clamped_array_and_sh(Clamped(&rgba), w as u32, h as u32).ok())
+        .zip(ImageData::new_with_u8_clamped_array_and_sh(Clamped(rgba), w as u32, h as u32).ok())
         .map(|(context, data)| context.put_image_data(&data, 0.0, 0.0).is_ok());
     if drawn == Some(true) {
-        let _ = canvas.set_attribute("data-render-ms", &format!("{:.2}", now_ms() - start));
+        let end = now_ms();
+        let phases = format!(
+            "disc {:.1} px scene {:.2} blur {:.2} canvas {:.2}",
+            disc.map_or(0.0, |d| d.radius_px),
+            drawn_at - start,
+            blurred_at - drawn_at,
+            end - blurred_at
+        );
+        let _ = canvas.set_attribute("data-render-phases", &phases);
+        let _ = canvas.set_attribute("data-render-ms", &format!("{:.2}", end - start));
     }
 }
 

@@ -117,3 +117,53 @@ test("a tapped picture opens over the whole tablet screen and Escape closes only
   assert.deepEqual(page.problems(), []);
   await context.close();
 });
+
+test("the wearer looks at another option by tap and number key; the plan and the scenario stay as they were", async () => {
+  const demo = demos.find((d) => d.stem === "electronics-bench");
+  const { context, page, planner, walk } = await tabletOn(VIEWPORTS.tabletPortrait, demo.name);
+  const before = await planner.storedScenarios();
+  await walk.open({ touch: true });
+
+  const lenses = await walk.lenses();
+  assert.equal(lenses.length, demo.options, "one switch per option planned");
+  const planned = lenses.find((l) => l.pressed);
+  assert.ok(planned, "the planned option is shown first");
+  assert.equal(await walk.outlinedPicture(), planned.label);
+  const plannedWords = await walk.sentences();
+
+  // A tap on another option: its picture is outlined and the words are about it.
+  const other = lenses.find((l) => !l.pressed);
+  await walk.showLenses(other.label, { touch: true });
+  await walk.pictures();
+  assert.equal(await walk.outlinedPicture(), other.label);
+  assert.notDeepEqual(await walk.sentences(), plannedWords, "the words follow the lenses shown");
+  assert.match(await page.locator(".walk-figure", { hasText: planned.label }).textContent(), /planned for you/);
+  await screenshot(page, "walk-portrait-electronics-bench-another-option", { fullPage: false });
+
+  // The number keys pick by position; the choice holds from step to step.
+  await walk.press("1");
+  await page.waitForFunction((label) => document.querySelector('[data-testid="walk-lens"][aria-pressed="true"]')?.textContent.trim() === label, lenses[0].label);
+  const third = lenses[2].label;
+  await walk.press("3");
+  await page.waitForFunction((label) => document.querySelector('[data-testid="walk-lens"][aria-pressed="true"]')?.textContent.trim() === label, third);
+  await walk.press("ArrowRight");
+  await walk.waitForStep(2);
+  await walk.pictures();
+  assert.equal(await walk.outlinedPicture(), third);
+  assert.deepEqual(await walk.layoutFaults(), []);
+
+  // The closing step says whose lenses these are.
+  for (let at = 2; at < demo.tasks + 1; at += 1) await walk.tap("Next");
+  await walk.waitForStep(demo.tasks + 1);
+  const title = await walk.title();
+  assert.equal(title, third === planned.label ? `Your choice: ${third}` : `Another choice: ${third}`);
+
+  // Closing and opening again starts from the planned option; nothing was saved.
+  await walk.press("Escape");
+  await page.getByTestId("walkthrough").waitFor({ state: "detached" });
+  assert.deepEqual(await planner.storedScenarios(), before, "looking at another option changes nothing");
+  await walk.open();
+  assert.equal((await walk.lenses()).find((l) => l.pressed)?.label, planned.label);
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});

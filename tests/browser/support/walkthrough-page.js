@@ -86,6 +86,29 @@ export class WalkthroughPage {
     await cdp.detach();
   }
 
+  /** The lens switch: [{ label, pressed }] in the plan's order. */
+  async lenses() {
+    return this.page.getByTestId("walk-lens").evaluateAll((els) =>
+      els.map((e) => ({ label: e.textContent.trim(), pressed: e.getAttribute("aria-pressed") === "true" })),
+    );
+  }
+
+  /** Shows the lenses named `label`, by tap when `touch`, by click otherwise. */
+  async showLenses(label, { touch = false } = {}) {
+    const button = this.page.getByTestId("walk-lenses").getByRole("button", { name: label, exact: true });
+    if (touch) await button.tap();
+    else await button.click();
+    await this.page.waitForFunction(
+      (name) => [...document.querySelectorAll('[data-testid="walk-lens"][aria-pressed="true"]')].some((e) => e.textContent.trim() === name),
+      label,
+    );
+  }
+
+  /** The label of the picture outlined as the lenses shown. */
+  async outlinedPicture() {
+    return (await this.page.locator(".walk-figure.chosen figcaption strong").textContent()).trim();
+  }
+
   async isOpen() {
     return (await this.page.getByTestId("walkthrough").count()) > 0;
   }
