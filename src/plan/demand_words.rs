@@ -34,20 +34,39 @@ impl TaskDemand {
         format!("{needs}, {has}{}", tail.unwrap_or_default())
     }
 
-    /// The head posture the glasses force and how sustainable it is:
-    /// "chin up 23°: not sustainable", "head upright: comfortable".
+    /// The head posture the glasses force and how sustainable it is, with
+    /// its angles: "chin up 23°: not sustainable", "head turned 14°, a
+    /// further 6° to sweep across it: tiring", "head upright: comfortable".
+    /// A driving task's head turn (to a door mirror) is a glance, part of
+    /// driving, and is said so: "head turned 21°: a glance while driving,
+    /// not a held posture".
     pub fn posture_words(&self) -> String {
         let tilt = self.chin_up.0;
-        let how = if tilt > 0.5 {
-            format!("chin up {tilt:.0}°")
+        let mut parts = Vec::new();
+        if tilt > 0.5 {
+            parts.push(format!("chin up {tilt:.0}°"));
         } else if tilt < -0.5 {
-            format!("chin down {:.0}°", -tilt)
-        } else if self.posture != Strain::Comfortable {
-            "head turned".to_string()
+            parts.push(format!("chin down {:.0}°", -tilt));
+        }
+        let turned = self.head_turn.0 > 0.5 || self.head_sweep.0 > 0.5;
+        if self.head_turn.0 > 0.5 {
+            parts.push(format!("head turned {:.0}°", self.head_turn.0));
+        }
+        if self.head_sweep.0 > 0.5 {
+            parts.push(format!(
+                "a further {:.0}° to sweep across it",
+                self.head_sweep.0
+            ));
+        }
+        if parts.is_empty() {
+            parts.push("head upright".to_string());
+        }
+        let how = parts.join(", ");
+        if self.driving && turned && self.posture == Strain::Comfortable {
+            format!("{how}: a glance while driving, not a held posture")
         } else {
-            "head upright".to_string()
-        };
-        format!("{how}: {}", self.posture)
+            format!("{how}: {}", self.posture)
+        }
     }
 
     /// The detail size as an angle, against the character-height guidance

@@ -7,15 +7,22 @@
 //! Every judgement comes from [`super::plan`] itself: the current glasses
 //! are planned as the only option, a workstation change is checked by
 //! planning the changed workstation again, and task-specific eyewear by
-//! planning a single-vision task lens. The flags screen and document; they
-//! defer every power and design to licensed eye-care practice.
+//! planning a single-vision task lens, which must clear every reason but the
+//! text size and is never the lens already worn. A driving task is judged
+//! by the driving standard and gets neither a workstation change nor a task
+//! lens (glasses are not swapped for a glance, and plus for the dashboard
+//! blurs the road): when it is not fine it is referred, with the planner's
+//! driving figures; a head turn to a mirror is a glance, not a flag. The
+//! flags screen and document; they defer every power and design to
+//! licensed eye-care practice.
 
 use super::ergonomics::{
     size_for_arcmin, subtended_arcmin, AMPLITUDE_BELOW_NORM_REFER_D, CHARACTER_HEIGHT_MIN_ARCMIN,
     CHARACTER_HEIGHT_PREFERRED_ARCMIN, MAX_DISTANCE_CHANGE_M, NEAREST_WORKING_DISTANCE_M,
 };
 use super::{
-    plan, AmplitudeSource, AmplitudeUsed, FarLimit, Plan, PlanError, Strain, TaskPlan, ZoneRange,
+    plan, AmplitudeSource, AmplitudeUsed, DefocusDirection, FarLimit, Plan, PlanError, Strain,
+    TaskPlan, ZoneRange,
 };
 use super::{TaskRef, Verdict};
 use crate::core::accommodation::AgeModel;
@@ -82,13 +89,24 @@ pub struct TaskDemand {
     pub gaze: Degrees,
     /// Head tilt the glasses force, in degrees (positive lifts the chin).
     pub chin_up: Degrees,
-    /// How sustainable the worst of the head pitch and head turn is.
+    /// Head turn held towards the task, in degrees (a task beyond the lens
+    /// edge or beside a corridor's usable zone; 0 when none).
+    pub head_turn: Degrees,
+    /// Further head turn to sweep across the task, in degrees (0 when the
+    /// zone is wide enough).
+    pub head_sweep: Degrees,
+    /// How sustainable the worst of the head pitch and head turn is. For a
+    /// driving task only the pitch counts: a turn to a mirror is a glance,
+    /// part of driving, not a held posture.
     pub posture: Strain,
     /// Detail size as an angle, in minutes of arc.
     pub detail_arcmin: f64,
     /// Whether the task is reading text on a display (the character-height
     /// guidance applies).
     pub screen: bool,
+    /// Whether the task is part of driving (judged by the driving vision
+    /// standard; never offered task eyewear or workstation changes).
+    pub driving: bool,
     /// The focus verdict through the current glasses.
     pub verdict: Verdict,
     /// The flag, with its reasons and what would clear it.
@@ -194,9 +212,41 @@ pub enum Reason {
     Posture {
         /// Head tilt, in degrees (positive lifts the chin).
         chin_up: Degrees,
+        /// Head turn held towards the task, in degrees.
+        turn: Degrees,
+        /// Further head turn to sweep across the task, in degrees.
+        sweep: Degrees,
         /// How sustainable it is.
         strain: Strain,
     },
+    /// Unequal vertical powers give more vertical prism between the eyes
+    /// where the task is seen than the plan's limit (Prentice's rule).
+    VerticalPrism {
+        /// Vertical prism difference at the task's lens point, in prism dioptres.
+        imbalance: PrismDioptres,
+        /// The plan's limit, in prism dioptres.
+        limit: PrismDioptres,
+    },
+    /// A driving task against the driving vision standard of the plan
+    /// settings (one chart line to spare), in the planner's own figures.
+    DrivingVision {
+        /// Defocus the whole amplitude cannot remove, in dioptres (0 when none).
+        defocus: Dioptres,
+        /// The defocus lies beyond the near end of the whole focusing range
+        /// (more plus would help); otherwise the glasses give too much plus.
+        nearer_than_range: bool,
+        /// Decimal acuity Smith's (1991) relation estimates from that
+        /// defocus, for an eye that sees 1.0 when corrected.
+        acuity: f64,
+        /// The standard, decimal.
+        standard: f64,
+        /// Whether the task meets the standard with a line to spare.
+        meets: bool,
+    },
+    /// A driving task is not given task eyewear: glasses for driving must
+    /// keep the road and mirrors sharp, and are for licensed practice under
+    /// the local driving-vision rules.
+    DrivingEyewear,
     /// Screen text smaller than the guidance's minimum.
     SmallText {
         /// Character height, in minutes of arc.
@@ -232,18 +282,70 @@ impl fmt::Display for Reason {
                 "the glasses give {:.2} D more plus than this distance can take",
                 excess.0
             ),
-            Reason::Posture { chin_up, strain } => {
-                let how = match strain {
-                    Strain::Comfortable => "comfortable",
-                    Strain::Tiring => "tiring",
-                    Strain::NotSustainable => "not sustainable",
-                };
+            Reason::Posture {
+                chin_up,
+                turn,
+                sweep,
+                strain,
+            } => {
+                let mut parts = Vec::new();
                 if chin_up.0 > 0.5 {
-                    write!(f, "chin lifted {:.0}° to see it: {how}", chin_up.0)
+                    parts.push(format!("chin lifted {:.0}°", chin_up.0));
                 } else if chin_up.0 < -0.5 {
-                    write!(f, "chin dropped {:.0}° to see it: {how}", -chin_up.0)
+                    parts.push(format!("chin dropped {:.0}°", -chin_up.0));
+                }
+                if turn.0 > 0.5 {
+                    parts.push(format!("head turned {:.0}° towards it", turn.0));
+                }
+                if sweep.0 > 0.5 {
+                    parts.push(format!("a further {:.0}° to sweep across it", sweep.0));
+                }
+                if parts.is_empty() {
+                    parts.push("no head posture brings it into view".to_string());
+                }
+                write!(f, "{} to see it: {strain}", parts.join(", "))
+            }
+            Reason::VerticalPrism { imbalance, limit } => write!(
+                f,
+                "{:.2} Δ of vertical prism between the eyes here, above the {:.2} Δ limit \
+                 (Prentice's rule); centration, slab-off or contact lenses are for an \
+                 eye-care practitioner to weigh",
+                imbalance.0, limit.0
+            ),
+            Reason::DrivingVision {
+                defocus,
+                nearer_than_range,
+                acuity,
+                standard,
+                meets,
+            } => {
+                if meets {
+                    write!(
+                        f,
+                        "driving vision: {:.2} D out of focus, estimated acuity {acuity:.1} \
+                         (Smith 1991): meets the {standard:.1} driving standard with a line to spare",
+                        defocus.0
+                    )
+                } else if nearer_than_range {
+                    // Smith's estimate from this defocus alone would flatter the
+                    // eye: the focusing range (measured or from the age norm)
+                    // already holds the depth of focus at its near end, so the
+                    // planner allows no further blur there.
+                    write!(
+                        f,
+                        "driving vision: {:.2} D nearer than the whole focusing range reaches, \
+                         where no blur is allowed: below the {standard:.1} driving standard \
+                         with a line to spare",
+                        defocus.0
+                    )
                 } else {
-                    write!(f, "head turned to take it in: {how}")
+                    write!(
+                        f,
+                        "driving vision: {:.2} D out of focus leaves an estimated acuity of \
+                         {acuity:.2} (Smith 1991), below the {standard:.1} driving standard \
+                         with a line to spare",
+                        defocus.0
+                    )
                 }
             }
             Reason::SmallText { arcmin, minimum } => write!(
@@ -261,6 +363,12 @@ impl fmt::Display for Reason {
             Reason::NoEyewearServes => {
                 f.write_str("no single-vision lens in the range made serves it")
             }
+            Reason::DrivingEyewear => f.write_str(
+                "part of driving: no task glasses (a reading, occupational or upper-segment \
+                 lens is not for driving); eyewear for driving is for a licensed eye-care \
+                 practitioner under local driving-vision rules (EU: Directive 2006/126/EC, \
+                 Annex III)",
+            ),
         }
     }
 }
@@ -342,22 +450,39 @@ pub fn demand_sheet(scenario: &ValidScenario) -> Result<DemandSheet, DemandError
         .unwrap_or_default();
     let amplitude = base.amplitude;
     let (age_norm_minimum, amplitude_below_norm) = age_norm(s.wearer.age_years, &amplitude);
+    let prism_limit = PrismDioptres(s.settings.vertical_imbalance_limit_pd);
     let mut tasks = Vec::with_capacity(seen.len());
     for (i, tp) in seen.iter().enumerate() {
         let (Some(t), Some(tc)) = (s.tasks.get(i), base.tasks.get(i)) else {
             continue;
         };
         let detail_arcmin = subtended_arcmin(t.detail_mm, t.distance_m);
-        let reasons = problems(tp, t.flags.screen, detail_arcmin, &amplitude);
+        let terms = Terms {
+            screen: t.flags.screen,
+            driving: t.flags.driving,
+            prism_limit,
+        };
+        let mut reasons = problems(tp, &terms, detail_arcmin, &amplitude);
+        if terms.driving && !reasons.is_empty() {
+            reasons.extend(driving_reason(tp));
+        }
         let flag = if reasons.is_empty() {
             Flag::Fine
         } else if amplitude_below_norm {
-            let mut r = reasons;
-            r.push(Reason::AmplitudeBelowNorm {
+            reasons.push(Reason::AmplitudeBelowNorm {
                 measured: amplitude.stated,
                 norm_minimum: age_norm_minimum.unwrap_or(Dioptres(0.0)),
             });
-            Flag::Refer { reasons: r }
+            if terms.driving {
+                reasons.push(Reason::DrivingEyewear);
+            }
+            Flag::Refer { reasons }
+        } else if terms.driving {
+            // Glasses cannot be changed for one glance while driving, and a
+            // lens with plus for the dashboard alone blurs the road: the
+            // eyewear question goes to licensed practice.
+            reasons.push(Reason::DrivingEyewear);
+            Flag::Refer { reasons }
         } else {
             let changes = changes_for(s, i, tp);
             let cleared = if changes.is_empty() {
@@ -369,15 +494,23 @@ pub fn demand_sheet(scenario: &ValidScenario) -> Result<DemandSheet, DemandError
                         .tasks
                         .get(i)
                         .map_or(0.0, |t| subtended_arcmin(t.detail_mm, t.distance_m));
-                    problems(&after, t.flags.screen, arcmin, &amplitude).is_empty()
+                    problems(&after, &terms, arcmin, &amplitude).is_empty()
                 })
             };
             if cleared {
                 Flag::WorkstationChange { reasons, changes }
             } else {
-                eyewear_flag(s, &label, i, tp, reasons)?
+                eyewear_flag(
+                    s,
+                    (&label, worn),
+                    i,
+                    tp,
+                    (&terms, &amplitude, detail_arcmin),
+                    reasons,
+                )?
             }
         };
+        let pitch = tp.posture.strain;
         tasks.push(TaskDemand {
             task: tc.task.clone(),
             distance: tc.distance,
@@ -389,9 +522,16 @@ pub fn demand_sheet(scenario: &ValidScenario) -> Result<DemandSheet, DemandError
             convergence: tp.near_vision.convergence,
             gaze: tc.gaze_elevation,
             chin_up: tp.posture.chin_up,
-            posture: tp.posture.strain.max(tp.field.turn_strain),
+            head_turn: tp.field.held_turn,
+            head_sweep: Degrees(tp.field.head_turn.0 - tp.field.held_turn.0),
+            posture: if terms.driving {
+                pitch
+            } else {
+                pitch.max(tp.field.turn_strain)
+            },
             detail_arcmin,
             screen: t.flags.screen,
+            driving: t.flags.driving,
             verdict: tp.verdict,
             flag,
         });
@@ -484,18 +624,32 @@ fn age_norm(age_years: f64, amplitude: &AmplitudeUsed) -> (Option<Dioptres>, boo
     }
 }
 
-/// What is wrong with a task seen as `tp`, in numbers.
-fn problems(tp: &TaskPlan, screen: bool, arcmin: f64, amplitude: &AmplitudeUsed) -> Vec<Reason> {
+/// How a task is judged beyond its plan: the rules that depend on what
+/// the task is and on the plan settings.
+struct Terms {
+    /// Reading text on a display (the character-height guidance applies).
+    screen: bool,
+    /// Part of driving: a head turn to it is a glance, not a held posture.
+    driving: bool,
+    /// The plan's limit of vertical prism between the eyes.
+    prism_limit: PrismDioptres,
+}
+
+/// What is wrong with a task seen as `tp`, in numbers. Focus is judged by
+/// the focus verdict alone (a comfortable focus lowered by vertical prism
+/// is reported as prism, never as a shortfall of 0.00 D), and a shortfall
+/// or an excess under half a hundredth of a dioptre is no reason.
+fn problems(tp: &TaskPlan, terms: &Terms, arcmin: f64, amplitude: &AmplitudeUsed) -> Vec<Reason> {
     let mut out = Vec::new();
-    if tp.verdict != Verdict::Comfortable {
+    if tp.focus != Verdict::Comfortable {
         let d = tp.blur.short_of_comfort;
-        if d.0 < 0.0 {
+        // The plain difference where the task asks for more than the
+        // usable share; otherwise what the planner finds missing once the
+        // depth of focus and the rounding allowance are counted.
+        let plain = tp.accommodation.0 - amplitude.usable_ocular.0;
+        if d.0 <= -SHOWN_D {
             out.push(Reason::TooMuchPlus { excess: -d });
-        } else {
-            // The plain difference where the task asks for more than the
-            // usable share; otherwise what the planner finds missing once
-            // the depth of focus and the rounding allowance are counted.
-            let plain = tp.accommodation.0 - amplitude.usable_ocular.0;
+        } else if plain >= SHOWN_D || d.0 >= SHOWN_D {
             out.push(Reason::ShortOfFocus {
                 needs: tp.accommodation,
                 has: amplitude.usable_ocular,
@@ -503,10 +657,32 @@ fn problems(tp: &TaskPlan, screen: bool, arcmin: f64, amplitude: &AmplitudeUsed)
             });
         }
     }
-    let strain = tp.posture.strain.max(tp.field.turn_strain);
+    if tp.prism_over_limit {
+        out.push(Reason::VerticalPrism {
+            imbalance: tp.near_vision.vertical_imbalance,
+            limit: terms.prism_limit,
+        });
+    }
+    // The planner keeps a driving task's head upright; a turn towards a
+    // door mirror is a glance, part of driving, which no glasses change.
+    let strain = if terms.driving {
+        tp.posture.strain
+    } else {
+        tp.posture.strain.max(tp.field.turn_strain)
+    };
     if strain != Strain::Comfortable || !tp.posture.reachable {
         out.push(Reason::Posture {
             chin_up: tp.posture.chin_up,
+            turn: if terms.driving {
+                Degrees(0.0)
+            } else {
+                tp.field.held_turn
+            },
+            sweep: if terms.driving {
+                Degrees(0.0)
+            } else {
+                Degrees(tp.field.head_turn.0 - tp.field.held_turn.0)
+            },
             strain: if tp.posture.reachable {
                 strain
             } else {
@@ -514,13 +690,30 @@ fn problems(tp: &TaskPlan, screen: bool, arcmin: f64, amplitude: &AmplitudeUsed)
             },
         });
     }
-    if screen && arcmin < CHARACTER_HEIGHT_MIN_ARCMIN {
+    if terms.screen && arcmin < CHARACTER_HEIGHT_MIN_ARCMIN {
         out.push(Reason::SmallText {
             arcmin,
             minimum: CHARACTER_HEIGHT_MIN_ARCMIN,
         });
     }
     out
+}
+
+/// The smallest difference in dioptres the sheet shows as a reason: its
+/// figures are printed to a hundredth, and "short by 0.00 D" is no reason.
+const SHOWN_D: f64 = 0.005;
+
+/// A driving task's figures against the driving vision standard, as the
+/// planner found them (`None` for a task that is not driving).
+fn driving_reason(tp: &TaskPlan) -> Option<Reason> {
+    let dv = tp.driving_vision?;
+    Some(Reason::DrivingVision {
+        defocus: tp.blur.defocus,
+        nearer_than_range: tp.blur.direction == DefocusDirection::NeedsMorePlus,
+        acuity: dv.acuity_decimal,
+        standard: dv.standard_decimal,
+        meets: dv.meets_standard,
+    })
 }
 
 /// The workstation changes that would clear task `i` seen as `tp`: a new
@@ -615,14 +808,21 @@ fn with_changes(s: &Scenario, i: usize, changes: &[Change]) -> Scenario {
 
 /// The flag of a task no workstation change clears: a single-vision task
 /// lens with the addition it needs, if one in the range made serves it
-/// (checked by planning it), otherwise a referral.
+/// (checked by planning it), otherwise a referral. A lens serves when it
+/// clears every reason but the text size (focus, vertical prism, head
+/// posture): a lens that leaves the task as tiring as before suggests
+/// nothing that helps. A lens equal to the glasses worn (`glasses`: label
+/// and design) is never suggested.
 fn eyewear_flag(
     s: &Scenario,
-    label: &str,
+    glasses: (&str, FamilyChoice),
     i: usize,
     tp: &TaskPlan,
+    judged: (&Terms, &AmplitudeUsed, f64),
     reasons: Vec<Reason>,
 ) -> Result<Flag, PlanError> {
+    let (label, worn) = glasses;
+    let (terms, amplitude, arcmin) = judged;
     let needed = tp.local_power.addition.0 + tp.blur.short_of_comfort.0;
     let grid = SINGLE_VISION_ADDITION_GRID;
     // Up to the next step; `short_of_comfort` already allows the planner's
@@ -638,9 +838,15 @@ fn eyewear_flag(
         let family = FamilyChoice::SingleVision {
             addition_d: Some(addition),
         };
+        if same_lens(family, worn) {
+            continue;
+        }
+        // Text size is for the screen, not the lens; every other reason
+        // must be gone.
         let serves = task_through(s, label, family, i)?.is_some_and(|after| {
-            after.verdict == Verdict::Comfortable
-                && after.posture.strain.max(after.field.turn_strain) != Strain::NotSustainable
+            problems(&after, terms, arcmin, amplitude)
+                .iter()
+                .all(|r| matches!(r, Reason::SmallText { .. }))
         });
         if serves {
             return Ok(Flag::TaskEyewear {
@@ -652,4 +858,20 @@ fn eyewear_flag(
     let mut reasons = reasons;
     reasons.push(Reason::NoEyewearServes);
     Ok(Flag::Refer { reasons })
+}
+
+/// Whether `a` and `b` are the same single-vision lens (additions within a
+/// hundredth of a dioptre): a suggestion equal to the glasses worn helps nothing.
+fn same_lens(a: FamilyChoice, b: FamilyChoice) -> bool {
+    match (a, b) {
+        (
+            FamilyChoice::SingleVision {
+                addition_d: Some(x),
+            },
+            FamilyChoice::SingleVision {
+                addition_d: Some(y),
+            },
+        ) => (x - y).abs() < 0.01,
+        _ => false,
+    }
 }
