@@ -152,6 +152,38 @@ proptest! {
     }
 
     #[test]
+    fn the_driving_acuity_estimate_agrees_with_the_focus_verdict(
+        w in any_wearer(), road in 6.0..60.0f64, mirror in 0.0..12.0f64,
+        others in proptest::collection::vec(any_task(), 0..4),
+    ) {
+        // A driving task is in focus while the estimated acuity meets the
+        // standard with one line to spare: one line of a logMAR chart is
+        // 0.1 log units (Bailey & Lovie 1976), a factor of 10^0.1. The
+        // estimate shown beside the verdict must say the same, within the
+        // 0.03 D rounding allowance of the ranges.
+        let p = plan_of(w, driving_day(road, mirror, others), all_families_open());
+        for o in &p.options {
+            for t in o.tasks.iter().filter(|t| t.posture.reachable) {
+                let Some(v) = t.driving_vision else { continue };
+                let required = (v.standard_decimal * 10f64.powf(0.1)).min(1.0);
+                if t.focus == Verdict::Blurred {
+                    prop_assert!(
+                        v.acuity_decimal < required * 1.05,
+                        "{} through {}: blurred, yet acuity {:.2} against {:.2}",
+                        t.task.name, o.option.label, v.acuity_decimal, required
+                    );
+                } else {
+                    prop_assert!(
+                        v.acuity_decimal > required * 0.95,
+                        "{} through {}: in focus, yet acuity {:.2} against {:.2}",
+                        t.task.name, o.option.label, v.acuity_decimal, required
+                    );
+                }
+            }
+        }
+    }
+
+    #[test]
     fn over_contact_lenses_the_distance_part_is_plano(
         w in any_wearer(), tasks in proptest::collection::vec(any_task(), 1..5),
     ) {

@@ -239,11 +239,16 @@ fn near_addition(design: &FamilyChoice) -> Dioptres {
 fn unserved(ctx: &Context, options: &[OptionPlan]) -> Vec<UnservedTask> {
     let mut out = Vec::new();
     for (i, tc) in ctx.contexts.iter().enumerate() {
+        // For a driving task, an option unfit for driving is never named as
+        // the one that came closest while a fit one serves it at all.
+        let driving = tc.half_depth_basis == HalfDepthBasis::DrivingStandard;
+        let fit =
+            |o: &OptionPlan| !(driving && matches!(o.driving, Some(DrivingFitness::Unfit { .. })));
         let closest = options
             .iter()
             .filter_map(|o| o.tasks.get(i).map(|t| (o, t)))
-            .max_by(|(_, a), (_, b)| {
-                a.verdict.cmp(&b.verdict).then(
+            .max_by(|(oa, a), (ob, b)| {
+                fit(oa).cmp(&fit(ob)).then(a.verdict.cmp(&b.verdict)).then(
                     b.blur
                         .short_of_comfort
                         .0
@@ -259,6 +264,10 @@ fn unserved(ctx: &Context, options: &[OptionPlan]) -> Vec<UnservedTask> {
                 let d = t.blur.short_of_comfort;
                 let reason = if !t.posture.reachable {
                     UnservedReason::PowerOutOfReach
+                } else if t.focus == Verdict::Comfortable && t.prism_over_limit {
+                    UnservedReason::VerticalImbalance {
+                        difference: t.near_vision.vertical_imbalance,
+                    }
                 } else if d.0 >= 0.0 {
                     UnservedReason::NeedsMorePlus { short_by: d }
                 } else {

@@ -145,7 +145,18 @@ pub fn task_plan(
         .map_err(gaze)?;
     let standard = ctx.settings.driving_acuity_decimal;
     let driving_vision = prep.driving.then(|| {
-        let acuity = decimal_acuity(Dioptres(defocus), ctx.pupil);
+        // A subjective amplitude ends where the depth of focus has already
+        // been used up, so defocus beyond it adds to that depth: the
+        // estimate then falls below the standard exactly where the in-focus
+        // range ends, as the verdict does.
+        let spent = if direction == DefocusDirection::NeedsMorePlus
+            && ctx.viewer.includes_depth_of_focus()
+        {
+            prep.focus_depth.0
+        } else {
+            0.0
+        };
+        let acuity = decimal_acuity(Dioptres(defocus + spent), ctx.pupil);
         DrivingVision {
             acuity_decimal: acuity,
             standard_decimal: standard,

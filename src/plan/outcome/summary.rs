@@ -2,7 +2,7 @@
 //! them), the cautions, and the order for the chosen option.
 
 use super::*;
-use crate::core::units::{Degrees, Dioptres, Metres, Millimetres};
+use crate::core::units::{Degrees, Dioptres, Metres, Millimetres, PrismDioptres};
 use crate::scenario::FamilyChoice;
 use serde::Serialize;
 use std::fmt;
@@ -68,6 +68,14 @@ pub enum UnservedReason {
     /// The right power exists on the lens but only at a head posture beyond
     /// the range the planner allows.
     PowerOutOfReach,
+    /// The power where the task is seen brings it into comfortable focus,
+    /// but the eyes' unequal vertical powers give more vertical prism
+    /// difference there than the plan's limit (Prentice's rule).
+    VerticalImbalance {
+        /// The vertical prism difference between the eyes at the task's
+        /// lens point, in prism dioptres.
+        difference: PrismDioptres,
+    },
 }
 
 /// A warning drawn from the scenario.
@@ -195,6 +203,11 @@ impl fmt::Display for UnservedReason {
             ),
             UnservedReason::PowerOutOfReach => f.write_str(
                 "the right power is on the lens only at a head posture beyond what is reasonable",
+            ),
+            UnservedReason::VerticalImbalance { difference } => write!(
+                f,
+                "the power there is right, but the unequal vertical powers of the two lenses give {:.2} Δ of vertical prism difference between the eyes where it is seen (Prentice's rule), above the plan's limit",
+                difference.0
             ),
         }
     }
