@@ -217,7 +217,7 @@ pub fn LensMap() -> impl IntoView {
     });
     view! {
         <Show when=move || geometry.with(Option::is_some)>
-            <h3>"Lens map"</h3>
+            <h3 class="lens-map-heading">"Lens map"</h3>
             <figure class="lens-map">
                 {move || geometry.get().map(|g| drawing(g, chosen))}
             </figure>

@@ -13,7 +13,7 @@ mod peek;
 mod range_chart;
 
 use crate::plan::text::{amplitude_line, family_name, pupil_line, refraction_line};
-use crate::plan::{Caution, Choice, OptionPlan, Plan, TaskPlan, UnservedTask};
+use crate::plan::{Caution, Choice, OptionPlan, OptionRef, Plan, TaskPlan, UnservedTask};
 use crate::web::state::use_app_state;
 use crate::web::walkthrough::WalkthroughLauncher;
 use lens_map::LensMap;
@@ -50,10 +50,15 @@ fn recommendation(best: &OptionPlan) -> impl IntoView {
 }
 
 /// The cautions drawn from the scenario, planning-aid note included.
-fn cautions(cautions: Vec<Caution>) -> impl IntoView {
+/// Cautions that concern only options other than `shown` are marked, so
+/// the printed sheet carries only those of the option it orders.
+fn cautions((cautions, shown): (Vec<Caution>, Option<OptionRef>)) -> impl IntoView {
     let items = cautions
         .into_iter()
-        .map(|c| view! { <li><strong>{c.kind.to_string()}</strong>": "{c.text}</li> })
+        .map(|c| {
+            let other = !c.options.is_empty() && shown.as_ref().is_some_and(|s| !c.options.contains(s));
+            view! { <li class:other-option=other><strong>{c.kind.to_string()}</strong>": "{c.text}</li> }
+        })
         .collect_view();
     view! {
         <section class="cautions" aria-labelledby="cautions-heading" data-testid="cautions">
@@ -219,7 +224,7 @@ pub fn OutcomePanel() -> impl IntoView {
                 </p>
             </Show>
             <div class="plan" class:is-stale=move || stale.get() data-testid="plan">
-                {part(|p| p.cautions.clone(), cautions)}
+                {part(|p| (p.cautions.clone(), shown_option(p).map(|o| o.option.clone())), cautions)}
                 {part(|p| p.options.first().cloned(), |best| best.map(|b| recommendation(&b)))}
                 {part(|p| p.choice.clone(), chosen_note)}
                 {part(|p| p.unserved.clone(), unserved)}

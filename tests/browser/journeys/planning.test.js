@@ -216,6 +216,37 @@ test("the print view shows the plan sheet without the inputs", async () => {
   await context.close();
 });
 
+const DEMOS = [
+  "Demo — fictional contact-lens wearer at a screen",
+  "Demo — fictional parcel delivery driver",
+  "Demo — fictional electronics bench technician",
+  "Demo — fictional laboratory technician",
+  "Demo — fictional office worker with two monitors",
+  "Demo — fictional electrician working overhead",
+  "Demo — fictional van driver who also stocks overhead shelves",
+];
+
+test("every demo's plan sheet prints on one A4 page and on one US Letter page", async () => {
+  const { context, page, planner } = await freshPlanner(app.browser(), app.url());
+  await planner.open();
+  await mkdir(SHOTS, { recursive: true });
+  const spills = [];
+  for (const name of DEMOS) {
+    await planner.openFromShelf(name);
+    await planner.byTestId("order-sheet").waitFor();
+    await page.emulateMedia({ media: "print" });
+    for (const format of ["A4", "Letter"]) {
+      const pdf = await page.pdf({ format, printBackground: true });
+      const pages = (pdf.toString("latin1").match(/\/Type\s*\/Page[^s]/g) ?? []).length;
+      if (pages !== 1) spills.push(`${name}: ${pages} ${format} pages`);
+    }
+    await page.emulateMedia({ media: "screen" });
+  }
+  assert.deepEqual(spills, [], "each sheet fits one page");
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
 test(
   "removing a task does not carry a half-typed entry over to the task that takes its place",
   async () => {
