@@ -35,6 +35,17 @@ pub fn download_text(file_name: &str, mime: &str, text: &str) -> Result<(), Stri
     Ok(())
 }
 
+/// The file picked in the file input that fired `ev`, if any; the input is
+/// cleared so that picking the same file again fires again.
+pub fn picked_file(ev: &leptos::ev::Event) -> Option<web_sys::File> {
+    let input = ev
+        .target()
+        .and_then(|t| t.dyn_into::<web_sys::HtmlInputElement>().ok())?;
+    let file = input.files().and_then(|f| f.get(0))?;
+    input.set_value("");
+    Some(file)
+}
+
 /// Reads the text of a file the user picked, refusing files larger than
 /// `max_bytes` before reading them.
 pub async fn read_text(file: web_sys::File, max_bytes: usize) -> Result<String, String> {

@@ -4,6 +4,7 @@
 mod app;
 mod bind;
 mod demands;
+mod dialog;
 mod fields;
 mod files;
 mod locks;

@@ -6,14 +6,13 @@
 //! ([`Shelf::in_turn`]).
 
 use super::fields::{focus_test_id, TextField};
-use super::files::{download_json, read_text};
+use super::files::{download_json, picked_file, read_text};
 use super::shelf::{now_ms, BrowserSession, Shelf};
 use super::state::{use_app_state, AppState};
 use crate::display::thousands;
 use crate::library::{EntryId, NoticeAction, MAX_DOCUMENT_BYTES};
 use crate::scenario::Scenario;
 use leptos::prelude::*;
-use wasm_bindgen::JsCast;
 
 /// Runs a session operation in this tab's turn to write and shows the
 /// scenario it opens, if any.
@@ -158,16 +157,9 @@ pub fn ShelfPanel() -> impl IntoView {
         download(shelf, file);
     };
     let import = move |ev: leptos::ev::Event| {
-        let Some(input) = ev
-            .target()
-            .and_then(|t| t.dyn_into::<web_sys::HtmlInputElement>().ok())
-        else {
+        let Some(file) = picked_file(&ev) else {
             return;
         };
-        let Some(file) = input.files().and_then(|f| f.get(0)) else {
-            return;
-        };
-        input.set_value("");
         leptos::task::spawn_local(async move {
             match read_text(file, MAX_DOCUMENT_BYTES).await {
                 Ok(text) => act(state, move |s, now| s.import(&text, now)),

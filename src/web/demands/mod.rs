@@ -10,6 +10,7 @@
 mod sheet;
 mod team;
 
+use crate::web::dialog::focus_follows;
 use leptos::html;
 use leptos::prelude::*;
 use sheet::SheetTab;
@@ -48,21 +49,7 @@ pub fn WorkVisionLauncher() -> impl IntoView {
         }
     });
     // Focus follows the dialog: into it on opening, back to the opener on closing.
-    Effect::new(move |was_open: Option<bool>| {
-        let is_open = open.get();
-        if is_open {
-            request_animation_frame(move || {
-                if let Some(d) = dialog.get_untracked() {
-                    let _ = d.focus();
-                }
-            });
-        } else if was_open == Some(true) {
-            if let Some(b) = opener.get_untracked() {
-                let _ = b.focus();
-            }
-        }
-        is_open
-    });
+    focus_follows(open, dialog, opener);
 
     // Left and right arrows move between the tabs, as a tab list does.
     let tab_keys = move |ev: leptos::ev::KeyboardEvent| {

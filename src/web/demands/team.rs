@@ -8,10 +8,9 @@
 use crate::display::thousands;
 use crate::plan::demands::Flag;
 use crate::plan::roster::{advice, read_roster, screen_team, TeamResult, COLUMNS};
-use crate::web::files::{download_text, read_text_or_advise};
+use crate::web::files::{download_text, picked_file, read_text_or_advise};
 use crate::web::state::{use_app_state, AppState};
 use leptos::prelude::*;
-use wasm_bindgen::JsCast;
 
 /// The largest roster file read, in bytes (a product limit: 20,000 rows of
 /// a few dozen characters stay well under it).
@@ -126,16 +125,9 @@ pub fn TeamTab() -> impl IntoView {
     let result = RwSignal::new(None::<Result<TeamResult, String>>);
     let run = move |text: String| result.set(Some(screen(state, &text)));
     let pick = move |ev: leptos::ev::Event| {
-        let Some(input) = ev
-            .target()
-            .and_then(|t| t.dyn_into::<web_sys::HtmlInputElement>().ok())
-        else {
+        let Some(file) = picked_file(&ev) else {
             return;
         };
-        let Some(file) = input.files().and_then(|f| f.get(0)) else {
-            return;
-        };
-        input.set_value("");
         leptos::task::spawn_local(async move {
             match read_text_or_advise(file, MAX_ROSTER_BYTES, "split the roster").await {
                 Ok(text) => run(text),

@@ -16,6 +16,7 @@ use crate::display::{trim_number, LengthUnit};
 use crate::plan::walkthrough::{
     current_glasses_plan, walkthrough, Closing, Picture, Sharpness, TaskStep, Walkthrough,
 };
+use crate::web::dialog::focus_follows;
 use crate::web::state::{use_app_state, AppState};
 use leptos::html;
 use leptos::prelude::*;
@@ -282,21 +283,7 @@ pub fn WalkthroughLauncher() -> impl IntoView {
         ev.prevent_default();
     });
     // Focus follows the dialog: into it on opening, back to the opener on closing.
-    Effect::new(move |was_open: Option<bool>| {
-        let is_open = open.get();
-        if is_open {
-            request_animation_frame(move || {
-                if let Some(d) = dialog.get_untracked() {
-                    let _ = d.focus();
-                }
-            });
-        } else if was_open == Some(true) {
-            if let Some(b) = opener.get_untracked() {
-                let _ = b.focus();
-            }
-        }
-        is_open
-    });
+    focus_follows(open, dialog, opener);
 
     let body = move || {
         walk.with(|w| {
