@@ -12,7 +12,7 @@ import { mkdir, readFile } from "node:fs/promises";
 import { join } from "node:path";
 import { promisify } from "node:util";
 import { appUnderTest, screenshot, SHOTS, watchedPage } from "../support/harness.js";
-import { OFFICE_DEMO, PlannerPage, VIEWPORTS } from "../support/planner-page.js";
+import { DEMOS, OFFICE_DEMO, PlannerPage, VIEWPORTS } from "../support/planner-page.js";
 import { WorkVisionPage } from "../support/work-vision-page.js";
 
 const run = promisify(execFile);
@@ -182,6 +182,24 @@ test("a screen task out of reach gets a computed screen change; the sheet prints
   }
   await run("pdftoppm", ["-png", "-r", "80", pdfPath, join(SHOTS, "nurse-sheet-print")]);
 
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
+test("every demo's task-demand sheet prints on one A4 page", async () => {
+  const { context, page, planner, vision } = await officeAt(VIEWPORTS.desktop, false);
+  const spills = [];
+  for (const name of DEMOS) {
+    await planner.openFromShelf(name);
+    await vision.open();
+    await page.emulateMedia({ media: "print" });
+    const pdf = await page.pdf({ format: "A4", printBackground: true, margin: { top: "12mm", bottom: "12mm", left: "12mm", right: "12mm" } });
+    const pages = (pdf.toString("latin1").match(/\/Type\s*\/Page[^s]/g) ?? []).length;
+    if (pages !== 1) spills.push(`${name}: ${pages} pages`);
+    await page.emulateMedia({ media: "screen" });
+    await vision.closeByKey();
+  }
+  assert.deepEqual(spills, [], "each worker's sheet fits one A4 page");
   assert.deepEqual(page.problems(), []);
   await context.close();
 });

@@ -6,7 +6,7 @@ import assert from "node:assert/strict";
 import { readFile, mkdir } from "node:fs/promises";
 import { join } from "node:path";
 import { appUnderTest, screenshot, SHOTS } from "../support/harness.js";
-import { freshPlanner, VIEWPORTS } from "../support/planner-page.js";
+import { DEMOS, freshPlanner, VIEWPORTS } from "../support/planner-page.js";
 
 const VERDICT_WORDS = new Set(["comfortable", "in focus, tiring", "blurred"]);
 const DISTANCE = "tasks-0--distance_m";
@@ -215,16 +215,6 @@ test("the print view shows the plan sheet without the inputs", async () => {
   assert.deepEqual(page.problems(), []);
   await context.close();
 });
-
-const DEMOS = [
-  "Demo — fictional contact-lens wearer at a screen",
-  "Demo — fictional parcel delivery driver",
-  "Demo — fictional electronics bench technician",
-  "Demo — fictional laboratory technician",
-  "Demo — fictional office worker with two monitors",
-  "Demo — fictional electrician working overhead",
-  "Demo — fictional van driver who also stocks overhead shelves",
-];
 
 test("every demo's plan sheet prints on one A4 page and on one US Letter page", async () => {
   const { context, page, planner } = await freshPlanner(app.browser(), app.url());

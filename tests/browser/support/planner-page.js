@@ -16,6 +16,17 @@ export const SCENARIO_PREFIX = "clearspan/scenario/";
 export const DEMO_COUNT = 7;
 /** The demo a first visit opens. */
 export const OFFICE_DEMO = "Demo — fictional office worker with two monitors";
+
+/** The names of the demo scenarios shipped with the app (all fictional). */
+export const DEMOS = [
+  "Demo — fictional contact-lens wearer at a screen",
+  "Demo — fictional parcel delivery driver",
+  "Demo — fictional electronics bench technician",
+  "Demo — fictional laboratory technician",
+  OFFICE_DEMO,
+  "Demo — fictional electrician working overhead",
+  "Demo — fictional van driver who also stocks overhead shelves",
+];
 /** The saved-format version this build writes. */
 export const FORMAT_VERSION = 2;
 /** The test id of the wearer's age field. */
