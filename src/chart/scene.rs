@@ -428,11 +428,13 @@ fn wall(c: &mut Canvas) {
 #[cfg(test)]
 mod tests {
     use super::*;
-    use crate::scenario::{Hazards, Task};
+    use crate::scenario::{Hazards, Task, TaskFlags};
 
-    /// A task at `distance_m` with `detail_mm` detail, changed by `flags`.
+    /// A task at `distance_m` with `detail_mm` detail and no flags but
+    /// those `flags` sets.
     fn task(distance_m: f64, detail_mm: f64, flags: impl Fn(&mut Task)) -> Task {
         let mut t = Task::desk_screen("task");
+        t.flags = TaskFlags::default();
         t.distance_m = distance_m;
         t.detail_mm = detail_mm;
         flags(&mut t);

@@ -51,21 +51,10 @@ impl Wearer {
 }
 
 impl Task {
-    /// A desk-top screen task: 65 cm away, 15° below the horizontal, 50 cm
-    /// wide, 2.5 mm characters, four hours (common office layout, common practice).
+    /// A desk-top screen task named `name`: the first of the task kinds
+    /// ([`super::task_kinds::TASK_KINDS`]), with its sourced figures.
     pub fn desk_screen(name: &str) -> Task {
-        Task {
-            name: name.to_string(),
-            distance_m: f::TASK_DISTANCE.start(),
-            vertical: VerticalPosition::GazeAngle {
-                degrees: f::TASK_ANGLE.start(),
-            },
-            sideways_m: f::TASK_SIDEWAYS.start(),
-            width_m: f::TASK_WIDTH.start(),
-            detail_mm: f::TASK_DETAIL.start(),
-            hours_per_day: f::TASK_HOURS.start(),
-            flags: TaskFlags::default(),
-        }
+        super::task_kinds::TASK_KINDS[0].task(name)
     }
 }
 

@@ -8,6 +8,7 @@ mod edit;
 pub mod fields;
 mod model;
 mod row_ids;
+pub mod task_kinds;
 mod valid;
 mod validate;
 

@@ -4,6 +4,7 @@
 use super::bind::row_field;
 use super::fields::{focus_test_id, CheckField, ChoiceField, TextField};
 use super::state::use_app_state;
+use crate::scenario::task_kinds::{task_kind, TASK_KINDS};
 use crate::scenario::{fields, Scenario, Task, TaskFlags, VerticalPosition, MAX_TASKS};
 use leptos::prelude::*;
 
@@ -175,11 +176,22 @@ fn task_card(id: u64) -> impl IntoView {
 pub fn TasksPanel() -> impl IntoView {
     let state = use_app_state();
     let count = move || state.scenario.with(|s| s.tasks.len());
+    // The kind a new task starts from, with its sourced figures.
+    let kind = RwSignal::new(&TASK_KINDS[0]);
+    let kind_key = Signal::derive(move || kind.get().key);
+    let on_kind = Callback::new(move |v: String| {
+        if let Some(k) = task_kind(&v) {
+            kind.set(k);
+        }
+    });
+    let kinds: Vec<(&'static str, &'static str)> =
+        TASK_KINDS.iter().map(|k| (k.key, k.label)).collect();
     let add = move |_: leptos::ev::MouseEvent| {
+        let kind = kind.get_untracked();
         state.edit(|s| {
             if s.tasks.len() < MAX_TASKS {
                 let name = format!("Task {}", s.tasks.len() + 1);
-                s.tasks.push(Task::desk_screen(&name));
+                s.tasks.push(kind.task(&name));
             }
         });
         // Put the cursor in the new task's name once it is drawn.
@@ -216,6 +228,12 @@ pub fn TasksPanel() -> impl IntoView {
                     {task_card(id)}
                 </For>
             </ol>
+            <div class="add-task">
+                <ChoiceField label="Kind of task to add" choices=kinds value=kind_key on_change=on_kind test_id="task-kind" />
+                <p class="hint" data-testid="task-kind-source">
+                    {move || format!("Starts from typical figures, to be measured on the job: {}.", kind.get().source)}
+                </p>
+            </div>
             <button
                 type="button"
                 class="primary"

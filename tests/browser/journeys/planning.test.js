@@ -91,6 +91,20 @@ test("on a desktop the plan stays in view while the form scrolls", async () => {
   await context.close();
 });
 
+test("a new task starts from the kind chosen, with its figures and their source shown", async () => {
+  const { context, page, planner } = await newScenario();
+  await planner.byTestId("task-kind").selectOption("phone");
+  assert.match(await planner.byTestId("task-kind-source").textContent(), /Bababekova et al\. 2011/);
+  await planner.byTestId("add-task").click();
+  await page.waitForFunction(() => document.querySelectorAll('[data-testid="task-card"]').length === 2);
+  assert.equal(await planner.valueOf("tasks-1--distance_m"), "35", "a phone starts at 35 cm");
+  assert.equal(await planner.valueOf("tasks-1--detail_mm"), "1.2", "with small phone text");
+  const phone = planner.byTestId("task-card").nth(1);
+  assert.ok(await phone.getByLabel("Screen text (detail is the character height)", { exact: true }).isChecked());
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
 test("switching units converts the task distance and back", async () => {
   const { context, page, planner } = await newScenario();
   await planner.setNumber(DISTANCE, "65");
