@@ -15,6 +15,7 @@ pub mod migrate;
 mod naming;
 mod notice;
 pub mod read;
+mod report;
 mod session;
 mod status;
 pub mod store;
@@ -23,10 +24,7 @@ mod transfer;
 mod unknown;
 
 pub use bare::{read_bare_scenario, BareScenario};
-pub use collection::{
-    id_for_key, key_for, Conflict, EntryProblem, Library, LibraryError, LoadReport, Persisted,
-    SetAside, Summary, Theirs, APP_PREFIX, SCENARIO_PREFIX,
-};
+pub use collection::{id_for_key, key_for, Library, APP_PREFIX, SCENARIO_PREFIX};
 pub use demos::{DemoFile, DEMO_FILES};
 pub use format::{
     encode_entry, encode_export, Entry, EntryId, ExportItem, StoredEntry, CURRENT_VERSION,
@@ -38,6 +36,9 @@ pub use notice::{Notice, NoticeAction, NOTICE_LIST_LINES};
 pub use read::{
     check_nesting, document_text, parse_limited, read_document, read_document_bytes, read_entry,
     ReadError, MAX_DOCUMENT_BYTES, MAX_NESTING,
+};
+pub use report::{
+    Conflict, EntryProblem, LibraryError, LoadReport, Persisted, SetAside, Summary, Theirs,
 };
 pub use session::{Session, Started};
 pub use status::{SaveStatus, Unsaved};

@@ -10,12 +10,11 @@
 //! [`KeyValueStore`], time a number of milliseconds given by the caller,
 //! and taking turns with other tabs is the caller's job.
 
-use super::collection::{
-    id_for_key, Conflict, Library, LibraryError, Persisted, SetAside, Summary,
-};
+use super::collection::{id_for_key, Library};
 use super::demos::DEMO_FILES;
 use super::format::EntryId;
 use super::notice::{Notice, NoticeAction, Notices, NOTICE_LIST_LINES};
+use super::report::{Conflict, LibraryError, Persisted, SetAside, Summary};
 use super::status::SaveStatus;
 use super::store::KeyValueStore;
 use super::sync::Reloaded;

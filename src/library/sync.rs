@@ -9,11 +9,10 @@
 //! entries still waiting. This file also reloads an entry after the browser
 //! reports an external change.
 
-use super::collection::{
-    key_for, Base, Conflict, EntryProblem, Library, LibraryError, Persisted, SetAside, Slot, Theirs,
-};
+use super::collection::{key_for, Base, Library, Slot};
 use super::format::{encode_entry, EntryId, StoredEntry};
 use super::read::{read_entry, ReadError};
+use super::report::{Conflict, EntryProblem, LibraryError, Persisted, SetAside, Theirs};
 use super::status::Unsaved;
 use super::store::{KeyValueStore, StoreError};
 use crate::scenario::{FieldError, Problem, Scenario};

@@ -9,10 +9,11 @@
 //! free "… (2)". What an import did is summed up in one notice with counts
 //! and a list the user can open, however many items the file held.
 
-use super::collection::{Library, LibraryError, Persisted};
+use super::collection::Library;
 use super::format::{encode_export, EntryId, ExportItem};
 use super::migrate::{migrate_export, ExportDocument};
 use super::read::{document_text, parse_limited, ReadError};
+use super::report::{LibraryError, Persisted};
 use super::store::{KeyValueStore, StoreError};
 use super::unknown;
 use crate::display::thousands;
