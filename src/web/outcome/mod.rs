@@ -171,6 +171,21 @@ fn chosen_note(choice: Option<Choice>) -> Option<impl IntoView> {
     })
 }
 
+/// Scrolls the task detail into view (to the nearest edge, so a detail
+/// already in view stays put).
+fn bring_detail_into_view() {
+    let Some(section) = web_sys::window().and_then(|w| w.document()).and_then(|d| {
+        d.query_selector("[data-testid=\"task-detail\"]")
+            .ok()
+            .flatten()
+    }) else {
+        return;
+    };
+    let options = web_sys::ScrollIntoViewOptions::new();
+    options.set_block(web_sys::ScrollLogicalPosition::Nearest);
+    section.scroll_into_view_with_scroll_into_view_options(&options);
+}
+
 /// What the panel shows besides the plan's parts.
 #[derive(Clone, Copy, PartialEq)]
 enum Stage {
@@ -214,6 +229,14 @@ pub fn OutcomePanel() -> impl IntoView {
         state
             .outcome
             .with(|o| o.plan.as_ref().and_then(|p| task_through(p, t)))
+    });
+    // Choosing a task (a row of the comparison, a chart marker, a lens
+    // point) brings its detail into view where the choice was made: the
+    // detail is scrolled to, only when the choice changes, not on edits.
+    Effect::new(move |_| {
+        if state.chosen_task.get().is_some() {
+            request_animation_frame(bring_detail_into_view);
+        }
     });
     let planned = move || {
         view! {

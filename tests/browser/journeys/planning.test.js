@@ -105,6 +105,26 @@ test("a new task starts from the kind chosen, with its figures and their source 
   await context.close();
 });
 
+test("choosing a task on the lens map brings its detail into view", async () => {
+  const { context, page, planner } = await freshPlanner(app.browser(), app.url(), { viewport: VIEWPORTS.desktop });
+  await planner.open();
+  const point = page.locator(".lens-point").last();
+  await point.scrollIntoViewIfNeeded();
+  await point.click();
+  const detail = planner.byTestId("task-detail");
+  await detail.waitFor();
+  await assert.doesNotReject(
+    page.waitForFunction(() => {
+      const box = document.querySelector('[data-testid="task-detail"]').getBoundingClientRect();
+      return box.top >= 0 && box.top < window.innerHeight;
+    }),
+    "the detail of the chosen task is on screen",
+  );
+  assert.match(await detail.locator("h3").textContent(), / in detail$/);
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
 test("switching units converts the task distance and back", async () => {
   const { context, page, planner } = await newScenario();
   await planner.setNumber(DISTANCE, "65");
