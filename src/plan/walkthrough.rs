@@ -581,31 +581,14 @@ mod tests {
 
     #[test]
     fn every_design_names_its_trade_term_with_the_phrase() {
-        let designs = [
-            FamilyChoice::SingleVision {
-                addition_d: Some(0.0),
-            },
-            FamilyChoice::SingleVision {
-                addition_d: Some(1.5),
-            },
-            FamilyChoice::Bifocal {
-                addition_d: None,
-                segment_top_mm: None,
-            },
-            FamilyChoice::Trifocal {
-                addition_d: None,
-                intermediate_ratio: None,
-                segment_top_mm: None,
-            },
-            FamilyChoice::Progressive {
-                addition_d: None,
-                progression_length_mm: None,
-            },
-            FamilyChoice::Degressive {
-                near_addition_d: None,
-                degression_d: None,
-            },
-        ];
+        // Single vision as a distance-only and as a reading lens, then every
+        // family with an addition (bifocal to degressive).
+        let single = [0.0, 1.5].map(|a| FamilyChoice::SingleVision {
+            addition_d: Some(a),
+        });
+        let designs = single
+            .into_iter()
+            .chain(FamilyChoice::ALL_OPEN[1..5].iter().copied());
         for d in designs {
             let words = what_the_lenses_are(&d);
             let explained = EXPLAINED_TERMS

@@ -8,7 +8,8 @@ use crate::scenario::fields::lens_field;
 use crate::scenario::{FamilyChoice, LensOption, Scenario, MAX_OPTIONS};
 use leptos::prelude::*;
 
-/// Machine value and words for each family, in the order offered.
+/// Machine value and words for each family, in the order of
+/// [`FamilyChoice::ALL_OPEN`].
 const FAMILIES: [(&str, &str); 6] = [
     ("single_vision", "Single vision"),
     ("bifocal", "Bifocal"),
@@ -20,43 +21,15 @@ const FAMILIES: [(&str, &str); 6] = [
 
 /// The machine value of a family choice.
 fn family_key(f: &FamilyChoice) -> &'static str {
-    match f {
-        FamilyChoice::SingleVision { .. } => "single_vision",
-        FamilyChoice::Bifocal { .. } => "bifocal",
-        FamilyChoice::Trifocal { .. } => "trifocal",
-        FamilyChoice::Progressive { .. } => "progressive",
-        FamilyChoice::Degressive { .. } => "degressive",
-        FamilyChoice::DoubleSegment { .. } => "double_segment",
-    }
+    let same = |o: &FamilyChoice| std::mem::discriminant(o) == std::mem::discriminant(f);
+    let at = FamilyChoice::ALL_OPEN.iter().position(same).unwrap_or(0);
+    FAMILIES[at].0
 }
 
-/// A family with every parameter left to the planner.
+/// The family with machine value `key`, every parameter left to the planner.
 fn open_family(key: &str) -> FamilyChoice {
-    match key {
-        "bifocal" => FamilyChoice::Bifocal {
-            addition_d: None,
-            segment_top_mm: None,
-        },
-        "trifocal" => FamilyChoice::Trifocal {
-            addition_d: None,
-            intermediate_ratio: None,
-            segment_top_mm: None,
-        },
-        "progressive" => FamilyChoice::Progressive {
-            addition_d: None,
-            progression_length_mm: None,
-        },
-        "degressive" => FamilyChoice::Degressive {
-            near_addition_d: None,
-            degression_d: None,
-        },
-        "double_segment" => FamilyChoice::DoubleSegment {
-            addition_d: None,
-            lower_top_mm: None,
-            upper_bottom_mm: None,
-        },
-        _ => FamilyChoice::SingleVision { addition_d: None },
-    }
+    let at = FAMILIES.iter().position(|(k, _)| *k == key).unwrap_or(0);
+    FamilyChoice::ALL_OPEN[at]
 }
 
 /// Where an option's row stands in the list now (`None` once it is gone).

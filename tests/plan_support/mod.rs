@@ -109,38 +109,17 @@ pub fn plan_with(
 
 /// Every lens family with every parameter open.
 pub fn all_families_open() -> Vec<LensOption> {
-    vec![
-        option("sv", FamilyChoice::SingleVision { addition_d: None }),
-        option(
-            "bifocal",
-            FamilyChoice::Bifocal {
-                addition_d: None,
-                segment_top_mm: None,
-            },
-        ),
-        option(
-            "trifocal",
-            FamilyChoice::Trifocal {
-                addition_d: None,
-                intermediate_ratio: None,
-                segment_top_mm: None,
-            },
-        ),
-        progressive(None, None),
-        option(
-            "degressive",
-            FamilyChoice::Degressive {
-                near_addition_d: None,
-                degression_d: None,
-            },
-        ),
-        option(
-            "double segment",
-            FamilyChoice::DoubleSegment {
-                addition_d: None,
-                lower_top_mm: None,
-                upper_bottom_mm: None,
-            },
-        ),
-    ]
+    let labels = [
+        "sv",
+        "bifocal",
+        "trifocal",
+        "progressive",
+        "degressive",
+        "double segment",
+    ];
+    labels
+        .into_iter()
+        .zip(FamilyChoice::ALL_OPEN)
+        .map(|(label, family)| option(label, family))
+        .collect()
 }

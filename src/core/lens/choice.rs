@@ -57,6 +57,35 @@ pub enum FamilyChoice {
 }
 
 impl FamilyChoice {
+    /// Every family once, each with every parameter left open for the
+    /// planner: single vision, bifocal, trifocal, progressive, degressive,
+    /// double segment.
+    pub const ALL_OPEN: [FamilyChoice; 6] = [
+        FamilyChoice::SingleVision { addition_d: None },
+        FamilyChoice::Bifocal {
+            addition_d: None,
+            segment_top_mm: None,
+        },
+        FamilyChoice::Trifocal {
+            addition_d: None,
+            intermediate_ratio: None,
+            segment_top_mm: None,
+        },
+        FamilyChoice::Progressive {
+            addition_d: None,
+            progression_length_mm: None,
+        },
+        FamilyChoice::Degressive {
+            near_addition_d: None,
+            degression_d: None,
+        },
+        FamilyChoice::DoubleSegment {
+            addition_d: None,
+            lower_top_mm: None,
+            upper_bottom_mm: None,
+        },
+    ];
+
     /// The value of `parameter` in this lens specification: `None` when the
     /// family has no such parameter, `Some(None)` when it is left open (in
     /// the parameter's unit: dioptres, millimetres, or a share).
@@ -136,32 +165,7 @@ mod tests {
             Parameter::LowerSegmentTop,
             Parameter::UpperSegmentBottom,
         ];
-        let families = [
-            FamilyChoice::SingleVision { addition_d: None },
-            FamilyChoice::Bifocal {
-                addition_d: None,
-                segment_top_mm: None,
-            },
-            FamilyChoice::Trifocal {
-                addition_d: None,
-                intermediate_ratio: None,
-                segment_top_mm: None,
-            },
-            FamilyChoice::Progressive {
-                addition_d: None,
-                progression_length_mm: None,
-            },
-            FamilyChoice::Degressive {
-                near_addition_d: None,
-                degression_d: None,
-            },
-            FamilyChoice::DoubleSegment {
-                addition_d: None,
-                lower_top_mm: None,
-                upper_bottom_mm: None,
-            },
-        ];
-        for family in families {
+        for family in FamilyChoice::ALL_OPEN {
             let listed: Vec<Parameter> = family.parameters().collect();
             for p in all {
                 let mut fixed = family;
