@@ -7,44 +7,100 @@ use super::fields::NumberField;
 use super::state::use_app_state;
 use crate::display::{describe_problem, shown_symbol, to_shown, to_stored};
 use crate::scenario::fields::{Field, Unit};
+use crate::scenario::Scenario;
 use leptos::prelude::*;
 
-/// Where a field's row stands in its list now: a task's or an option's
-/// position, following the row as rows before it come and go (`None` once
-/// it is gone); an eye; 0 for a field of the scenario itself.
-pub type RowAt = Signal<Option<usize>>;
-
-/// The form field of table entry `field` at a row that never moves: an
-/// eye (0 right, 1 left), or 0 for a field of the scenario itself.
-pub fn number_field(field: &'static Field, index: usize) -> impl IntoView {
-    row_field(field, Signal::stored(Some(index)))
+/// One row of the form: the wearer's block, a task or a lens option.
+///
+/// A row's views re-read the scenario only when the row's own content
+/// changes: an edit re-runs one memo per row, and then only the views of
+/// the row it changed, instead of every view of the form (the framework's
+/// cost of re-running a reader grows with the number of readers).
+#[derive(Clone, Copy)]
+pub struct Row {
+    /// Where the row stands in its list now: a task's or an option's
+    /// position, following the row as rows before it come and go (`None`
+    /// once it is gone); an eye; 0 for the wearer's block.
+    pub at: Signal<Option<usize>>,
+    /// Changes whenever the row's content does.
+    changed: Signal<()>,
 }
 
-/// The form field of table entry `field` in the row at `at`.
-pub fn row_field(field: &'static Field, at: RowAt) -> impl IntoView {
+impl Row {
+    /// The row of a list at `at`, whose content `content` copies out of the
+    /// scenario (a task, an option).
+    pub fn listed<T: Clone + PartialEq + Send + Sync + 'static>(
+        at: Memo<Option<usize>>,
+        content: fn(&Scenario, usize) -> Option<T>,
+    ) -> Row {
+        let copy = use_app_state().part(move |s| at.get().and_then(|i| content(s, i)));
+        Row {
+            at: at.into(),
+            changed: Signal::derive(move || copy.with(|_| ())),
+        }
+    }
+
+    /// A row of the wearer's block that never moves: an eye (0 right,
+    /// 1 left), or 0 for a field of the wearer or the plan settings.
+    pub fn wearer(index: usize) -> Row {
+        let block = use_app_state().wearer_block;
+        Row {
+            at: Signal::stored(Some(index)),
+            changed: Signal::derive(move || block.with(|_| ())),
+        }
+    }
+
+    /// The path of `field` in this row of `list` (`tasks[1].name`), as the
+    /// gate reports problems, following the row as it moves.
+    pub fn path(self, list: &'static str, field: &'static str) -> Signal<String> {
+        Memo::new(move |_| {
+            self.at
+                .get()
+                .map(|i| format!("{list}[{i}].{field}"))
+                .unwrap_or_default()
+        })
+        .into()
+    }
+
+    /// What `read` takes from this row, as a memo re-read only when the
+    /// row changes; `None` once the row is gone.
+    pub fn part<T: Clone + PartialEq + Send + Sync + 'static>(
+        self,
+        read: impl Fn(&Scenario, usize) -> Option<T> + Send + Sync + 'static,
+    ) -> Memo<Option<T>> {
+        let scenario = use_app_state().scenario;
+        Memo::new(move |_| {
+            self.changed.track();
+            let index = self.at.get()?;
+            scenario.with_untracked(|s| read(s, index))
+        })
+    }
+}
+
+/// The form field of table entry `field` in the wearer's block: an eye
+/// (0 right, 1 left), or 0 for a field of the wearer or the settings.
+pub fn number_field(field: &'static Field, index: usize) -> impl IntoView {
+    row_field(field, Row::wearer(index))
+}
+
+/// The form field of table entry `field` in `row`.
+pub fn row_field(field: &'static Field, row: Row) -> impl IntoView {
     let state = use_app_state();
     let length = state.unit;
     let unit = field.unit;
-    let value = Signal::derive(move || {
-        let l = length.get();
-        let index = at.get()?;
-        state
-            .scenario
-            .with(|s| (field.get)(s, index))
-            .map(|v| to_shown(unit, l, v))
-    });
+    let at = row.at;
+    let stored = row.part(move |s, index| (field.get)(s, index));
+    let value = Memo::new(move |_| stored.get().map(|v| to_shown(unit, length.get(), v)));
     let on_input = Callback::new(move |v: Option<f64>| {
         let l = length.get_untracked();
         if let Some(index) = at.get_untracked() {
             state.edit(|s| (field.set)(s, index, v.map(|v| to_stored(unit, l, v))));
         }
     });
-    let path = Signal::derive(move || at.get().map(|i| field.path(i)).unwrap_or_default());
+    let path: Signal<String> =
+        Memo::new(move |_| at.get().map(|i| field.path(i)).unwrap_or_default()).into();
     let test_id = Signal::derive(move || path.with(|p| p.replace(['[', ']', '.'], "-")));
-    let problem = Signal::derive(move || {
-        path.with(|path| state.problem_at(path))
-            .map(|p| describe_problem(&p, unit, length.get()))
-    });
+    let problem = state.problem_at(path, move |p| describe_problem(p, unit, length.get()));
     let unit_text = Signal::derive(move || shown_symbol(unit, length.get()).to_string());
     view! {
         <NumberField

@@ -1,11 +1,11 @@
 //! The lens-options panel: which families to compare, with each parameter
 //! either fixed by the user or left empty for the planner to choose.
 
-use super::bind::row_field;
+use super::bind::{row_field, Row};
 use super::fields::{ChoiceField, TextField};
 use super::state::use_app_state;
 use crate::scenario::fields::lens_field;
-use crate::scenario::{FamilyChoice, LensOption, Scenario, MAX_OPTIONS};
+use crate::scenario::{FamilyChoice, LensOption, Problem, Scenario, MAX_OPTIONS};
 use leptos::prelude::*;
 
 /// Machine value and words for each family, in the order of
@@ -32,63 +32,32 @@ fn open_family(key: &str) -> FamilyChoice {
     FamilyChoice::ALL_OPEN[at]
 }
 
-/// Where an option's row stands in the list now (`None` once it is gone).
-type At = Memo<Option<usize>>;
-
-/// The path of `field` of the option at `at` (`options[1].label`),
-/// following the option as it moves in the list.
-fn option_path(at: At, field: &'static str) -> Signal<String> {
-    Signal::derive(move || {
-        at.get()
-            .map(|i| format!("options[{i}].{field}"))
-            .unwrap_or_default()
-    })
-}
-
-/// The option at `at` (reactive), if it still exists.
-fn option_at(at: At, s: &Scenario) -> Option<&LensOption> {
-    at.get().and_then(|i| s.options.get(i))
-}
-
-/// The option at `at`, to change it, if it still exists.
-fn option_at_mut(at: At, s: &mut Scenario) -> Option<&mut LensOption> {
-    at.get_untracked().and_then(|i| s.options.get_mut(i))
+/// The option of `row`, to change it, if it still exists.
+fn option_at_mut(row: Row, s: &mut Scenario) -> Option<&mut LensOption> {
+    row.at.get_untracked().and_then(|i| s.options.get_mut(i))
 }
 
 /// The card of the lens option with row id `id`.
 fn option_card(id: u64) -> impl IntoView {
     let state = use_app_state();
-    let at: At = Memo::new(move |_| state.rows.with(|rows| rows.option_index(id)));
-    let key = Memo::new(move |_| {
-        state.scenario.with(|s| {
-            option_at(at, s)
-                .map(|o| family_key(&o.family))
-                .unwrap_or("single_vision")
-        })
-    });
-    let label = Signal::derive(move || {
-        state.scenario.with(|s| {
-            option_at(at, s)
-                .map(|o| o.label.clone())
-                .unwrap_or_default()
-        })
-    });
+    let at = Memo::new(move |_| state.rows.with(|rows| rows.option_index(id)));
+    let row = Row::listed(at, |s, i| s.options.get(i).cloned());
+    let family = row.part(|s, i| s.options.get(i).map(|o| family_key(&o.family)));
+    let key = Memo::new(move |_| family.get().unwrap_or("single_vision"));
+    let label = row.part(|s, i| s.options.get(i).map(|o| o.label.clone()));
+    let label = Signal::derive(move || label.get().unwrap_or_default());
     let on_label = Callback::new(move |v: String| {
         state.edit(|s| {
-            if let Some(o) = option_at_mut(at, s) {
+            if let Some(o) = option_at_mut(row, s) {
                 o.label = v;
             }
         })
     });
-    let label_path = option_path(at, "label");
-    let label_problem = Signal::derive(move || {
-        label_path
-            .with(|p| state.problem_at(p))
-            .map(|p| p.to_string())
-    });
+    let label_path = row.path("options", "label");
+    let label_problem = state.problem_at(label_path, Problem::to_string);
     let on_family = Callback::new(move |v: String| {
         state.edit(|s| {
-            if let Some(o) = option_at_mut(at, s) {
+            if let Some(o) = option_at_mut(row, s) {
                 o.family = open_family(&v);
             }
         })
@@ -112,7 +81,7 @@ fn option_card(id: u64) -> impl IntoView {
                 {move || {
                     open_family(key.get())
                         .parameters()
-                        .map(|p| row_field(lens_field(p), at.into()))
+                        .map(|p| row_field(lens_field(p), row))
                         .collect_view()
                 }}
             </div>

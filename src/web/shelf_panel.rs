@@ -11,7 +11,7 @@ use super::shelf::{now_ms, BrowserSession, Shelf};
 use super::state::{use_app_state, AppState};
 use crate::display::thousands;
 use crate::library::{EntryId, NoticeAction, MAX_DOCUMENT_BYTES};
-use crate::scenario::Scenario;
+use crate::scenario::{Problem, Scenario};
 use leptos::prelude::*;
 
 /// Runs a session operation in this tab's turn to write and shows the
@@ -176,7 +176,7 @@ pub fn ShelfPanel() -> impl IntoView {
     let set_aside = move || shelf.set_aside.get();
     let name = Signal::derive(move || state.scenario.with(|s| s.name.clone()));
     let on_name = Callback::new(move |v: String| state.edit(|s| s.name = v));
-    let name_problem = Signal::derive(move || state.problem_at("name").map(|p| p.to_string()));
+    let name_problem = state.problem_at(Signal::stored("name".to_string()), Problem::to_string);
     let note = Signal::derive(move || {
         let id = shelf.current.get();
         shelf.list.with(|list| {

@@ -1,53 +1,42 @@
 //! The working-day panel: one card per task with its distance, position,
 //! size, detail, hours and safety flags; adding a task is one action.
 
-use super::bind::row_field;
+use super::bind::{row_field, Row};
 use super::fields::{focus_test_id, CheckField, ChoiceField, TextField};
 use super::state::use_app_state;
 use crate::scenario::task_kinds::{task_kind, TASK_KINDS};
-use crate::scenario::{fields, Scenario, Task, TaskFlags, VerticalPosition, MAX_TASKS};
+use crate::scenario::{fields, Problem, Scenario, Task, TaskFlags, VerticalPosition, MAX_TASKS};
 use leptos::prelude::*;
 
-/// Where a task's row stands in the list now (`None` once it is gone).
-type At = Memo<Option<usize>>;
-
-/// The task at `at` (reactive), if it still exists.
-fn task_at(at: At, s: &Scenario) -> Option<&Task> {
-    at.get().and_then(|i| s.tasks.get(i))
+/// What `read` takes from the task of `row`, re-read only when that task
+/// changes; `None` once the task is gone.
+fn task_part<T: Clone + PartialEq + Send + Sync + 'static>(
+    row: Row,
+    read: impl Fn(&Task) -> T + Send + Sync + 'static,
+) -> Memo<Option<T>> {
+    row.part(move |s, i| s.tasks.get(i).map(&read))
 }
 
-/// The path of `field` of the task at `at` (`tasks[1].name`), following
-/// the task as it moves in the list.
-fn task_path(at: At, field: &'static str) -> Signal<String> {
-    Signal::derive(move || {
-        at.get()
-            .map(|i| format!("tasks[{i}].{field}"))
-            .unwrap_or_default()
-    })
+/// The task of `row`, to change it, if it still exists.
+fn task_at_mut(row: Row, s: &mut Scenario) -> Option<&mut Task> {
+    row.at.get_untracked().and_then(|i| s.tasks.get_mut(i))
 }
 
-/// The task at `at`, to change it, if it still exists.
-fn task_at_mut(at: At, s: &mut Scenario) -> Option<&mut Task> {
-    at.get_untracked().and_then(|i| s.tasks.get_mut(i))
-}
-
-/// A check box bound to one flag of the task at `at`.
-fn flag_field(at: At, label: &'static str, flag: fn(&mut TaskFlags) -> &mut bool) -> impl IntoView {
+/// A check box bound to one flag of the task of `row`.
+fn flag_field(
+    row: Row,
+    label: &'static str,
+    flag: fn(&mut TaskFlags) -> &mut bool,
+) -> impl IntoView {
     let state = use_app_state();
-    let checked = Signal::derive(move || {
-        state
-            .scenario
-            .with(|s| {
-                task_at(at, s).map(|t| {
-                    let mut flags = t.flags;
-                    *flag(&mut flags)
-                })
-            })
-            .unwrap_or(false)
+    let on = task_part(row, move |t| {
+        let mut flags = t.flags;
+        *flag(&mut flags)
     });
+    let checked = Signal::derive(move || on.get().unwrap_or(false));
     let on_change = Callback::new(move |v: bool| {
         state.edit(|s| {
-            if let Some(t) = task_at_mut(at, s) {
+            if let Some(t) = task_at_mut(row, s) {
                 *flag(&mut t.flags) = v;
             }
         })
@@ -55,17 +44,16 @@ fn flag_field(at: At, label: &'static str, flag: fn(&mut TaskFlags) -> &mut bool
     view! { <CheckField label=label checked=checked on_change=on_change /> }
 }
 
-/// The vertical position of the task at `at`: a gaze angle or a height from the eyes.
-fn position_fields(at: At) -> impl IntoView {
+/// The vertical position of the task of `row`: a gaze angle or a height from the eyes.
+fn position_fields(row: Row) -> impl IntoView {
     let state = use_app_state();
-    let by_angle = move || {
-        state.scenario.with(|s| {
-            task_at(at, s).is_none_or(|t| matches!(t.vertical, VerticalPosition::GazeAngle { .. }))
-        })
-    };
+    let height = task_part(row, |t| {
+        matches!(t.vertical, VerticalPosition::HeightFromEyes { .. })
+    });
+    let by_angle = Signal::derive(move || height.get() != Some(true));
     let on_kind = Callback::new(move |v: String| {
         state.edit(|s| {
-            if let Some(t) = task_at_mut(at, s) {
+            if let Some(t) = task_at_mut(row, s) {
                 t.vertical = if v == "height" {
                     VerticalPosition::HeightFromEyes {
                         metres: fields::TASK_HEIGHT.start(),
@@ -82,14 +70,14 @@ fn position_fields(at: At) -> impl IntoView {
         <ChoiceField
             label="Position given as"
             choices=vec![("angle", "Gaze angle"), ("height", "Height from eyes")]
-            value=Signal::derive(move || if by_angle() { "angle" } else { "height" })
+            value=Signal::derive(move || if by_angle.get() { "angle" } else { "height" })
             on_change=on_kind
         />
         {move || {
-            if by_angle() {
-                row_field(&fields::TASK_ANGLE, at.into()).into_any()
+            if by_angle.get() {
+                row_field(&fields::TASK_ANGLE, row).into_any()
             } else {
-                row_field(&fields::TASK_HEIGHT, at.into()).into_any()
+                row_field(&fields::TASK_HEIGHT, row).into_any()
             }
         }}
     }
@@ -98,25 +86,19 @@ fn position_fields(at: At) -> impl IntoView {
 /// The card of the task with row id `id`.
 fn task_card(id: u64) -> impl IntoView {
     let state = use_app_state();
-    let at: At = Memo::new(move |_| state.rows.with(|rows| rows.task_index(id)));
-    let name = Signal::derive(move || {
-        state
-            .scenario
-            .with(|s| task_at(at, s).map(|t| t.name.clone()).unwrap_or_default())
-    });
+    let at = Memo::new(move |_| state.rows.with(|rows| rows.task_index(id)));
+    let row = Row::listed(at, |s, i| s.tasks.get(i).cloned());
+    let name = task_part(row, |t| t.name.clone());
+    let name = Signal::derive(move || name.get().unwrap_or_default());
     let on_name = Callback::new(move |v: String| {
         state.edit(|s| {
-            if let Some(t) = task_at_mut(at, s) {
+            if let Some(t) = task_at_mut(row, s) {
                 t.name = v;
             }
         })
     });
-    let name_path = task_path(at, "name");
-    let name_problem = Signal::derive(move || {
-        name_path
-            .with(|p| state.problem_at(p))
-            .map(|p| p.to_string())
-    });
+    let name_path = row.path("tasks", "name");
+    let name_problem = state.problem_at(name_path, Problem::to_string);
     let name_test_id = Signal::derive(move || {
         at.get()
             .map(|i| format!("task-{i}-name"))
@@ -143,29 +125,29 @@ fn task_card(id: u64) -> impl IntoView {
                 </button>
             </div>
             <div class="grid">
-                {row_field(&fields::TASK_DISTANCE, at.into())}
-                {position_fields(at)}
+                {row_field(&fields::TASK_DISTANCE, row)}
+                {position_fields(row)}
                 {[
                     &fields::TASK_SIDEWAYS,
                     &fields::TASK_WIDTH,
                     &fields::TASK_DETAIL,
                     &fields::TASK_HOURS,
                 ]
-                    .map(|f| row_field(f, at.into()))
+                    .map(|f| row_field(f, row))
                     .collect_view()}
             </div>
             <div class="flags">
-                {flag_field(at, "Driving (road, mirrors, dashboard)", |f| &mut f.driving)}
-                {flag_field(at, "Moving machinery", |f| &mut f.moving_machinery)}
-                {flag_field(at, "Overhead", |f| &mut f.overhead)}
-                {flag_field(at, "Screen text (detail is the character height)", |f| &mut f.screen)}
+                {flag_field(row, "Driving (road, mirrors, dashboard)", |f| &mut f.driving)}
+                {flag_field(row, "Moving machinery", |f| &mut f.moving_machinery)}
+                {flag_field(row, "Overhead", |f| &mut f.overhead)}
+                {flag_field(row, "Screen text (detail is the character height)", |f| &mut f.screen)}
             </div>
             <fieldset class="flags">
                 <legend>"Eye hazards"</legend>
-                {flag_field(at, "Impact", |f| &mut f.hazards.impact)}
-                {flag_field(at, "Splash or aerosol", |f| &mut f.hazards.splash_or_aerosol)}
-                {flag_field(at, "Dust", |f| &mut f.hazards.dust)}
-                {flag_field(at, "Optical radiation", |f| &mut f.hazards.optical_radiation)}
+                {flag_field(row, "Impact", |f| &mut f.hazards.impact)}
+                {flag_field(row, "Splash or aerosol", |f| &mut f.hazards.splash_or_aerosol)}
+                {flag_field(row, "Dust", |f| &mut f.hazards.dust)}
+                {flag_field(row, "Optical radiation", |f| &mut f.hazards.optical_radiation)}
             </fieldset>
         </li>
     }
@@ -212,7 +194,7 @@ pub fn TasksPanel() -> impl IntoView {
                 .map(|task| format!("Put back \"{}\"", task.name))
         })
     };
-    let tasks_problem = move || state.problem_at("tasks").map(|p| p.to_string());
+    let tasks_problem = state.problem_at(Signal::stored("tasks".to_string()), Problem::to_string);
     view! {
         <section class="panel tasks" aria-labelledby="tasks-heading">
             <h2 id="tasks-heading">"Working day"</h2>

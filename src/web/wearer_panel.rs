@@ -52,8 +52,9 @@ fn scenario_choice<T: Copy + PartialEq + Send + Sync + 'static>(
     set: impl Fn(&mut Scenario, T) + Copy + Send + Sync + 'static,
 ) -> impl IntoView {
     let state = use_app_state();
+    let current = state.part(get);
     let value = Signal::derive(move || {
-        let current = state.scenario.with(get);
+        let current = current.get();
         choices
             .iter()
             .find(|c| c.2 == current)
@@ -77,8 +78,7 @@ fn scenario_choice<T: Copy + PartialEq + Send + Sync + 'static>(
 /// How additions are rounded, and whether the prescribed addition is planned from.
 fn addition_settings() -> impl IntoView {
     let state = use_app_state();
-    let from_prescription =
-        Signal::derive(move || state.scenario.with(|s| s.settings.use_prescribed_addition));
+    let from_prescription = state.part(|s| s.settings.use_prescribed_addition);
     let on_prescription =
         Callback::new(move |v: bool| state.edit(|s| s.settings.use_prescribed_addition = v));
     view! {
@@ -102,8 +102,8 @@ fn addition_settings() -> impl IntoView {
 /// The amplitude source: estimated from age, or a measurement with its method and plane.
 fn amplitude_fields() -> impl IntoView {
     let state = use_app_state();
-    let measured = move || state.scenario.with(|s| s.wearer.measured_amplitude);
-    let source = Signal::derive(move || match measured() {
+    let measured = state.part(|s| s.wearer.measured_amplitude);
+    let source = Signal::derive(move || match measured.get() {
         None => "age",
         Some(m) if m.method == AmplitudeMethod::PushUp => "push_up",
         Some(_) => "minus_lens",
@@ -128,7 +128,7 @@ fn amplitude_fields() -> impl IntoView {
             });
         })
     });
-    let plane = Signal::derive(move || match measured().map(|m| m.plane) {
+    let plane = Signal::derive(move || match measured.get().map(|m| m.plane) {
         Some(ReferencePlane::Ocular) => "ocular",
         _ => "spectacle",
     });
@@ -156,7 +156,7 @@ fn amplitude_fields() -> impl IntoView {
             on_change=on_source
             test_id="amplitude-source"
         />
-        <Show when=move || measured().is_some()>
+        <Show when=move || measured.get().is_some()>
             {number_field(&fields::MEASURED_AMPLITUDE, 0)}
             <ChoiceField
                 label="Measured at"
@@ -203,11 +203,7 @@ fn correction_fields() -> impl IntoView {
 /// Pupil size (measured or from lighting) and the blur each task tolerates.
 fn pupil_and_blur_fields() -> impl IntoView {
     let state = use_app_state();
-    let pupil_measured = move || {
-        state
-            .scenario
-            .with(|s| matches!(s.wearer.pupil, PupilSource::Measured { .. }))
-    };
+    let pupil_measured = state.part(|s| matches!(s.wearer.pupil, PupilSource::Measured { .. }));
     let on_pupil = Callback::new(move |v: String| {
         state.edit(|s| {
             s.wearer.pupil = if v == "measured" {
@@ -241,11 +237,11 @@ fn pupil_and_blur_fields() -> impl IntoView {
         <ChoiceField
             label="Pupil size"
             choices=vec![("lighting", "Estimate from lighting and age"), ("measured", "Measured")]
-            value=Signal::derive(move || if pupil_measured() { "measured" } else { "lighting" })
+            value=Signal::derive(move || if pupil_measured.get() { "measured" } else { "lighting" })
             on_change=on_pupil
         />
         {move || {
-            if pupil_measured() {
+            if pupil_measured.get() {
                 number_field(&fields::PUPIL_DIAMETER, 0)
                     .into_any()
             } else {
