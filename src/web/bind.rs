@@ -43,7 +43,7 @@ pub fn row_field(field: &'static Field, at: RowAt) -> impl IntoView {
     let test_id = Signal::derive(move || path.with(|p| p.replace(['[', ']', '.'], "-")));
     let problem = Signal::derive(move || {
         path.with(|path| state.problem_at(path))
-            .map(|p| describe_problem(&p, unit, length.get()))
+            .map(|p| describe_problem(&p, field.label, unit, length.get()))
     });
     let unit_text = Signal::derive(move || shown_symbol(unit, length.get()).to_string());
     view! {
