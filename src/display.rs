@@ -2,8 +2,9 @@
 //! distances in centimetres or inches, powers with explicit signs. The core
 //! stores metres; units change only here, at the interface.
 
+use crate::core::clear_range::{FarLimit, ZoneRange};
 use crate::core::units::Metres;
-use crate::scenario::fields::Unit;
+use crate::scenario::fields::{self, Unit};
 use crate::scenario::Problem;
 use serde::{Deserialize, Serialize};
 
@@ -89,12 +90,14 @@ pub fn parse_number(text: &str) -> Result<f64, ParseNumberError> {
     let cleaned = text.trim().replace(',', ".");
     let cleaned = cleaned.strip_prefix('+').unwrap_or(&cleaned);
     if cleaned.is_empty() {
-        return Err(ParseNumberError("enter a number".to_string()));
+        return Err(ParseNumberError(
+            "Enter a number: the field is empty.".to_string(),
+        ));
     }
     match cleaned.parse::<f64>() {
         Ok(v) if v.is_finite() => Ok(v),
         _ => Err(ParseNumberError(format!(
-            "\"{}\" is not a number",
+            "\"{}\" is not a number: type digits, with a point or a comma before any decimals.",
             text.trim()
         ))),
     }
@@ -128,29 +131,28 @@ pub fn shown_symbol(unit: Unit, length: LengthUnit) -> &'static str {
     }
 }
 
-/// A field problem restated for a form as a sentence, for a field stored in
-/// `unit`: ranges of lengths are given in the user's length system, each
-/// bound in the unit that reads best (centimetres below a metre and metres
-/// above it, or inches below a yard and feet above it), shares as
-/// percentages; large numbers carry thousands separators.
-pub fn describe_problem(problem: &Problem, unit: Unit, length: LengthUnit) -> String {
+/// A field problem restated as a full sentence naming the field by its
+/// `label` ("Distance must be between 10 cm and 1,000 m."), for a field
+/// stored in `unit`: ranges of lengths are given in the user's length
+/// system, each bound in the unit that reads best (centimetres below a
+/// metre and metres above it, or inches below a yard and feet above it),
+/// shares as percentages; large numbers carry thousands separators. A
+/// label's explanation in brackets ("Gaze angle (up +, down −)") is left
+/// out of the sentence.
+pub fn describe_problem(problem: &Problem, label: &str, unit: Unit, length: LengthUnit) -> String {
+    let subject = label.split(" (").next().unwrap_or(label);
     match problem {
-        Problem::OutOfRange { min, max, .. } if unit == Unit::Metres => format!(
-            "Must be between {} and {}.",
-            readable_length(*min, length),
-            readable_length(*max, length)
+        Problem::OutOfRange { min, max, .. } => format!(
+            "{subject} must be between {} and {}.",
+            shown_value(*min, unit, length),
+            shown_value(*max, unit, length)
         ),
-        Problem::OutOfRange { min, max, .. } => {
-            let u = shown_symbol(unit, length);
-            let space = if u.is_empty() || u == "°" { "" } else { " " };
-            let shown = |v: f64| readable_number(to_shown(unit, length, v), 2);
-            format!(
-                "Must be between {}{space}{u} and {}{space}{u}.",
-                shown(*min),
-                shown(*max)
-            )
-        }
-        Problem::Empty => "Must not be empty.".to_string(),
+        Problem::Empty => format!("{subject} must not be empty."),
+        Problem::NotANumber => format!("{subject} must be a number."),
+        Problem::TooLong(max) => format!(
+            "{subject} must not be longer than {} characters.",
+            thousands(*max)
+        ),
         other => {
             let text = other.to_string();
             let mut chars = text.chars();
@@ -159,6 +161,48 @@ pub fn describe_problem(problem: &Problem, unit: Unit, length: LengthUnit) -> St
                 None => text,
             }
         }
+    }
+}
+
+/// A stored value of a field in `unit` written with its unit, as a person
+/// reads it: lengths in the user's system in the unit that reads best,
+/// shares as percentages, thousands separated ("1,000 m", "20 %", "-80°").
+pub fn shown_value(stored: f64, unit: Unit, length: LengthUnit) -> String {
+    if unit == Unit::Metres {
+        return readable_length(stored, length);
+    }
+    let symbol = shown_symbol(unit, length);
+    let number = readable_number(to_shown(unit, length, stored), 2);
+    match symbol {
+        "" => number,
+        "°" => format!("{number}°"),
+        _ => format!("{number} {symbol}"),
+    }
+}
+
+/// A problem the scenario gate found at `path` (a saved file's field path,
+/// such as `tasks[0].distance_m`) as a sentence: a number field's problem
+/// names the field by its label, gives the range in metric units and the
+/// value found; any other problem is its own words.
+pub fn problem_at_path(path: &str, problem: &Problem) -> String {
+    let field = fields::all().find(|f| {
+        let index = path
+            .split_once('[')
+            .and_then(|(_, rest)| rest.split_once(']'))
+            .and_then(|(i, _)| i.parse::<usize>().ok());
+        [Some(0), Some(1), index]
+            .into_iter()
+            .flatten()
+            .any(|i| f.path(i) == path)
+    });
+    match (field, problem) {
+        (Some(f), Problem::OutOfRange { value, .. }) => format!(
+            "{} The file gives {}.",
+            describe_problem(problem, f.label, f.unit, LengthUnit::Centimetres),
+            shown_value(*value, f.unit, LengthUnit::Centimetres)
+        ),
+        (Some(f), _) => describe_problem(problem, f.label, f.unit, LengthUnit::Centimetres),
+        (None, _) => problem.to_string(),
     }
 }
 
@@ -177,6 +221,54 @@ fn readable_length(metres: f64, unit: LengthUnit) -> String {
                 format!("{} in", readable_number(inches, 1))
             }
         }
+    }
+}
+
+/// A distance measured or planned, in metric units as people read them:
+/// whole centimetres below a metre, metres with one decimal from a metre
+/// on, thousands separated ("48 cm", "5.9 m", "1,000 m"), never a plus sign.
+///
+/// ```
+/// use clearspan::display::metric_length;
+/// assert_eq!(metric_length(0.483), "48 cm");
+/// assert_eq!(metric_length(5.92), "5.9 m");
+/// assert_eq!(metric_length(1000.0), "1,000 m");
+/// ```
+pub fn metric_length(metres: f64) -> String {
+    if (metres * 100.0).round().abs() >= 100.0 {
+        format!("{} m", readable_number(metres, 1))
+    } else {
+        format!("{} cm", readable_number(metres * 100.0, 0))
+    }
+}
+
+/// A point on the lens, in millimetres from the fitting point (x positive
+/// towards the nose, y positive upwards), written as coordinates: a minus
+/// sign where the point lies temporal or below, no plus sign ("1.2, -4.6 mm").
+///
+/// ```
+/// use clearspan::display::lens_point_words;
+/// assert_eq!(lens_point_words(1.23, -4.56), "1.2, -4.6 mm");
+/// assert_eq!(lens_point_words(-0.04, 2.0), "0.0, 2.0 mm");
+/// ```
+pub fn lens_point_words(x_mm: f64, y_mm: f64) -> String {
+    // Rounded first so that a point a hair left of the centre reads 0.0, not -0.0.
+    let tenth = |v: f64| (v * 10.0).round() / 10.0 + 0.0;
+    format!("{:.1}, {:.1} mm", tenth(x_mm), tenth(y_mm))
+}
+
+/// A zone's range of clear vision in words: "48 cm to 5.9 m", "63 cm to
+/// infinity", or why nothing is clear.
+pub fn zone_range_words(range: &ZoneRange) -> String {
+    match range {
+        ZoneRange::Clear { near, far } => {
+            let far = match far {
+                FarLimit::Finite(m) => metric_length(m.0),
+                FarLimit::Infinite => "infinity".to_string(),
+            };
+            format!("{} to {far}", metric_length(near.0))
+        }
+        other => other.to_string(),
     }
 }
 
@@ -331,32 +423,32 @@ mod tests {
             unit,
         };
         let check = |p: Problem, unit, length, text: &str| {
-            assert_eq!(describe_problem(&p, unit, length), text)
+            assert_eq!(describe_problem(&p, "Value", unit, length), text)
         };
         use LengthUnit::{Centimetres, Inches};
         check(
             range(0.1, 1000.0, "m"),
             Unit::Metres,
             Centimetres,
-            "Must be between 10 cm and 1,000 m.",
+            "Value must be between 10 cm and 1,000 m.",
         );
         check(
             range(0.1, 2.54, "m"),
             Unit::Metres,
             Inches,
-            "Must be between 3.9 in and 8.3 ft.",
+            "Value must be between 3.9 in and 8.3 ft.",
         );
         check(
             range(20.0, 45.0, "mm"),
             Unit::Millimetres,
             Inches,
-            "Must be between 20 mm and 45 mm.",
+            "Value must be between 20 mm and 45 mm.",
         );
         check(
             range(-80.0, 80.0, "°"),
             Unit::Degrees,
             Inches,
-            "Must be between -80° and 80°.",
+            "Value must be between -80° and 80°.",
         );
         // A share is typed as a percentage, so its range is given as one
         // (it was given as the stored ratio, 0.2 to 1, beside a % field).
@@ -364,13 +456,69 @@ mod tests {
             range(0.2, 1.0, ""),
             Unit::Share,
             Centimetres,
-            "Must be between 20 % and 100 %.",
+            "Value must be between 20 % and 100 %.",
         );
         check(
             Problem::Empty,
             Unit::Ratio,
             Centimetres,
-            "Must not be empty.",
+            "Value must not be empty.",
         );
+    }
+
+    #[test]
+    fn a_problem_names_its_field_in_a_full_sentence() {
+        // Rule (issue 14, point 9): a validation message is a full sentence
+        // naming the field, its range in readable units and, for a file,
+        // the value found.
+        let distance = Problem::OutOfRange {
+            value: -3.0,
+            min: 0.1,
+            max: 1000.0,
+            unit: "m",
+        };
+        assert_eq!(
+            describe_problem(&distance, "Distance", Unit::Metres, LengthUnit::Centimetres),
+            "Distance must be between 10 cm and 1,000 m."
+        );
+        assert_eq!(
+            problem_at_path("tasks[3].distance_m", &distance),
+            "Distance must be between 10 cm and 1,000 m. The file gives -3 m."
+        );
+        let gaze = Problem::OutOfRange {
+            value: 95.0,
+            min: -80.0,
+            max: 80.0,
+            unit: "°",
+        };
+        let label = crate::scenario::fields::all()
+            .find(|f| f.key == "vertical.degrees")
+            .map_or("", |f| f.label);
+        assert!(
+            label.contains('('),
+            "the gaze label explains its sign: {label}"
+        );
+        assert_eq!(
+            describe_problem(&gaze, label, Unit::Degrees, LengthUnit::Centimetres),
+            "Gaze angle must be between -80° and 80°."
+        );
+        assert_eq!(
+            problem_at_path("wearer.left.sphere_d", &Problem::NotANumber),
+            "Sphere must be a number."
+        );
+        assert_eq!(
+            problem_at_path("name", &Problem::Empty),
+            "must not be empty"
+        );
+        for text in [
+            parse_number("").unwrap_err().0,
+            parse_number("abc").unwrap_err().0,
+        ] {
+            assert!(text.ends_with('.'), "a sentence: {text}");
+            assert!(
+                text.chars().next().is_some_and(|c| !c.is_lowercase()),
+                "{text}"
+            );
+        }
     }
 }

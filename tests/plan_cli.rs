@@ -67,7 +67,12 @@ fn a_bad_file_names_the_field_and_fails() {
     let (ok, _, err) = run(&["plan", &path.to_string_lossy()]);
     assert!(!ok);
     assert!(err.contains("tasks[0].distance_m"), "{err}");
-    assert!(err.contains("outside the allowed range"), "{err}");
+    // Rule (issue 14, point 9): the message is a full sentence naming the
+    // field, its range in readable units and the value the file gives.
+    assert!(
+        err.contains("Distance must be between 10 cm and 1,000 m. The file gives -3 m."),
+        "{err}"
+    );
     let path2 = temp_file("broken.json", "{ not json");
     let (ok, _, err) = run(&["plan", &path2.to_string_lossy()]);
     assert!(!ok && err.contains("not valid JSON"), "{err}");
@@ -79,19 +84,9 @@ fn a_bad_file_names_the_field_and_fails() {
 
 #[test]
 fn every_demo_file_plans() {
-    let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("scenarios");
-    let entries = std::fs::read_dir(&dir).expect("the demo folder scenarios/ exists");
-    let mut planned = 0;
-    for entry in entries.flatten() {
-        let path = entry.path();
-        if path.extension().is_some_and(|e| e == "json") {
-            let (ok, out, err) = run(&["plan", &path.to_string_lossy()]);
-            assert!(ok, "{}: {err}", path.display());
-            assert!(out.contains("Cautions:"), "{}", path.display());
-            planned += 1;
-        }
+    for (file, text) in demo_plans() {
+        assert!(text.contains("Cautions:"), "{file}");
     }
-    assert!(planned >= 5, "only {planned} demo files planned");
 }
 
 /// `scenario` (JSON text) in a version-1 export envelope.
@@ -238,4 +233,175 @@ fn an_export_without_scenarios_says_there_is_nothing_to_plan() {
     assert!(!ok);
     assert!(out.is_empty(), "{out}");
     assert!(err.contains("the file holds no scenarios"), "{err}");
+}
+
+/// The plan text of every demo file, by file name.
+fn demo_plans() -> Vec<(String, String)> {
+    let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("scenarios");
+    let mut plans = Vec::new();
+    for entry in std::fs::read_dir(&dir)
+        .expect("scenarios/ is listable")
+        .flatten()
+    {
+        let path = entry.path();
+        if path.extension().is_some_and(|e| e == "json") {
+            let (ok, out, err) = run(&["plan", &path.to_string_lossy()]);
+            assert!(ok, "{}: {err}", path.display());
+            plans.push((path.display().to_string(), out));
+        }
+    }
+    assert!(plans.len() >= 5, "only {} demo files planned", plans.len());
+    plans
+}
+
+/// Units a number may carry, written after it with a space.
+const UNITS: [&str; 14] = [
+    "D", "DS", "mm", "cm", "m", "in", "ft", "h", "years", "°", "Δ", "%", "cd/m²", "decimal",
+];
+/// Units written straight after the number.
+const ATTACHED_UNITS: [char; 4] = ['°', '′', '%', 'Δ'];
+/// Units of length.
+const LENGTH_UNITS: [&str; 5] = ["mm", "cm", "m", "in", "ft"];
+
+/// Words between numbers that share the unit written after the last of them
+/// ("PD R 32.0 / L 31.5 mm", "1.2, -4.6 mm").
+const SHARED_UNIT_LINKS: [&str; 3] = ["/", "R", "L"];
+
+/// Cited sources and formulas whose numbers are no quantities: an author's
+/// year, a standard's number, the coefficients of Hofstetter's line.
+const CITATIONS: [&str; 4] = [
+    "Watson & Yellott 2012",
+    "ISO 11226",
+    "Directive 2006/126/EC",
+    "Hofstetter minimum, 15 - 0.25 x",
+];
+
+/// `token` without the brackets and punctuation around it.
+fn bare(token: &str) -> &str {
+    token
+        .trim_start_matches('(')
+        .trim_end_matches([',', ';', ':', ')', '.'])
+}
+
+/// The number `token` starts with, its sign kept, and what follows it in
+/// the token; `None` when the token is no number.
+fn number_in(token: &str) -> Option<(&str, &str)> {
+    let digits_from = token
+        .char_indices()
+        .find(|(_, c)| !matches!(c, '+' | '-' | '±'))
+        .map(|(i, _)| i)?;
+    let rest = &token[digits_from..];
+    if !rest.starts_with(|c: char| c.is_ascii_digit()) {
+        return None;
+    }
+    let end = rest
+        .char_indices()
+        .find(|(_, c)| !(c.is_ascii_digit() || *c == '.' || *c == ','))
+        .map_or(rest.len(), |(i, _)| i);
+    let number = rest[..end].trim_end_matches(['.', ',']);
+    Some((
+        &token[..digits_from + number.len()],
+        &token[digits_from + number.len()..],
+    ))
+}
+
+/// Every number of `text` that breaks a wording rule, with the rule's name.
+/// Text in straight quotes (names the user chose) is not checked.
+fn wording_faults(text: &str) -> Vec<String> {
+    let mut faults = Vec::new();
+    for line in text.lines() {
+        let mut checked: String = line.split('"').step_by(2).collect::<Vec<_>>().join(" ");
+        for citation in CITATIONS {
+            checked = checked.replace(citation, " ");
+        }
+        let tokens: Vec<&str> = checked.split_whitespace().map(bare).collect();
+        let mut i = 0;
+        while i < tokens.len() {
+            let Some((number, attached)) = number_in(tokens[i]) else {
+                i += 1;
+                continue;
+            };
+            // Prescription notation (sphere / cylinder x axis) writes the
+            // dioptres and the axis degrees unnamed (ISO 13666 vocabulary,
+            // common practice on every prescription).
+            let prescription = tokens.get(i + 1) == Some(&"/")
+                && tokens.get(i + 2).and_then(|t| number_in(t)).is_some()
+                && tokens.get(i + 3) == Some(&"x")
+                && tokens.get(i + 4).and_then(|t| number_in(t)).is_some();
+            if prescription {
+                i += 5;
+                continue;
+            }
+            let digits = number.trim_start_matches(['+', '-', '±']);
+            let whole = digits.split('.').next().unwrap_or(digits);
+            if whole.len() > 3 && !whole.contains(',') {
+                faults.push(format!(
+                    "large numbers carry thousands separators: {number} in {line:?}"
+                ));
+            }
+            let unit = if attached.is_empty() {
+                let mut j = i + 1;
+                while j < tokens.len()
+                    && (SHARED_UNIT_LINKS.contains(&tokens[j])
+                        || number_in(tokens[j]).is_some_and(|(_, a)| a.is_empty()))
+                {
+                    j += 1;
+                }
+                tokens.get(j).copied().filter(|u| UNITS.contains(u))
+            } else {
+                attached.starts_with(ATTACHED_UNITS).then_some(attached)
+            };
+            match unit {
+                None => faults.push(format!("every number carries a unit: {number} in {line:?}")),
+                Some(u) if number.starts_with('+') && LENGTH_UNITS.contains(&u) => faults.push(
+                    format!("lengths carry no plus sign: {number} {u} in {line:?}"),
+                ),
+                Some(_) => {}
+            }
+            i += 1;
+        }
+        for short in ["accomm.", "conv.", "nearPD", "(add "] {
+            if line.contains(short) {
+                faults.push(format!("words, not abbreviations: {short:?} in {line:?}"));
+            }
+        }
+    }
+    faults
+}
+
+#[test]
+fn every_number_of_every_demo_plan_carries_a_unit_and_no_length_a_plus_sign() {
+    // The wording rules of issue 14, point 9, over the whole command-line
+    // plan of every demo: every number carries a unit, no length carries a
+    // plus sign, large numbers carry thousands separators, and no column
+    // is abbreviated ("accommodation", not "accomm.").
+    for (file, text) in demo_plans() {
+        let faults = wording_faults(&text);
+        assert!(faults.is_empty(), "{file}:\n{}", faults.join("\n"));
+    }
+}
+
+#[test]
+fn the_wording_check_finds_what_it_looks_for() {
+    // The checker itself, on lines that break each rule and lines that keep
+    // them, so that a check passing over every demo means something.
+    let check = |line: &str, broken: &[&str]| {
+        let faults = wording_faults(line);
+        assert_eq!(faults.len(), broken.len(), "{line}: {faults:?}");
+        for (fault, rule) in faults.iter().zip(broken) {
+            assert!(fault.starts_with(rule), "{fault}");
+        }
+    };
+    check("near PD 60.9 mm, convergence 9.8 Δ, head turn 30°", &[]);
+    check("R +0.75 / -0.25 x 180   L +0.50 DS", &[]);
+    check("PD R 32.0 / L 31.5 mm; lens point 1.2, -4.6 mm", &[]);
+    check("\"Degressive 1.50\" (degressive)", &[]);
+    check("Pupil: 2.5 mm (Watson & Yellott 2012: 1,000 cd/m²)", &[]);
+    check("near PD 60.9", &["every number carries a unit"]);
+    check("lens point +1.2 mm", &["lengths carry no plus sign"]);
+    check(
+        "comfortable 48 cm to 1000 m",
+        &["large numbers carry thousands separators"],
+    );
+    check("accomm. +0.50 D", &["words, not abbreviations"]);
 }

@@ -349,13 +349,16 @@ fn posture(options: &[OptionPlan], out: &mut Vec<Caution>) {
     let words: Vec<String> = strained
         .iter()
         .map(|t| {
-            format!(
-                "\"{}\" ({}, head turned {:.0}° and sweeping {:.0}° more)",
-                t.task.name,
-                t.posture,
-                t.field.held_turn.0,
-                t.field.head_turn.0 - t.field.held_turn.0
-            )
+            let held = t.field.held_turn.0;
+            let sweep = t.field.head_turn.0 - held;
+            let mut parts = vec![t.posture.to_string()];
+            if held >= 0.5 {
+                parts.push(format!("head turned {held:.0}°"));
+            }
+            if sweep >= 0.5 {
+                parts.push(format!("sweeping {sweep:.0}° more across it"));
+            }
+            format!("\"{}\" ({})", t.task.name, parts.join(", "))
         })
         .collect();
     out.push(Caution {
@@ -363,11 +366,12 @@ fn posture(options: &[OptionPlan], out: &mut Vec<Caution>) {
         tasks: strained.iter().map(|t| t.task.clone()).collect(),
         options: vec![best.option.clone()],
         text: format!(
-            "With the recommended \"{}\", {} need a head posture beyond what ergonomic \
+            "With the recommended \"{}\", {} {} a head posture beyond what ergonomic \
              guidance accepts for sustained work (ISO 11226): move the task, or plan a \
              design or a separate pair that brings the right power to it.",
             best.option.label,
-            words.join(", ")
+            words.join(", "),
+            if strained.len() == 1 { "needs" } else { "need" }
         ),
     });
 }

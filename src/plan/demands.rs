@@ -28,6 +28,7 @@ use super::{TaskRef, Verdict};
 use crate::core::accommodation::AgeModel;
 use crate::core::lens::SINGLE_VISION_ADDITION_GRID;
 use crate::core::units::{Degrees, Dioptres, Metres, PrismDioptres};
+use crate::display::metric_length;
 use crate::scenario::{
     validate, FamilyChoice, LensOption, Scenario, ValidScenario, VerticalPosition,
 };
@@ -402,18 +403,21 @@ impl fmt::Display for Change {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         match *self {
             Change::MoveTo { distance } => {
-                write!(f, "move it to {:.0} cm from the eyes", distance.0 * 100.0)
+                write!(f, "move it to {} from the eyes", metric_length(distance.0))
             }
             Change::GazeTo {
                 gaze,
                 height_change,
             } => {
-                let cm = height_change.0 * 100.0;
-                let way = if cm < 0.0 { "lower" } else { "raise" };
+                let way = if height_change.0 < 0.0 {
+                    "lower"
+                } else {
+                    "raise"
+                };
                 write!(
                     f,
-                    "{way} its centre by {:.0} cm, to {:.0}° {} eye level",
-                    cm.abs(),
+                    "{way} its centre by {}, to {:.0}° {} eye level",
+                    metric_length(height_change.0.abs()),
                     gaze.0.abs(),
                     if gaze.0 < 0.0 { "below" } else { "above" }
                 )

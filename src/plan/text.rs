@@ -5,6 +5,7 @@
 //! outcome types' `Display`, shared with the screens.
 
 use super::outcome::*;
+use crate::display::{lens_point_words, readable_number, zone_range_words};
 use crate::scenario::{AmplitudeMethod, ReferencePlane};
 use std::fmt::Write;
 
@@ -44,12 +45,12 @@ pub fn refraction_line(r: &RefractionUsed) -> String {
     match r.basis {
         RefractionBasis::MeanOfBothEyes => format!(
             "Refraction: {} used for vergence, the mean of both eyes' spherical equivalents \
-             (R {}, L {}); vertex {:.0} mm",
+             (R {}, L {}); vertex distance {:.0} mm",
             r.used, r.right_equivalent, r.left_equivalent, r.vertex.0
         ),
         RefractionBasis::OverContactLenses => format!(
             "Refraction: corrected by contact lenses (spherical equivalents R {}, L {}); the \
-             options are worn over them, plano at distance, at a vertex of {:.0} mm",
+             options are worn over them, plano at distance, at a vertex distance of {:.0} mm",
             r.right_equivalent, r.left_equivalent, r.vertex.0
         ),
     }
@@ -64,9 +65,24 @@ pub fn pupil_line(p: &PupilUsed) -> String {
             field,
             age_years,
         } => format!(
-            "Pupil: {:.1} mm (Watson & Yellott 2012: {luminance_cd_m2} cd/m², {:.0}° field, age {age_years:.0})",
-            p.diameter.0, field.0
+            "Pupil: {:.1} mm (Watson & Yellott 2012: {} cd/m², {:.0}° field, age {age_years:.0} years)",
+            p.diameter.0,
+            readable_number(luminance_cd_m2, 0),
+            field.0
         ),
+    }
+}
+
+/// Characters of a task's name shown in the table's first column.
+const NAME_COLUMN: usize = 30;
+
+/// `text` cut to `width` characters, ending in "…" when cut.
+fn column_text(text: &str, width: usize) -> String {
+    if text.chars().count() <= width {
+        text.to_string()
+    } else {
+        let kept: String = text.chars().take(width - 1).collect();
+        format!("{kept}…")
     }
 }
 
@@ -103,45 +119,49 @@ fn option_block(out: &mut String, o: &OptionPlan, plan_half_depth: f64) {
     for z in &o.zones {
         let _ = writeln!(
             out,
-            "   {} zone (add {}): comfortable {}; in focus {} (at ±{:.2} D; each task's own range is in its row)",
-            z.zone, z.addition, z.comfortable, z.in_focus, plan_half_depth
+            "   {} zone (addition {}): comfortable {}; in focus {} (at ±{:.2} D; each task's own range is in its row)",
+            z.zone,
+            z.addition,
+            zone_range_words(&z.comfortable),
+            zone_range_words(&z.in_focus),
+            plan_half_depth
         );
     }
     let _ = writeln!(
         out,
-        "   {:<22} {:<13} {:>13} {:<34} {:>13} {:>6} {:<20} {:<22} {:>7} {:<24} {:>6} {:>7} {:>6}",
+        "   {:<30} {:<13} {:>14} {:<40} {:>13} {:>6} {:<20} {:<22} {:>9} {:<24} {:>9} {:>8} {:>11}",
         "task",
         "zone",
-        "point x,y mm",
+        "lens point",
         "local power",
         "accommodation",
         "share",
         "verdict",
         "comfortable here",
-        "blur'",
-        "posture",
-        "turn°",
-        "nearPD",
-        "conv.Δ"
+        "blur disc",
+        "head posture",
+        "head turn",
+        "near PD",
+        "convergence"
     );
     for t in &o.tasks {
-        let name: String = t.task.name.chars().take(22).collect();
+        let name = column_text(&t.task.name, NAME_COLUMN);
         let _ = writeln!(
             out,
-            "   {:<22} {:<13} {:>13} {:<34} {:>13} {:>6} {:<20} {:<22} {:>7.1} {:<24} {:>6.0} {:>7.1} {:>6.1}",
+            "   {:<30} {:<13} {:>14} {:<40} {:>13} {:>6} {:<20} {:<22} {:>9} {:<24} {:>9} {:>8} {:>11}",
             name,
             t.zone.to_string(),
-            format!("{:+.1},{:+.1}", t.lens_point.x.0, t.lens_point.y.0),
+            lens_point_words(t.lens_point.x.0, t.lens_point.y.0),
             t.local_power.to_string(),
             t.accommodation.to_string(),
             share(t.share_of_amplitude),
             t.verdict.to_string(),
-            t.range_here.comfortable.to_string(),
-            t.blur.blur_disc_arcmin,
+            zone_range_words(&t.range_here.comfortable),
+            format!("{:.1}′", t.blur.blur_disc_arcmin),
             t.posture.to_string(),
-            t.field.head_turn.0,
-            t.near_vision.near_pd.0,
-            t.near_vision.convergence.0
+            format!("{:.0}°", t.field.head_turn.0),
+            format!("{:.1} mm", t.near_vision.near_pd.0),
+            format!("{:.1} Δ", t.near_vision.convergence.0)
         );
     }
 }
@@ -260,7 +280,7 @@ pub fn order_lines(o: &OrderSummary) -> Vec<String> {
         )),
         o.vertex.map_or(
             "vertex as fitted over the contact lenses".to_string(),
-            |v| { format!("vertex {:.0} mm", v.0) }
+            |v| { format!("vertex distance {:.0} mm", v.0) }
         ),
         o.pantoscopic_tilt.0
     ));

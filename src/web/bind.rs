@@ -100,7 +100,9 @@ pub fn row_field(field: &'static Field, row: Row) -> impl IntoView {
     let path: Signal<String> =
         Memo::new(move |_| at.get().map(|i| field.path(i)).unwrap_or_default()).into();
     let test_id = Signal::derive(move || path.with(|p| p.replace(['[', ']', '.'], "-")));
-    let problem = state.problem_at(path, move |p| describe_problem(p, unit, length.get()));
+    let problem = state.problem_at(path, move |p| {
+        describe_problem(p, field.label, unit, length.get())
+    });
     let unit_text = Signal::derive(move || shown_symbol(unit, length.get()).to_string());
     view! {
         <NumberField

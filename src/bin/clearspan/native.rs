@@ -16,7 +16,7 @@
 
 use clap::error::{ContextKind, ContextValue, ErrorKind};
 use clap::{Parser, Subcommand};
-use clearspan::display::printable;
+use clearspan::display::{printable, problem_at_path};
 use clearspan::library::{
     document_text, parse_import_value, parse_limited, read_bare_scenario, ImportBatch, ReadError,
     MAX_DOCUMENT_BYTES,
@@ -231,7 +231,13 @@ fn checked(s: Scenario, prefix: &str) -> Result<ValidScenario, String> {
     validate(s).map_err(|errors| {
         let lines: Vec<String> = errors
             .iter()
-            .map(|e| format!("  {prefix}{}: {}", e.path, e.problem))
+            .map(|e| {
+                format!(
+                    "  {prefix}{}: {}",
+                    e.path,
+                    problem_at_path(&e.path, &e.problem)
+                )
+            })
             .collect();
         format!("the scenario has problems:\n{}", lines.join("\n"))
     })

@@ -117,8 +117,7 @@ impl fmt::Display for AdditionComparison {
         write!(
             f,
             "addition {} against the prescribed {} ({why})",
-            self.planned.signed(),
-            self.prescribed.signed()
+            self.planned, self.prescribed
         )
     }
 }
@@ -341,7 +340,7 @@ impl fmt::Display for ParameterValue {
                 write!(f, "{:.0} mm below the fitting point", -mm.0)
             }
             ParameterValue::Height(_) => f.write_str("level with the fitting point"),
-            ParameterValue::Ratio(r) => write!(f, "{r:.2}"),
+            ParameterValue::Ratio(r) => write!(f, "{:.0} % of the addition", r * 100.0),
         }
     }
 }

@@ -3,6 +3,7 @@
 
 use super::*;
 use crate::core::units::{Degrees, Dioptres, Metres, Millimetres, PrismDioptres};
+use crate::display::metric_length;
 use crate::scenario::FamilyChoice;
 use serde::Serialize;
 use std::fmt;
@@ -193,12 +194,12 @@ impl fmt::Display for UnservedReason {
             UnservedReason::NoOptions => f.write_str("the scenario has no lens options"),
             UnservedReason::NeedsMorePlus { short_by } => write!(
                 f,
-                "even the closest option is {} short of the plus needed for comfort",
+                "even the closest option is {} D short of the plus needed for comfort",
                 short_by.signed().trim_start_matches('+')
             ),
             UnservedReason::NeedsLessPlus { excess } => write!(
                 f,
-                "even the closest option gives {} too much plus for comfort",
+                "even the closest option gives {} D too much plus for comfort",
                 excess.signed().trim_start_matches('+')
             ),
             UnservedReason::PowerOutOfReach => f.write_str(
@@ -228,7 +229,7 @@ impl fmt::Display for Remedy {
                 "an addition of {needed}, beyond the lenses in the catalogue"
             ),
             Remedy::Magnifier => f.write_str("a magnifier for the finest detail"),
-            Remedy::MoveTask { to } => write!(f, "moving it to {:.0} cm", to.to_cm()),
+            Remedy::MoveTask { to } => write!(f, "moving it to {}", metric_length(to.0)),
             Remedy::UpperSegmentOrSeparatePair => {
                 f.write_str("an upper segment or a separate pair made for work above eye level")
             }

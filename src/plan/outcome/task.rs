@@ -3,6 +3,7 @@
 
 use super::*;
 use crate::core::units::{Degrees, Dioptres, Millimetres, PrismDioptres};
+use crate::display::lens_point_words;
 use serde::Serialize;
 use std::fmt;
 
@@ -208,10 +209,8 @@ impl fmt::Display for LocalPower {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         write!(
             f,
-            "R {}  L {}  (add {})",
-            self.right,
-            self.left,
-            self.addition.signed()
+            "R {}  L {}  (addition {})",
+            self.right, self.left, self.addition
         )
     }
 }
@@ -235,11 +234,10 @@ impl TaskPlan {
     /// One line of plain English on how the task fares.
     pub fn describe(&self) -> String {
         format!(
-            "\"{}\": {} zone at ({:+.1}, {:+.1}) mm, {}, {}; posture {}",
+            "\"{}\": {} zone at {}, {}, {}; posture {}",
             self.task.name,
             self.zone,
-            self.lens_point.x.0,
-            self.lens_point.y.0,
+            lens_point_words(self.lens_point.x.0, self.lens_point.y.0),
             self.local_power,
             self.verdict,
             self.posture

@@ -67,7 +67,7 @@ fn cell(o: &OptionPlan, t: usize) -> Option<Cell> {
         symbol,
         class,
         words,
-        zone: format!("{} zone, add {}", tp.zone, tp.local_power.addition),
+        zone: format!("{} zone, addition {}", tp.zone, tp.local_power.addition),
         posture: (posture != "natural").then_some(posture),
         turn: (turn >= 1.0).then(|| format!("head turn {turn:.0}°")),
     })

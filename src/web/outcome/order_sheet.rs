@@ -68,7 +68,7 @@ pub fn order_sheet(plan: &Plan) -> impl IntoView {
             eye(&w.left),
             w.prescribed_addition_d.map_or(String::new(), |a| format!(
                 ", addition {}",
-                crate::core::units::Dioptres(a).signed()
+                crate::core::units::Dioptres(a)
             ))
         )
     });

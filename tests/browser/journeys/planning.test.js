@@ -157,14 +157,14 @@ test("an invalid distance is explained, the last plan stays marked stale, and fi
 
   await planner.setNumber(DISTANCE, "-3");
   await stale.waitFor();
-  assert.equal(await planner.messageFor(DISTANCE), "Must be between 10 cm and 1,000 m.");
+  assert.equal(await planner.messageFor(DISTANCE), "Distance must be between 10 cm and 1,000 m.");
   assert.equal(await planner.byTestId(DISTANCE).getAttribute("aria-invalid"), "true");
   assert.ok(await planner.byTestId("recommendation").isVisible(), "the previous recommendation stays");
   assert.ok(await planner.byTestId("comparison").isVisible(), "the previous comparison stays");
   assert.match((await planner.orderSheetTasks())[0], /: 65 cm at/, "the plan on screen is still the one for 65 cm");
 
   await planner.setNumber(DISTANCE, "abc");
-  assert.equal(await planner.messageFor(DISTANCE), '"abc" is not a number');
+  assert.equal(await planner.messageFor(DISTANCE), '"abc" is not a number: type digits, with a point or a comma before any decimals.');
   assert.equal(await planner.valueOf(DISTANCE), "abc", "the user's text is kept for correction");
   assert.ok(await stale.isVisible(), "still stale: the scenario has no valid distance yet");
   assert.ok(await planner.byTestId("recommendation").isVisible());
@@ -279,7 +279,7 @@ test(
     await page.waitForFunction(() => document.querySelectorAll('[data-testid="task-card"]').length === 2);
     // Both tasks start at the new-task distance (65 cm); the first gets a typo.
     await planner.setNumber(DISTANCE, "abc");
-    assert.equal(await planner.messageFor(DISTANCE), '"abc" is not a number');
+    assert.equal(await planner.messageFor(DISTANCE), '"abc" is not a number: type digits, with a point or a comma before any decimals.');
 
     await page.getByRole("button", { name: "Remove task Screen" }).click();
     await page.waitForFunction(() => document.querySelectorAll('[data-testid="task-card"]').length === 1);
