@@ -1,9 +1,11 @@
-//! What every full-screen view opened from a button shares (the wearer's
-//! walkthrough, the workplace-vision view): keyboard focus moves into the
-//! view when it opens and back to the button that opened it when it closes.
+//! What every view opened from a button or a mark shares (the wearer's
+//! walkthrough, the workplace-vision view, a task's detail): keyboard focus
+//! moves into the view when it opens and back to what opened it when it
+//! closes.
 
 use leptos::html;
 use leptos::prelude::*;
+use wasm_bindgen::JsCast;
 
 /// Makes focus follow `open`: into `dialog` once it is drawn, back to
 /// `opener` when it closes.
@@ -27,4 +29,14 @@ pub fn focus_follows(
         }
         is_open
     });
+}
+
+/// Moves keyboard focus to `element`, an HTML element or an SVG one (a
+/// chart mark that takes focus).
+pub fn focus_element(element: &web_sys::Element) {
+    if let Some(html) = element.dyn_ref::<web_sys::HtmlElement>() {
+        let _ = html.focus();
+    } else if let Some(svg) = element.dyn_ref::<web_sys::SvgElement>() {
+        let _ = svg.focus();
+    }
 }

@@ -1,11 +1,13 @@
 //! The lens map: the chosen option's local addition over the lens, drawn
 //! from the family's own map, with the usable-zone edges, the fitting point
-//! and each task's crossing point labelled with the power found there.
+//! and each task's crossing point labelled with the power found there;
+//! choosing a point opens its task's detail beside it.
 //! The shaded lens depends only on the design and the frame, so it is
 //! painted once on a canvas when they change; the outline, zone edges,
 //! cross and task points are a small SVG over it, and only the points
 //! follow every edit (keyed, so only the points that moved are redrawn).
 
+use super::detail::{use_task_detail, Mark};
 use crate::chart::coord::Coord;
 use crate::chart::lens_map::{label_places, LensFrame, ShadeRun};
 use crate::core::lens::LensDesign;
@@ -26,6 +28,11 @@ const STEP_MM: f64 = 1.0;
 /// What the shaded lens depends on: the design, the fitting height, the lens
 /// height and the lens to centre-of-rotation distance the plan used, in millimetres.
 type Geometry = (FamilyChoice, f64, f64, f64);
+
+/// Radius of the circle that takes a tap or a click on a task point, in SVG
+/// units: 44 px across or more where the map is drawn at its full width
+/// (touch-target size, WCAG 2.5.5).
+const HIT: f64 = 20.0;
 
 /// Canvas pixels per SVG unit: twice the drawing's size, sharp on
 /// high-density screens and in print.
@@ -78,7 +85,7 @@ struct PointMark {
 /// The shaded lens, zone edges and fitting cross for `geometry`, with the
 /// task points of `chosen` drawn over them.
 fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
-    let state = use_app_state();
+    let detail = use_task_detail();
     let (choice, fitting_height, lens_height, lens_to_cor) = geometry;
     let Ok(design) = LensDesign::from_choice(&choice) else {
         return view! { <p class="hint">"This option's lens cannot be drawn."</p> }.into_any();
@@ -146,10 +153,27 @@ fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
     };
     let point = move |p: PointMark| {
         let index = p.index;
+        let name = p.tooltip.clone();
         view! {
-            <g class="lens-point" on:click=move |_| state.chosen_task.set(Some(index))>
+            <g
+                class="lens-point"
+                tabindex="0"
+                role="button"
+                aria-label=name
+                aria-haspopup="dialog"
+                aria-expanded=move || detail.is_open_for(index).to_string()
+                data-mark=Mark::Point.id(index)
+                on:click=move |_| detail.open(Mark::Point, index)
+                on:keydown=move |ev| {
+                    if ev.key() == "Enter" || ev.key() == " " {
+                        ev.prevent_default();
+                        detail.open(Mark::Point, index);
+                    }
+                }
+            >
                 <title>{p.tooltip}</title>
-                <circle cx=p.x.get() cy=p.y.get() r="5" />
+                <circle class="hit" cx=p.x.get() cy=p.y.get() r=HIT />
+                <circle class="dot" cx=p.x.get() cy=p.y.get() r="5" />
                 <text x=p.label_x.get() y=p.label_y.get()>{p.label}</text>
             </g>
         }

@@ -2,12 +2,14 @@
 //! first), each cell the verdict with its symbol, the local addition and any
 //! head posture or head turn the task forces; below, what each option's
 //! score is made of, its fitness for driving, and when two options are
-//! practically equal. Choosing an option's heading writes the order for it.
+//! practically equal. Choosing an option's heading writes the order for it;
+//! choosing a task's heading opens the task's detail beside it.
 //!
 //! The table is drawn from rows of display text keyed by their content, so
 //! an edit rebuilds only the rows whose text changed (usually the edited
 //! task's row and the score lines), not the whole table.
 
+use super::detail::{use_task_detail, Mark};
 use super::marks::verdict_mark;
 use crate::plan::{DrivingFitness, OptionPlan, Plan};
 use crate::web::state::use_app_state;
@@ -186,12 +188,20 @@ pub fn Comparison() -> impl IntoView {
             </th>
         }
     };
+    let detail = use_task_detail();
     let row = move |r: Row| {
         let index = r.index;
         view! {
             <tr>
                 <th scope="row">
-                    <button type="button" class="task-head-button" on:click=move |_| state.chosen_task.set(Some(index))>
+                    <button
+                        type="button"
+                        class="task-head-button"
+                        data-mark=Mark::Row.id(index)
+                        aria-haspopup="dialog"
+                        aria-expanded=move || detail.is_open_for(index).to_string()
+                        on:click=move |_| detail.open(Mark::Row, index)
+                    >
                         {r.title}
                     </button>
                     <span class="detail">{r.hours}</span>

@@ -1,10 +1,12 @@
 //! The outcome panel: the recommended option with its reasons, the cautions,
 //! tasks no option serves, the comparison table, the range chart, the lens
-//! map, a task's numbers in detail and the order sheet. Each part redraws
+//! map, a task's numbers in detail (beside the mark it was chosen from)
+//! and the order sheet. Each part redraws
 //! only when its own share of the plan changes (a memo per part, keyed rows
 //! in the tables and charts), so an edit touches little of the page; a
 //! stale plan stays visible and says so.
 
+mod detail;
 mod lens_map;
 mod marks;
 mod matrix;
@@ -13,12 +15,12 @@ mod peek;
 mod range_chart;
 
 use crate::plan::text::{amplitude_line, family_name, pupil_line, refraction_line};
-use crate::plan::{Caution, Choice, OptionPlan, OptionRef, Plan, TaskPlan, UnservedTask};
+use crate::plan::{Caution, Choice, OptionPlan, OptionRef, Plan, UnservedTask};
 use crate::web::state::use_app_state;
 use crate::web::walkthrough::WalkthroughLauncher;
+use detail::{provide_task_detail, TaskDetailPopover};
 use lens_map::LensMap;
 use leptos::prelude::*;
-use marks::verdict_mark;
 use matrix::Comparison;
 use range_chart::RangeChart;
 
@@ -84,70 +86,6 @@ fn unserved(unserved: Vec<UnservedTask>) -> impl IntoView {
     })
 }
 
-/// Task `t` as every option serves it: the task's name, then each option's
-/// rank, label and report of the task (best option first).
-type TaskThrough = (String, Vec<(usize, String, TaskPlan)>);
-
-/// What the detail of task `t` shows, taken from `plan`.
-fn task_through(plan: &Plan, t: usize) -> Option<TaskThrough> {
-    let ctx = plan.tasks.iter().find(|c| c.task.index == t)?;
-    let rows = plan
-        .options
-        .iter()
-        .filter_map(|o| {
-            let tp = o.tasks.iter().find(|tp| tp.task.index == t)?;
-            Some((o.rank, o.option.label.clone(), tp.clone()))
-        })
-        .collect();
-    Some((format!("{}. {} in detail", t + 1, ctx.task.name), rows))
-}
-
-/// The numbers of one task through every option.
-fn task_detail((heading, options): TaskThrough) -> impl IntoView {
-    let rows = options
-        .into_iter()
-        .map(|(rank, label, tp)| {
-            let (symbol, class, words) = verdict_mark(tp.verdict);
-            let share = tp
-                .share_of_amplitude
-                .map(|s| format!("{:.0} %", s * 100.0))
-                .unwrap_or_else(|| "n/a".into());
-            view! {
-                <tr>
-                    <th scope="row">{format!("#{rank} {label}")}</th>
-                    <td class=format!("verdict {class}")><span aria-hidden="true">{symbol}</span>" "{words}</td>
-                    <td>{tp.local_power.to_string()}</td>
-                    <td>{format!("{} ({share})", tp.accommodation)}</td>
-                    <td>{format!("{:.1}′, −{:.2} logMAR", tp.blur.blur_disc_arcmin, tp.blur.acuity_loss_logmar)}</td>
-                    <td>{tp.posture.to_string()}</td>
-                    <td>{format!("{:.1} mm, {:.1} Δ", tp.near_vision.near_pd.0, tp.near_vision.convergence.0)}</td>
-                </tr>
-            }
-        })
-        .collect_view();
-    view! {
-        <section class="task-detail" data-testid="task-detail">
-            <h3>{heading}</h3>
-            <div class="table-scroll">
-                <table>
-                    <thead>
-                        <tr>
-                            <th scope="col">"Option"</th>
-                            <th scope="col">"Verdict"</th>
-                            <th scope="col">"Local power"</th>
-                            <th scope="col">"Accommodation (share)"</th>
-                            <th scope="col">"Blur, acuity loss"</th>
-                            <th scope="col">"Head posture"</th>
-                            <th scope="col">"Near PD, convergence"</th>
-                        </tr>
-                    </thead>
-                    <tbody>{rows}</tbody>
-                </table>
-            </div>
-        </section>
-    }
-}
-
 /// The option the charts, the lens map and the order show: the plan's
 /// chosen option (the dispenser's choice, else the recommendation).
 fn shown_option(plan: &Plan) -> Option<&OptionPlan> {
@@ -169,21 +107,6 @@ fn chosen_note(choice: Option<Choice>) -> Option<impl IntoView> {
             </p>
         }
     })
-}
-
-/// Scrolls the task detail into view (to the nearest edge, so a detail
-/// already in view stays put).
-fn bring_detail_into_view() {
-    let Some(section) = web_sys::window().and_then(|w| w.document()).and_then(|d| {
-        d.query_selector("[data-testid=\"task-detail\"]")
-            .ok()
-            .flatten()
-    }) else {
-        return;
-    };
-    let options = web_sys::ScrollIntoViewOptions::new();
-    options.set_block(web_sys::ScrollLogicalPosition::Nearest);
-    section.scroll_into_view_with_scroll_into_view_options(&options);
 }
 
 /// What the panel shows besides the plan's parts.
@@ -224,20 +147,7 @@ pub fn OutcomePanel() -> impl IntoView {
         })
     });
     let error = Memo::new(move |_| state.outcome.with(|o| o.error.clone()));
-    let detail = Memo::new(move |_| {
-        let t = state.chosen_task.get()?;
-        state
-            .outcome
-            .with(|o| o.plan.as_ref().and_then(|p| task_through(p, t)))
-    });
-    // Choosing a task (a row of the comparison, a chart marker, a lens
-    // point) brings its detail into view where the choice was made: the
-    // detail is scrolled to, only when the choice changes, not on edits.
-    Effect::new(move |_| {
-        if state.chosen_task.get().is_some() {
-            request_animation_frame(bring_detail_into_view);
-        }
-    });
+    provide_task_detail();
     let planned = move || {
         view! {
             <Show when=move || stale.get()>
@@ -262,7 +172,7 @@ pub fn OutcomePanel() -> impl IntoView {
                     }, |line| line)}
                 </p>
                 <Comparison />
-                {move || detail.get().map(task_detail)}
+                <TaskDetailPopover />
                 <RangeChart />
             </div>
         }

@@ -3,9 +3,10 @@
 //! (light band) and comfortable (dark band) through the power at the point
 //! where that task is seen, on a dioptric distance axis, and the task's own
 //! distance as a dot on its row; every task is also marked by its number
-//! above. Hovering shows the numbers; choosing a task marker shows them
-//! below the chart. All geometry comes from `chart`.
+//! above. Hovering shows the numbers; choosing a task marker opens the
+//! task's detail beside it. All geometry comes from `chart`.
 
+use super::detail::{use_task_detail, Mark};
 use super::marks::verdict_mark;
 use crate::chart::coord::Coord;
 use crate::chart::range_rows::{
@@ -192,6 +193,7 @@ pub fn RangeChart() -> impl IntoView {
             </g>
         }
     };
+    let detail = use_task_detail();
     let marker = move |m: TaskMark| {
         let index = m.index;
         let name = m.label.clone();
@@ -201,10 +203,14 @@ pub fn RangeChart() -> impl IntoView {
                 tabindex="0"
                 role="button"
                 aria-label=name
-                on:click=move |_| state.chosen_task.set(Some(index))
+                aria-haspopup="dialog"
+                aria-expanded=move || detail.is_open_for(index).to_string()
+                data-mark=Mark::Marker.id(index)
+                on:click=move |_| detail.open(Mark::Marker, index)
                 on:keydown=move |ev| {
                     if ev.key() == "Enter" || ev.key() == " " {
-                        state.chosen_task.set(Some(index));
+                        ev.prevent_default();
+                        detail.open(Mark::Marker, index);
                     }
                 }
             >

@@ -105,7 +105,7 @@ test("a new task starts from the kind chosen, with its figures and their source 
   await context.close();
 });
 
-test("choosing a task on the lens map brings its detail into view", async () => {
+test("choosing a task on the lens map opens its detail beside the point, inside the window", async () => {
   const { context, page, planner } = await freshPlanner(app.browser(), app.url(), { viewport: VIEWPORTS.desktop });
   await planner.open();
   const point = page.locator(".lens-point").last();
@@ -116,9 +116,12 @@ test("choosing a task on the lens map brings its detail into view", async () => 
   await assert.doesNotReject(
     page.waitForFunction(() => {
       const box = document.querySelector('[data-testid="task-detail"]').getBoundingClientRect();
-      return box.top >= 0 && box.top < window.innerHeight;
+      const dot = document.querySelectorAll(".lens-point");
+      const mark = dot[dot.length - 1].getBoundingClientRect();
+      const beside = Math.abs(box.top - mark.bottom) <= 12 || Math.abs(mark.top - box.bottom) <= 12;
+      return beside && box.top >= 0 && box.bottom <= window.innerHeight;
     }),
-    "the detail of the chosen task is on screen",
+    "the detail of the chosen task is on screen, next to the point",
   );
   assert.match(await detail.locator("h3").textContent(), / in detail$/);
   assert.deepEqual(page.problems(), []);

@@ -101,14 +101,16 @@ export async function screenshot(page, name, { fullPage = true } = {}) {
 }
 
 /**
- * Serves dist/ and starts Chromium once for a test file, and stops both
- * after its last test. Returns getters for the browser and the app's address.
+ * Serves dist/ (or the build in the directory CLEARSPAN_DIST names, for a
+ * comparison with an earlier build) and starts Chromium once for a test
+ * file, and stops both after its last test. Returns getters for the browser
+ * and the app's address.
  */
 export function appUnderTest() {
   let server;
   let browser;
   before(async () => {
-    server = await serveDist();
+    server = await serveDist(process.env.CLEARSPAN_DIST ? resolve(process.env.CLEARSPAN_DIST) : DIST);
     browser = await launchBrowser();
   });
   after(async () => {
