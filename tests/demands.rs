@@ -178,18 +178,32 @@ fn a_high_monitor_through_varifocals_is_lowered_by_the_head_tilt_it_forces() {
     let Flag::WorkstationChange { changes, .. } = &t.flag else {
         panic!("expected a workstation change, got {:?}", t.flag);
     };
+    // Among the changes offered (moving it may come first now that the
+    // tilt itself rates the task tiring), one lowers the screen.
     let Some(Change::GazeTo {
         gaze,
         height_change,
-    }) = changes.first().copied()
+    }) = changes
+        .iter()
+        .copied()
+        .find(|c| matches!(c, Change::GazeTo { .. }))
     else {
         panic!("expected a lower screen, got {changes:?}");
     };
     close_for(gaze.0, (-15.0 - t.chin_up.0).round(), 1e-9, "new gaze");
-    let height = |deg: f64| 0.65 * deg.to_radians().sin();
+    // The centre's height is d x sin(gaze), the new one at the distance a
+    // move offered with it leaves the screen at.
+    let moved = changes
+        .iter()
+        .find_map(|c| match c {
+            Change::MoveTo { distance } => Some(distance.0),
+            _ => None,
+        })
+        .unwrap_or(0.65);
+    let height = |deg: f64, d: f64| d * deg.to_radians().sin();
     close_for(
         height_change.0,
-        height(gaze.0) - height(-15.0),
+        height(gaze.0, moved) - height(-15.0, 0.65),
         1e-9,
         "height change",
     );

@@ -90,8 +90,10 @@ fn fast_verdicts_agree_with_the_optics_core() {
                     (false, true) => Verdict::InFocusButTiring,
                     (false, false) => Verdict::Blurred,
                 };
+                // The focus verdict: the verdict itself may be lowered
+                // further by the posture or the prism difference.
                 assert_eq!(
-                    t.verdict, expected,
+                    t.focus, expected,
                     "{} / {}: {t:?}",
                     o.option.label, t.task.name
                 );

@@ -24,7 +24,7 @@ pub use centration::{
     vertical_imbalance, vertical_prism, VerticalImbalance, TYPICAL_LENS_HALF_WIDTH_MM,
 };
 pub use posture::{ComfortRange, Posture, PostureOutcome, HEAD_PITCH_LIMIT_DEG};
-pub use strain::{pitch_strain, turn_strain, Strain};
+pub use strain::{pitch_strain, turn_strain, Strain, CHIN_UP_LIMIT_DEG};
 
 use crate::core::lens::{LensError, LensPoint, NamedBounds, VerticalExtent};
 use crate::core::limits;

@@ -33,8 +33,8 @@ use crate::core::acuity::defocus_for_decimal_acuity;
 use crate::core::clear_range::{Viewer, MAX_AMPLITUDE_D};
 use crate::core::depth_of_field::{self, task_half_depth, DEFAULT_BLUR_TO_DETAIL};
 use crate::core::gaze::{
-    keep_on_lens, subtended_angle, Eye, Fitting, FittingParams, TaskPosition, COR_BEHIND_CORNEA_MM,
-    TYPICAL_LENS_HALF_WIDTH_MM,
+    keep_on_lens, subtended_angle, Eye, Fitting, FittingParams, TaskPosition, CHIN_UP_LIMIT_DEG,
+    COR_BEHIND_CORNEA_MM, TYPICAL_LENS_HALF_WIDTH_MM,
 };
 use crate::core::lens::VerticalExtent;
 use crate::core::prescription::SpheroCylinder;
@@ -54,9 +54,10 @@ pub const NOMINAL_VERTEX_MM: f64 = 12.0;
 /// (the 0.50 D contour is the usual boundary of usable zones of progressive
 /// lenses; common practice).
 pub const TOLERATED_ASTIGMATISM_D: f64 = 0.5;
-/// Largest chin lift the planner offers, in degrees (a product choice: a
-/// sustained lift beyond about 25 degrees strains the neck; common practice).
-pub const MAX_CHIN_UP_DEG: i32 = 25;
+/// Largest chin lift the planner offers, in degrees: the lift beyond which
+/// a held posture is not sustainable ([`CHIN_UP_LIMIT_DEG`]), so that no
+/// plan asks for a posture the grading calls unsustainable.
+pub const MAX_CHIN_UP_DEG: i32 = CHIN_UP_LIMIT_DEG as i32;
 /// Largest chin drop the planner offers, in degrees (a product choice).
 pub const MAX_CHIN_DOWN_DEG: i32 = 20;
 /// Number of head pitches sampled, one per degree from chin down to chin up.

@@ -738,7 +738,9 @@ fn changes_for(s: &Scenario, i: usize, tp: &TaskPlan) -> Vec<Change> {
     }
     let mut out = Vec::new();
     let mut distance = t.distance_m;
-    if tp.verdict != Verdict::Comfortable {
+    // A move only where the distance is what falls short: a task in
+    // comfortable focus that is tiring for its posture or prism stays put.
+    if tp.focus != Verdict::Comfortable {
         if let ZoneRange::Clear { near, far } = tp.range_here.comfortable {
             let far_m = match far {
                 FarLimit::Finite(m) => m.0,

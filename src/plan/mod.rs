@@ -264,6 +264,12 @@ fn unserved(ctx: &Context, options: &[OptionPlan]) -> Vec<UnservedTask> {
                 let d = t.blur.short_of_comfort;
                 let reason = if !t.posture.reachable {
                     UnservedReason::PowerOutOfReach
+                } else if t.focus == Verdict::Comfortable
+                    && t.posture.strain != crate::core::gaze::Strain::Comfortable
+                {
+                    UnservedReason::TiringPosture {
+                        chin_up: t.posture.chin_up,
+                    }
                 } else if t.focus == Verdict::Comfortable && t.prism_over_limit {
                     UnservedReason::VerticalImbalance {
                         difference: t.near_vision.vertical_imbalance,

@@ -3,8 +3,9 @@
 //! (upright when the upright lens point already suits it, else the smallest
 //! chin lift or drop that reaches a zone of the right power), and counts
 //!
-//! `hours x (1 if comfortable, PRISM_LIMITED_WEIGHT if comfortable in focus
-//!  but beyond the vertical prism limit, TIRING_WEIGHT if in focus but tiring, 0 if blurred)
+//! `hours x (1 if comfortable, LIMITED_COMFORT_WEIGHT if comfortable in focus
+//!  but beyond the vertical prism limit or at a tiring head pitch,
+//!  TIRING_WEIGHT if in focus but tiring, 0 if blurred)
 //!  - hours x min(GAP_WEIGHT_PER_D x dioptres of addition missing for comfort, GAP_CAP)
 //!  - hours x (POSTURE_WEIGHT_PER_DEG x |head pitch| + TURN_WEIGHT_PER_DEG x head turn)`.
 //!
@@ -21,16 +22,18 @@
 use super::context::{TaskPrep, TOLERATED_ASTIGMATISM_D};
 use super::outcome::{Score, Verdict};
 use crate::core::astigmatism::{usable_width, ZoneWidth};
+use crate::core::gaze::{pitch_strain, Strain};
 use crate::core::lens::{LensDesign, LensPoint, VerticalExtent};
-use crate::core::units::Dioptres;
 use crate::core::units::Millimetres;
+use crate::core::units::{Degrees, Dioptres};
 
 /// Weight of an hour in focus but tiring, relative to a comfortable hour.
 pub const TIRING_WEIGHT: f64 = 0.5;
-/// Weight of an hour whose focus is comfortable but whose vertical prism
-/// difference exceeds the limit: tiring, yet better than a tiring focus, so
+/// Weight of an hour whose focus is comfortable but that is tiring for
+/// another reason (the vertical prism difference exceeds the limit, or the
+/// head pitch it needs is graded tiring): better than a tiring focus, so
 /// that the planner still chooses the power that focuses the task.
-pub const PRISM_LIMITED_WEIGHT: f64 = 0.75;
+pub const LIMITED_COMFORT_WEIGHT: f64 = 0.75;
 /// Deduction per degree of head pitch, in hours per hour of the task.
 pub const POSTURE_WEIGHT_PER_DEG: f64 = 0.01;
 /// Deduction per degree of head turn, in hours per hour of the task: less
@@ -79,6 +82,9 @@ pub struct TaskChoice {
     pub gap: f64,
     /// Comfortable focus lowered to tiring by the vertical prism difference.
     pub prism_limited: bool,
+    /// Comfortable focus lowered to tiring by the head pitch it needs (a
+    /// chin lift or drop graded tiring for work held for long periods).
+    pub posture_limited: bool,
 }
 
 fn verdict_weight(v: Verdict) -> f64 {
@@ -159,8 +165,10 @@ fn at(design: &LensDesign, prep: &TaskPrep, y: f64, pitch: f64, centre: f64) -> 
     let addition = design.addition_at(LensPoint::new(x, y)).0;
     let focus = prep.focus_verdict(addition);
     let prism_limited = focus == Verdict::Comfortable && prep.prism_over_limit(y - centre);
-    let (verdict, weight) = if prism_limited {
-        (Verdict::InFocusButTiring, PRISM_LIMITED_WEIGHT)
+    let posture_limited =
+        focus == Verdict::Comfortable && pitch_strain(Degrees(pitch)) != Strain::Comfortable;
+    let (verdict, weight) = if prism_limited || posture_limited {
+        (Verdict::InFocusButTiring, LIMITED_COMFORT_WEIGHT)
     } else {
         (focus, verdict_weight(focus))
     };
@@ -183,6 +191,7 @@ fn at(design: &LensDesign, prep: &TaskPrep, y: f64, pitch: f64, centre: f64) -> 
         out_of_reach: false,
         gap,
         prism_limited,
+        posture_limited,
     }
 }
 
@@ -273,7 +282,12 @@ pub fn assess(
                 continue;
             };
             let candidate = at(design, prep, y, pitch, centre);
-            if candidate.verdict == Verdict::Comfortable {
+            // The comfortable power is reached, even where the prism
+            // difference or the pitch then makes the task tiring.
+            if candidate.verdict == Verdict::Comfortable
+                || candidate.prism_limited
+                || candidate.posture_limited
+            {
                 comfort_reached = true;
             }
             if candidate.value > best.value {
@@ -336,7 +350,9 @@ pub fn score(
         s.posture_penalty +=
             prep.hours * (POSTURE_WEIGHT_PER_DEG * c.pitch.abs() + TURN_WEIGHT_PER_DEG * c.turn);
         if c.prism_limited {
-            s.prism_penalty += prep.hours * (1.0 - PRISM_LIMITED_WEIGHT);
+            s.prism_penalty += prep.hours * (1.0 - LIMITED_COMFORT_WEIGHT);
+        } else if c.posture_limited {
+            s.posture_penalty += prep.hours * (1.0 - LIMITED_COMFORT_WEIGHT);
         }
         s.gap_penalty += prep.hours * (GAP_WEIGHT_PER_D * c.gap).min(GAP_CAP);
         s.total += c.value;
@@ -363,6 +379,7 @@ impl Default for TaskChoice {
             out_of_reach: false,
             gap: 0.0,
             prism_limited: false,
+            posture_limited: false,
         }
     }
 }

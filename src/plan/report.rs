@@ -179,7 +179,7 @@ pub fn task_plan(
         accommodation: focus.accommodation,
         share_of_amplitude: focus.share_of_amplitude,
         verdict: choice.verdict,
-        focus: if choice.prism_limited {
+        focus: if choice.prism_limited || choice.posture_limited {
             Verdict::Comfortable
         } else {
             choice.verdict

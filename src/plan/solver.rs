@@ -257,27 +257,39 @@ fn compare(
             verdict_neighbour: t.verdict,
         };
     }
-    if (other.total - base.total).abs() < 1e-9 {
-        ChoiceNote::NeighbourEqual {
+    // Of the deductions the neighbour raises, the one it raises most, in
+    // weighted hours: what makes it score lower with no task's verdict worse.
+    let costs = [
+        (
+            other.posture_penalty - base.posture_penalty,
+            PenaltyKind::HeadPosture,
+        ),
+        (
+            other.addition_penalty - base.addition_penalty,
+            PenaltyKind::ExcessAddition,
+        ),
+        (
+            other.gap_penalty - base.gap_penalty,
+            PenaltyKind::AdditionGap,
+        ),
+        (
+            other.prism_penalty - base.prism_penalty,
+            PenaltyKind::VerticalPrism,
+        ),
+    ];
+    let dearest = costs
+        .into_iter()
+        .filter(|(more, _)| *more > TIE_H)
+        .max_by(|x, y| x.0.total_cmp(&y.0));
+    match dearest {
+        Some((_, cost)) if other.total < base.total - TIE_H => ChoiceNote::NeighbourOnlyCostsMore {
             parameter: a.kind,
             neighbour: neighbour_value,
-        }
-    } else if other.posture_penalty > base.posture_penalty + 1e-9 {
-        ChoiceNote::NeighbourOnlyCostsMore {
+            cost,
+        },
+        _ => ChoiceNote::NeighbourEqual {
             parameter: a.kind,
             neighbour: neighbour_value,
-            cost: PenaltyKind::HeadPosture,
-        }
-    } else if other.addition_penalty > base.addition_penalty + 1e-9 {
-        ChoiceNote::NeighbourOnlyCostsMore {
-            parameter: a.kind,
-            neighbour: neighbour_value,
-            cost: PenaltyKind::ExcessAddition,
-        }
-    } else {
-        ChoiceNote::NeighbourEqual {
-            parameter: a.kind,
-            neighbour: neighbour_value,
-        }
+        },
     }
 }

@@ -69,8 +69,8 @@ impl fmt::Display for NearTie {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         let why = match self.reason {
             TieReason::AboveFitForDriving => "only that one is fit for driving",
-            TieReason::AboveScoresHigher => "it scores slightly higher",
-            TieReason::AboveEnteredFirst => "it was entered first",
+            TieReason::AboveScoresHigher => "that one scores slightly higher",
+            TieReason::AboveEnteredFirst => "that one was entered first",
         };
         let apart = if self.margin_h < 0.005 {
             "less than 0.01 h a day apart".to_string()
@@ -297,6 +297,10 @@ pub enum PenaltyKind {
     HeadPosture,
     /// More addition than the tasks need.
     ExcessAddition,
+    /// Tasks further from the addition each needs for comfort.
+    AdditionGap,
+    /// More vertical prism difference between the eyes where tasks are seen.
+    VerticalPrism,
 }
 
 /// An end of a manufactured range.
@@ -358,8 +362,12 @@ impl fmt::Display for ParameterSource {
 impl fmt::Display for PenaltyKind {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         f.write_str(match self {
-            PenaltyKind::HeadPosture => "more head posture",
-            PenaltyKind::ExcessAddition => "more addition than the tasks need",
+            PenaltyKind::HeadPosture => "asks more of the head and neck",
+            PenaltyKind::ExcessAddition => "adds addition the tasks do not need",
+            PenaltyKind::AdditionGap => {
+                "leaves tasks further from the addition each needs for comfort"
+            }
+            PenaltyKind::VerticalPrism => "adds vertical prism difference between the eyes",
         })
     }
 }
@@ -383,7 +391,7 @@ impl fmt::Display for ChoiceNote {
                 parameter,
                 neighbour,
                 cost,
-            } => write!(f, "{parameter} {neighbour} serves no task better and costs {cost}"),
+            } => write!(f, "{parameter} {neighbour} changes no task's verdict but {cost}"),
             ChoiceNote::NeighbourEqual {
                 parameter,
                 neighbour,

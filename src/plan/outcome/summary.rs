@@ -70,6 +70,12 @@ pub enum UnservedReason {
     /// the range the planner allows.
     PowerOutOfReach,
     /// The power where the task is seen brings it into comfortable focus,
+    /// but only at a head pitch graded tiring for work held long.
+    TiringPosture {
+        /// The head pitch needed, in degrees (chin up positive).
+        chin_up: Degrees,
+    },
+    /// The power where the task is seen brings it into comfortable focus,
     /// but the eyes' unequal vertical powers give more vertical prism
     /// difference there than the plan's limit (Prentice's rule).
     VerticalImbalance {
@@ -204,6 +210,12 @@ impl fmt::Display for UnservedReason {
             ),
             UnservedReason::PowerOutOfReach => f.write_str(
                 "the right power is on the lens only at a head posture beyond what is reasonable",
+            ),
+            UnservedReason::TiringPosture { chin_up } => write!(
+                f,
+                "the right power is on the lens only with the chin {} {:.0}°, a posture that tires the neck over a working day (ISO 11226)",
+                if chin_up.0 >= 0.0 { "up" } else { "down" },
+                chin_up.0.abs()
             ),
             UnservedReason::VerticalImbalance { difference } => write!(
                 f,
