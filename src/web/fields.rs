@@ -94,6 +94,7 @@ pub fn NumberField(
     let message_id = format!("{id}-msg");
     let help_id = format!("{id}-help");
     let help_open = RwSignal::new(false);
+    let has_help = !help.is_empty();
     let described_by = if help.is_empty() {
         message_id.clone()
     } else {
@@ -168,9 +169,15 @@ pub fn NumberField(
                 {(!help.is_empty())
                     .then(|| {
                         view! {
+                            // Out of the Tab order, so that Tab goes from number to
+                            // number: from the keyboard, "?" in the field opens
+                            // the help, and a screen reader reads it with the
+                            // field (it is the input's description).
                             <button
                                 type="button"
                                 class="help-toggle"
+                                tabindex="-1"
+                                title="Help (or press ? in the field)"
                                 aria-label="Help"
                                 aria-controls=help_id.clone()
                                 aria-expanded=move || help_open.get().to_string()
@@ -193,6 +200,13 @@ pub fn NumberField(
                     aria-invalid=move || if message().is_some() { "true" } else { "false" }
                     aria-describedby=described_by
                     on:input=on_text
+                    on:keydown=move |ev: web_sys::KeyboardEvent| {
+                        if has_help && ev.key() == "?" {
+                            ev.prevent_default();
+                            help_open.update(|open| *open = !*open);
+                        }
+                    }
+                    aria-keyshortcuts=has_help.then_some("?")
                 />
                 <span class="unit">{unit}</span>
             </span>

@@ -22,7 +22,7 @@ test("every form control has a label", async () => {
   await context.close();
 });
 
-test("every number field has help, opened by keyboard or finger and read as its description", async () => {
+test("every number field has help, opened by ? in the field or by finger and read as its description", async () => {
   const { context, page, planner } = await freshPlanner(app.browser(), app.url());
   await planner.open();
   await planner.byTestId("range-chart").waitFor();
@@ -40,18 +40,29 @@ test("every number field has help, opened by keyboard or finger and read as its 
   const toggle = field.getByRole("button", { name: "Help", exact: true });
   const help = field.locator("small.help");
   assert.equal(await help.isVisible(), false, "help starts closed, so the form stays short");
-  await toggle.focus();
-  await page.keyboard.press("Enter");
+  // From the keyboard, "?" in the field opens its help; Tab goes on to the
+  // next number, not to the help button.
+  const input = page.getByTestId("tasks-0--distance_m");
+  const before = await input.inputValue();
+  await input.focus();
+  await page.keyboard.press("?");
   await help.waitFor({ state: "visible" });
   assert.equal(await toggle.getAttribute("aria-expanded"), "true");
+  assert.equal(await input.inputValue(), before, "the ? is not typed into the number");
+  await page.keyboard.press("Tab");
+  assert.equal(
+    await page.evaluate(() => document.activeElement?.matches("input, select")),
+    true,
+    "Tab skips the help button",
+  );
   assert.match(await help.textContent(), /line of sight.*tape.*common practice/s);
   const detail = page.locator(".field", { has: page.getByTestId("tasks-0--detail_mm") });
   await detail.getByRole("button", { name: "Help", exact: true }).click();
   await detail.locator("small.help").waitFor({ state: "visible" });
   await field.scrollIntoViewIfNeeded();
   await screenshot(page, "field-help", { fullPage: false });
-  await toggle.focus();
-  await page.keyboard.press("Enter");
+  await input.focus();
+  await page.keyboard.press("?");
   await help.waitFor({ state: "hidden" });
   assert.deepEqual(page.problems(), []);
   await context.close();
