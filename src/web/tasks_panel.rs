@@ -22,6 +22,52 @@ fn task_at_mut(row: Row, s: &mut Scenario) -> Option<&mut Task> {
     row.at.get_untracked().and_then(|i| s.tasks.get_mut(i))
 }
 
+/// One flag of a task: its label, the word the summary uses, and where it is.
+type TaskFlag = (&'static str, &'static str, fn(&mut TaskFlags) -> &mut bool);
+
+/// The flags that say what kind of task it is.
+const KIND_FLAGS: [TaskFlag; 4] = [
+    ("Driving (road, mirrors, dashboard)", "driving", |f| {
+        &mut f.driving
+    }),
+    ("Moving machinery", "moving machinery", |f| {
+        &mut f.moving_machinery
+    }),
+    ("Overhead", "overhead", |f| &mut f.overhead),
+    (
+        "Screen text (detail is the character height)",
+        "screen text",
+        |f| &mut f.screen,
+    ),
+];
+
+/// The eye hazards of a task.
+const HAZARD_FLAGS: [TaskFlag; 4] = [
+    ("Impact", "impact", |f| &mut f.hazards.impact),
+    ("Splash or aerosol", "splash or aerosol", |f| {
+        &mut f.hazards.splash_or_aerosol
+    }),
+    ("Dust", "dust", |f| &mut f.hazards.dust),
+    ("Optical radiation", "optical radiation", |f| {
+        &mut f.hazards.optical_radiation
+    }),
+];
+
+/// The flags set on `flags`, in words ("screen text, impact"), or "none".
+fn flags_in_words(mut flags: TaskFlags) -> String {
+    let set: Vec<&str> = KIND_FLAGS
+        .iter()
+        .chain(&HAZARD_FLAGS)
+        .filter(|(_, _, flag)| *flag(&mut flags))
+        .map(|(_, word, _)| *word)
+        .collect();
+    if set.is_empty() {
+        "none".to_string()
+    } else {
+        set.join(", ")
+    }
+}
+
 /// A check box bound to one flag of the task of `row`.
 fn flag_field(
     row: Row,
@@ -98,6 +144,8 @@ fn task_card(id: u64) -> impl IntoView {
         })
     });
     let name_path = row.path("tasks", "name");
+    let flags_set = task_part(row, |t| flags_in_words(t.flags));
+    let flags_set = move || flags_set.get().unwrap_or_default();
     let name_problem = state.problem_at(name_path, Problem::to_string);
     let name_test_id = Signal::derive(move || {
         at.get()
@@ -136,19 +184,18 @@ fn task_card(id: u64) -> impl IntoView {
                     .map(|f| row_field(f, row))
                     .collect_view()}
             </div>
-            <div class="flags">
-                {flag_field(row, "Driving (road, mirrors, dashboard)", |f| &mut f.driving)}
-                {flag_field(row, "Moving machinery", |f| &mut f.moving_machinery)}
-                {flag_field(row, "Overhead", |f| &mut f.overhead)}
-                {flag_field(row, "Screen text (detail is the character height)", |f| &mut f.screen)}
-            </div>
-            <fieldset class="flags">
-                <legend>"Eye hazards"</legend>
-                {flag_field(row, "Impact", |f| &mut f.hazards.impact)}
-                {flag_field(row, "Splash or aerosol", |f| &mut f.hazards.splash_or_aerosol)}
-                {flag_field(row, "Dust", |f| &mut f.hazards.dust)}
-                {flag_field(row, "Optical radiation", |f| &mut f.hazards.optical_radiation)}
-            </fieldset>
+            // The flags fold away so that a task takes a few lines; the
+            // summary names every flag set, so none is hidden unseen.
+            <details class="task-flags">
+                <summary>"Flags and eye hazards: " {flags_set}</summary>
+                <div class="flags">
+                    {KIND_FLAGS.map(|(label, _, flag)| flag_field(row, label, flag)).collect_view()}
+                </div>
+                <fieldset class="flags">
+                    <legend>"Eye hazards"</legend>
+                    {HAZARD_FLAGS.map(|(label, _, flag)| flag_field(row, label, flag)).collect_view()}
+                </fieldset>
+            </details>
         </li>
     }
 }

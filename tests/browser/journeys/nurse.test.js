@@ -154,6 +154,7 @@ test("a screen task out of reach gets a computed screen change; the sheet prints
   // The main monitor becomes screen text and comes to 45 cm: 2.2 D needed
   // against the 1.56 D usable share, so the sheet should move it back.
   const first = planner.byTestId("task-card").first();
+  await first.locator("summary", { hasText: "Flags and eye hazards" }).click();
   await first.getByLabel("Screen text (detail is the character height)", { exact: true }).check();
   await planner.setNumber("tasks-0--distance_m", "45");
   await vision.open();
