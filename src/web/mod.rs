@@ -14,6 +14,7 @@ mod shelf;
 mod shelf_panel;
 mod state;
 mod storage;
+mod table;
 mod tasks_panel;
 mod walkthrough;
 mod wearer_panel;

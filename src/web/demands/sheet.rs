@@ -11,6 +11,7 @@ use crate::plan::ergonomics::DISPLAY_SCREEN_RULE;
 use crate::plan::roster::advice;
 use crate::plan::text::amplitude_line;
 use crate::web::state::use_app_state;
+use crate::web::table::column_heads;
 use leptos::prelude::*;
 
 /// The class that marks a flag on screen and on paper (never by colour
@@ -74,15 +75,7 @@ fn sheet_view(sheet: &DemandSheet, unit: LengthUnit, date: String) -> impl IntoV
             </p>
             <div class="table-scroll">
                 <table class="wv-table">
-                    <thead>
-                        <tr>
-                            <th scope="col">"Task, distance, hours"</th>
-                            <th scope="col">"Focusing (ocular)"</th>
-                            <th scope="col">"Gaze, posture, convergence"</th>
-                            <th scope="col">"Detail size"</th>
-                            <th scope="col">"Flag, reasons, what would help"</th>
-                        </tr>
-                    </thead>
+                    {column_heads(&["Task, distance, hours", "Focusing (ocular)", "Gaze, posture, convergence", "Detail size", "Flag, reasons, what would help"])}
                     <tbody>{rows}</tbody>
                 </table>
             </div>

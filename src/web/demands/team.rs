@@ -10,6 +10,7 @@ use crate::plan::demands::Flag;
 use crate::plan::roster::{advice, read_roster, screen_team, TeamResult, COLUMNS};
 use crate::web::files::{download_text, picked_file, read_text_or_advise};
 use crate::web::state::{use_app_state, AppState};
+use crate::web::table::column_heads;
 use leptos::prelude::*;
 
 /// The largest roster file read, in bytes (a product limit: 20,000 rows of
@@ -104,13 +105,7 @@ fn result_view(team: &TeamResult, export: Callback<()>) -> impl IntoView {
         <div class="table-scroll">
             <table class="wv-table" data-testid="team-table">
                 <caption>"Who needs what at this workstation"</caption>
-                <thead>
-                    <tr>
-                        <th scope="col">"Worker (pseudonymous id)"</th>
-                        <th scope="col">"Most serious flag"</th>
-                        <th scope="col">"Tasks not fine as they are"</th>
-                    </tr>
-                </thead>
+                {column_heads(&["Worker (pseudonymous id)", "Most serious flag", "Tasks not fine as they are"])}
                 <tbody>{rows}</tbody>
             </table>
         </div>

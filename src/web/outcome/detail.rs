@@ -12,6 +12,7 @@ use super::marks::verdict_mark;
 use crate::plan::{Plan, TaskPlan};
 use crate::web::dialog::focus_element;
 use crate::web::state::{use_app_state, AppState};
+use crate::web::table::column_heads;
 use leptos::html;
 use leptos::prelude::*;
 use wasm_bindgen::JsCast;
@@ -90,6 +91,17 @@ fn mark_element(id: &str) -> Option<Element> {
 }
 
 impl TaskDetail {
+    /// A key handler for a chart mark drawn as a button: Enter or Space
+    /// opens the detail of the task at input index `t` beside it.
+    pub fn on_key(self, mark: Mark, t: usize) -> impl Fn(web_sys::KeyboardEvent) + 'static {
+        move |ev| {
+            if ev.key() == "Enter" || ev.key() == " " {
+                ev.prevent_default();
+                self.open(mark, t);
+            }
+        }
+    }
+
     /// Opens the detail of the task at input index `t` beside its `mark`
     /// and moves focus into it once it is drawn.
     pub fn open(self, mark: Mark, t: usize) {
@@ -283,17 +295,7 @@ fn task_table(options: Vec<(usize, String, TaskPlan)>) -> impl IntoView {
     view! {
         <div class="table-scroll">
             <table>
-                <thead>
-                    <tr>
-                        <th scope="col">"Option"</th>
-                        <th scope="col">"Verdict"</th>
-                        <th scope="col">"Local power"</th>
-                        <th scope="col">"Accommodation (share)"</th>
-                        <th scope="col">"Blur, acuity loss"</th>
-                        <th scope="col">"Head posture"</th>
-                        <th scope="col">"Near PD, convergence"</th>
-                    </tr>
-                </thead>
+                {column_heads(&["Option", "Verdict", "Local power", "Accommodation (share)", "Blur, acuity loss", "Head posture", "Near PD, convergence"])}
                 <tbody>{rows}</tbody>
             </table>
         </div>

@@ -164,12 +164,7 @@ fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
                 aria-expanded=move || detail.is_open_for(index).to_string()
                 data-mark=Mark::Point.id(index)
                 on:click=move |_| detail.open(Mark::Point, index)
-                on:keydown=move |ev| {
-                    if ev.key() == "Enter" || ev.key() == " " {
-                        ev.prevent_default();
-                        detail.open(Mark::Point, index);
-                    }
-                }
+                on:keydown=detail.on_key(Mark::Point, index)
             >
                 <title>{p.tooltip}</title>
                 <circle class="hit" cx=p.x.get() cy=p.y.get() r=HIT />

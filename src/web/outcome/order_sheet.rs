@@ -7,6 +7,7 @@
 use crate::plan::text::{family_name, order_lines};
 use crate::plan::Plan;
 use crate::web::state::use_app_state;
+use crate::web::table::column_heads;
 use leptos::prelude::*;
 
 /// The order sheet for `plan`.
@@ -83,13 +84,7 @@ pub fn order_sheet(plan: &Plan) -> impl IntoView {
             {order}
             <h4>"Tasks planned for"</h4>
             <table class="sheet-tasks">
-                <thead>
-                    <tr>
-                        <th scope="col">"Task: distance, gaze, time"</th>
-                        <th scope="col">"Zone"</th>
-                        <th scope="col">"Verdict"</th>
-                    </tr>
-                </thead>
+                {column_heads(&["Task: distance, gaze, time", "Zone", "Verdict"])}
                 <tbody>{tasks}</tbody>
             </table>
             <p class="signature">"Checked and confirmed by a licensed eye-care practitioner: name, signature, date ______________________________"</p>

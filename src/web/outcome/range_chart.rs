@@ -207,12 +207,7 @@ pub fn RangeChart() -> impl IntoView {
                 aria-expanded=move || detail.is_open_for(index).to_string()
                 data-mark=Mark::Marker.id(index)
                 on:click=move |_| detail.open(Mark::Marker, index)
-                on:keydown=move |ev| {
-                    if ev.key() == "Enter" || ev.key() == " " {
-                        ev.prevent_default();
-                        detail.open(Mark::Marker, index);
-                    }
-                }
+                on:keydown=detail.on_key(Mark::Marker, index)
             >
                 <title>{m.label}</title>
                 <rect class="hit" x=m.x.plus(-HIT / 2.0) y=m.y.plus(-HIT / 2.0 - 6.0) width=HIT height=HIT />

@@ -44,3 +44,22 @@ export async function openTwentyTaskDay(browser, url) {
 
 /** The root of the checkout. */
 export { ROOT };
+
+/**
+ * Types `count` distance edits into the day's tasks in `page` (task i*7 mod
+ * 20, 40 to 69 cm), each waiting two animation frames: the edits the
+ * profile and the trace record.
+ */
+export async function editDistances(page, count) {
+  for (let i = 0; i < count; i += 1) {
+    await page.evaluate(
+      async ({ index, cm }) => {
+        const input = document.querySelector(`[data-testid="tasks-${index}--distance_m"]`);
+        input.value = String(cm);
+        input.dispatchEvent(new Event("input", { bubbles: true }));
+        await new Promise((done) => requestAnimationFrame(() => requestAnimationFrame(done)));
+      },
+      { index: (i * 7) % TASKS, cm: 40 + (i % 30) },
+    );
+  }
+}

@@ -4,7 +4,7 @@
 // A measurement, not a test. Run with `npm run profile` after a release
 // build; wasm functions show their names when the build keeps them.
 import { serveDist, launchBrowser } from "../support/harness.js";
-import { openTwentyTaskDay, TASKS } from "./day.js";
+import { editDistances, openTwentyTaskDay } from "./day.js";
 
 const EDITS = 40;
 
@@ -16,17 +16,7 @@ try {
   await cdp.send("Profiler.enable");
   await cdp.send("Profiler.setSamplingInterval", { interval: 100 });
   await cdp.send("Profiler.start");
-  for (let i = 0; i < EDITS; i += 1) {
-    await page.evaluate(
-      async ({ index, cm }) => {
-        const input = document.querySelector(`[data-testid="tasks-${index}--distance_m"]`);
-        input.value = String(cm);
-        input.dispatchEvent(new Event("input", { bubbles: true }));
-        await new Promise((done) => requestAnimationFrame(() => requestAnimationFrame(done)));
-      },
-      { index: (i * 7) % TASKS, cm: 40 + (i % 30) },
-    );
-  }
+  await editDistances(page, EDITS);
   const { profile } = await cdp.send("Profiler.stop");
   const byId = new Map(profile.nodes.map((n) => [n.id, n]));
   const self = new Map();

@@ -4,7 +4,7 @@
 // top-level events. A measurement, not a test. Run with `npm run trace`
 // after a release build.
 import { serveDist, launchBrowser } from "../support/harness.js";
-import { openTwentyTaskDay, TASKS } from "./day.js";
+import { editDistances, openTwentyTaskDay, TASKS } from "./day.js";
 
 const EDITS = 30;
 
@@ -26,17 +26,7 @@ try {
   cdp.on("Tracing.dataCollected", ({ value }) => events.push(...value));
   const done = new Promise((resolve) => cdp.once("Tracing.tracingComplete", resolve));
   await cdp.send("Tracing.start", { categories: "devtools.timeline,disabled-by-default-devtools.timeline", transferMode: "ReportEvents" });
-  for (let i = 0; i < EDITS; i += 1) {
-    await page.evaluate(
-      async ({ index, cm }) => {
-        const input = document.querySelector(`[data-testid="tasks-${index}--distance_m"]`);
-        input.value = String(cm);
-        input.dispatchEvent(new Event("input", { bubbles: true }));
-        await new Promise((resolve) => requestAnimationFrame(() => requestAnimationFrame(resolve)));
-      },
-      { index: (i * 7) % TASKS, cm: 40 + (i % 30) },
-    );
-  }
+  await editDistances(page, EDITS);
   await cdp.send("Tracing.end");
   await done;
   const main = events.find((e) => e.name === "thread_name" && e.args?.name === "CrRendererMain");

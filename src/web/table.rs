@@ -1,0 +1,15 @@
+//! Pieces of the data tables the views draw (the task detail, the
+//! task-demand sheet, the team table, the plan sheet's tasks): one header
+//! row of column heads.
+
+use leptos::prelude::*;
+
+/// A table's head: one row of column headers, each scoped to its column
+/// for screen readers.
+pub fn column_heads(names: &'static [&'static str]) -> impl IntoView {
+    view! {
+        <thead>
+            <tr>{names.iter().map(|name| view! { <th scope="col">{*name}</th> }).collect_view()}</tr>
+        </thead>
+    }
+}
