@@ -191,6 +191,11 @@ pub fn ShelfPanel() -> impl IntoView {
         shelf.in_turn(move |s, now| s.set_note(&v, now), |()| {});
     });
 
+    let wide_at_start = window()
+        .match_media("(min-width: 1201px)")
+        .ok()
+        .flatten()
+        .is_none_or(|m| m.matches());
     view! {
         <aside class="panel shelf" aria-labelledby="shelf-heading" data-testid="shelf">
             <h2 id="shelf-heading">"Scenario shelf"</h2>
@@ -199,65 +204,6 @@ pub fn ShelfPanel() -> impl IntoView {
             </p>
             <TextField label="Scenario name" value=name on_input=on_name problem=name_problem test_id="scenario-name" />
             <TextField label="Note" value=note on_input=on_note problem=no_problem test_id="scenario-note" />
-            <div class="actions">
-                <button type="button" on:click=new_scenario data-testid="new-scenario">"New"</button>
-                <button type="button" on:click=duplicate>"Duplicate"</button>
-                <button type="button" on:click=delete data-testid="delete-scenario">"Delete"</button>
-                <button type="button" on:click=export_current>"Export this"</button>
-                <button type="button" on:click=move |_| export_all(shelf)>"Export all"</button>
-                <label class="button" for="import-file">"Import…"</label>
-                <input
-                    id="import-file"
-                    class="visually-hidden"
-                    type="file"
-                    accept=".json,application/json"
-                    data-testid="import-file"
-                    on:change=import
-                />
-            </div>
-            <div class="field">
-                <label for="shelf-filter">"Find"</label>
-                <input
-                    id="shelf-filter"
-                    type="search"
-                    placeholder="name, note or task"
-                    prop:value=move || filter.get()
-                    on:input=move |ev| filter.set(event_target_value(&ev))
-                />
-            </div>
-            <ul class="shelf-list" data-testid="shelf-list">
-                <For each=summaries key=|s| (s.id.clone(), s.name.clone(), s.changed_ms, s.unsaved, s.draft) let:summary>
-                    {
-                        let id = summary.id.clone();
-                        let is_current = {
-                            let id = id.clone();
-                            move || current().as_ref() == Some(&id)
-                        };
-                        view! {
-                            <li>
-                                <button
-                                    type="button"
-                                    class="shelf-item"
-                                    aria-current=move || if is_current() { "true" } else { "false" }
-                                    on:click=move |_| open_entry(state, &id)
-                                >
-                                    <span class="shelf-name">{summary.name.clone()}</span>
-                                    <span class="shelf-meta">
-                                        {format!(
-                                            "{} task{} · {}{}{}",
-                                            summary.task_count,
-                                            if summary.task_count == 1 { "" } else { "s" },
-                                            when(summary.changed_ms),
-                                            if summary.draft { " · draft" } else { "" },
-                                            if summary.unsaved { " · not stored" } else { "" },
-                                        )}
-                                    </span>
-                                </button>
-                            </li>
-                        }
-                    }
-                </For>
-            </ul>
             <Show when=move || !set_aside().is_empty()>
                 <h3>"Set aside"</h3>
                 <p class="hint">"Stored items that could not be opened. Their text is kept unchanged."</p>
@@ -283,20 +229,84 @@ pub fn ShelfPanel() -> impl IntoView {
                     </For>
                 </ul>
             </Show>
-            <div class="erase">
-                <Show
-                    when=move || confirming_erase.get()
-                    fallback=move || view! {
-                        <button type="button" class="danger" on:click=move |_| confirming_erase.set(true)>
-                            "Erase all local data…"
-                        </button>
-                    }
-                >
-                    <p role="alert">"This deletes every scenario and setting of clearspan on this device. Export first to keep a copy."</p>
-                    <button type="button" class="danger" data-testid="confirm-erase" on:click=erase>"Erase everything"</button>
-                    <button type="button" on:click=move |_| confirming_erase.set(false)>"Cancel"</button>
-                </Show>
-            </div>
+            // Out of the way on a tablet until wanted (open beside the form on
+            // wide screens): the scenarios kept here and what to do with them.
+            <details class="shelf-more" open=wide_at_start data-testid="shelf-more">
+                <summary>{move || format!("Scenarios on this device ({})", shelf.list.with(Vec::len))}</summary>
+                <div class="actions">
+                    <button type="button" on:click=new_scenario data-testid="new-scenario">"New"</button>
+                    <button type="button" on:click=duplicate>"Duplicate"</button>
+                    <button type="button" on:click=delete data-testid="delete-scenario">"Delete"</button>
+                    <button type="button" on:click=export_current>"Export this"</button>
+                    <button type="button" on:click=move |_| export_all(shelf)>"Export all"</button>
+                    <label class="button" for="import-file">"Import…"</label>
+                    <input
+                        id="import-file"
+                        class="visually-hidden"
+                        type="file"
+                        accept=".json,application/json"
+                        data-testid="import-file"
+                        on:change=import
+                    />
+                </div>
+                <div class="field">
+                    <label for="shelf-filter">"Find"</label>
+                    <input
+                        id="shelf-filter"
+                        type="search"
+                        placeholder="name, note or task"
+                        prop:value=move || filter.get()
+                        on:input=move |ev| filter.set(event_target_value(&ev))
+                    />
+                </div>
+                <ul class="shelf-list" data-testid="shelf-list">
+                    <For each=summaries key=|s| (s.id.clone(), s.name.clone(), s.changed_ms, s.unsaved, s.draft) let:summary>
+                        {
+                            let id = summary.id.clone();
+                            let is_current = {
+                                let id = id.clone();
+                                move || current().as_ref() == Some(&id)
+                            };
+                            view! {
+                                <li>
+                                    <button
+                                        type="button"
+                                        class="shelf-item"
+                                        aria-current=move || if is_current() { "true" } else { "false" }
+                                        on:click=move |_| open_entry(state, &id)
+                                    >
+                                        <span class="shelf-name">{summary.name.clone()}</span>
+                                        <span class="shelf-meta">
+                                            {format!(
+                                                "{} task{} · {}{}{}",
+                                                summary.task_count,
+                                                if summary.task_count == 1 { "" } else { "s" },
+                                                when(summary.changed_ms),
+                                                if summary.draft { " · draft" } else { "" },
+                                                if summary.unsaved { " · not stored" } else { "" },
+                                            )}
+                                        </span>
+                                    </button>
+                                </li>
+                            }
+                        }
+                    </For>
+                </ul>
+                <div class="erase">
+                    <Show
+                        when=move || confirming_erase.get()
+                        fallback=move || view! {
+                            <button type="button" class="danger" on:click=move |_| confirming_erase.set(true)>
+                                "Erase all local data…"
+                            </button>
+                        }
+                    >
+                        <p role="alert">"This deletes every scenario and setting of clearspan on this device. Export first to keep a copy."</p>
+                        <button type="button" class="danger" data-testid="confirm-erase" on:click=erase>"Erase everything"</button>
+                        <button type="button" on:click=move |_| confirming_erase.set(false)>"Cancel"</button>
+                    </Show>
+                </div>
+            </details>
         </aside>
     }
 }

@@ -17,6 +17,7 @@ const app = appUnderTest();
 async function newScenario(options) {
   const session = await freshPlanner(app.browser(), app.url(), options);
   await session.planner.open();
+  await session.planner.showShelf();
   await session.planner.byTestId("new-scenario").click();
   await session.page.waitForFunction(
     () => document.querySelector('[data-testid="scenario-title"]')?.textContent.trim() === "Untitled scenario",
@@ -55,6 +56,27 @@ test("a new scenario with an age and a monitor distance gets a plan", async () =
 
   assert.deepEqual(page.problems(), []);
   await context.close();
+});
+
+test("the shelf's scenarios stay folded on tablets until wanted and open beside the form on a desktop", async () => {
+  for (const [viewport, open] of [[VIEWPORTS.tabletPortrait, false], [VIEWPORTS.tabletLandscape, false], [VIEWPORTS.desktop, true]]) {
+    const { context, page, planner } = await freshPlanner(app.browser(), app.url(), { viewport });
+    await planner.open();
+    await planner.byTestId("recommendation").waitFor();
+    const more = planner.byTestId("shelf-more");
+    assert.equal((await more.getAttribute("open")) !== null, open, `${viewport.width} px`);
+    assert.match(await more.locator("summary").textContent(), /^Scenarios on this device \(\d+\)$/);
+    if (!open) {
+      // The wearer's first field starts within the first screen.
+      const top = await page.getByTestId("wearer-age_years").evaluate((e) => e.getBoundingClientRect().top);
+      assert.ok(top < viewport.height, `the form starts on the first screen (${top} px)`);
+      await planner.showShelf();
+      assert.ok(await planner.byTestId("shelf-list").isVisible());
+      assert.ok((await planner.shelfNames()).length > 0);
+    }
+    assert.deepEqual(page.problems(), []);
+    await context.close();
+  }
 });
 
 test("on a tablet in portrait the plan at a glance follows an edit and leads to the plan and back", async () => {

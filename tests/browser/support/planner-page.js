@@ -192,8 +192,15 @@ export class PlannerPage {
     return out;
   }
 
+  /** Unfolds the shelf's scenarios and actions (folded at first on tablets). */
+  async showShelf() {
+    const more = this.byTestId("shelf-more");
+    if ((await more.getAttribute("open")) === null) await more.locator("summary").click();
+  }
+
   /** Opens the shelf entry whose name is exactly `name`. */
   async openFromShelf(name) {
+    await this.showShelf();
     await this.byTestId("shelf-list")
       .locator(".shelf-item")
       .filter({ has: this.page.locator(".shelf-name", { hasText: name }) })
