@@ -205,8 +205,11 @@ fn every_zone_verdict_and_posture_maps_to_a_plain_sentence() {
                 t.focus = focus;
                 t.blur.beyond_tolerance = Dioptres(beyond);
                 t.blur.direction = direction;
-                for hours in [0.25, 1.0, 6.0] {
-                    sentences.push(how_it_looks(&t, hours));
+                for prism in [false, true] {
+                    t.prism_over_limit = prism;
+                    for hours in [0.25, 1.0, 6.0] {
+                        sentences.push(how_it_looks(&t, hours));
+                    }
                 }
             }
         }
@@ -239,6 +242,26 @@ fn every_zone_verdict_and_posture_maps_to_a_plain_sentence() {
     // Each grade of sharpness has its own wording.
     let distinct: std::collections::BTreeSet<&String> = sentences.iter().collect();
     assert!(distinct.len() > 20);
+}
+
+#[test]
+fn a_task_tiring_only_for_its_cause_is_told_that_cause() {
+    // Focus alone comfortable, the task tiring: for the prism difference
+    // the words speak of the two lenses, for the head position of the neck,
+    // never the one for the other.
+    let mut t = sample_task();
+    t.focus = Verdict::Comfortable;
+    t.verdict = Verdict::InFocusButTiring;
+    t.prism_over_limit = true;
+    let prism = how_it_looks(&t, 2.0);
+    assert!(prism.contains("two lenses differ"), "{prism}");
+    t.prism_over_limit = false;
+    t.posture.chin_up = Degrees(9.0);
+    t.posture.strain = Strain::Tiring;
+    let posture = how_it_looks(&t, 2.0);
+    assert!(posture.contains("neck"), "{posture}");
+    assert!(!posture.contains("lenses differ"), "{posture}");
+    check_plain(&posture);
 }
 
 // Every task of every demo day gets a picture of its kind; the driving

@@ -330,9 +330,18 @@ pub fn how_it_looks(task: &TaskPlan, hours_per_day: f64) -> String {
         Sharpness::Sharp if task.focus == task.verdict => {
             format!("It will be sharp, and easy to keep up for {hours} a day.")
         }
-        // Focus alone is comfortable; the two lenses' difference tires the eyes.
+        // Focus alone is comfortable; the two lenses' difference tires the
+        // eyes, or the head position it needs (said in the next sentence)
+        // tires the neck.
+        Sharpness::SharpWithEffort
+            if task.focus == Verdict::Comfortable && task.prism_over_limit =>
+        {
+            format!(
+                "It will be sharp, but the two lenses differ here enough to tire the eyes over {hours} a day."
+            )
+        }
         Sharpness::SharpWithEffort if task.focus == Verdict::Comfortable => format!(
-            "It will be sharp, but the two lenses differ here enough to tire the eyes over {hours} a day."
+            "It will be sharp, but only with your head held as below, which tires the neck over {hours} a day."
         ),
         Sharpness::Sharp | Sharpness::SharpWithEffort => format!(
             "It will be sharp, but only by focusing harder than is comfortable for long: expect tired eyes over {hours} a day."
