@@ -214,7 +214,7 @@ pub fn Comparison() -> impl IntoView {
         view! {
             <tr>
                 <th scope="row">{f.label}</th>
-                {f.cells.into_iter().map(|c| view! { <td class="detail">{c}</td> }).collect_view()}
+                {f.cells.into_iter().map(|c| view! { <td>{c}</td> }).collect_view()}
             </tr>
         }
     };

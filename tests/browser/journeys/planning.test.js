@@ -400,6 +400,13 @@ for (const [name, file] of LAYOUTS) {
       innerWidth: window.innerWidth,
     }));
     assert.ok(scrollWidth <= innerWidth + 1, `document is ${scrollWidth} px wide in a ${innerWidth} px window`);
+    // The comparison's score rows put one cell under each option, side by side.
+    const stacked = await page.evaluate(() =>
+      [...document.querySelectorAll('[data-testid="comparison"] tr')]
+        .filter((tr) => new Set([...tr.cells].map((c) => Math.round(c.getBoundingClientRect().top))).size > 1)
+        .map((tr) => tr.cells[0]?.textContent.trim()),
+    );
+    assert.deepEqual(stacked, [], "comparison rows whose cells are not side by side");
     assert.deepEqual(page.problems(), []);
     await context.close();
   });
