@@ -30,8 +30,12 @@ pub fn App() -> impl IntoView {
         let visible = document().visibility_state() == web_sys::VisibilityState::Visible;
         if visible {
             catch_up(ev);
+        } else {
+            shelf.write_now();
         }
     });
+    // Leaving: staged edits are written now rather than after the delay.
+    let _hiding = window_event_listener_untyped("pagehide", move |_| shelf.write_now());
     // Leaving while a change is in this tab only would lose it: ask first.
     let _leaving = window_event_listener(leptos::ev::beforeunload, move |ev| {
         if shelf.read(|s| s.has_unsaved()).unwrap_or(false) {

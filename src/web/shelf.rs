@@ -16,6 +16,13 @@ pub fn now_ms() -> u64 {
     js_sys::Date::now().max(0.0) as u64
 }
 
+/// How long the write of an edit waits for the edits that follow it, in
+/// milliseconds: a number typed is written once, not once a keystroke,
+/// and the keystroke does not wait for storage. The edit is in memory at
+/// once (the indicator says "Saving…"); hiding or leaving the tab writes
+/// it without waiting.
+const WRITE_DELAY_MS: u64 = 250;
+
 /// The session with local storage.
 pub type BrowserSession = Session<BrowserStore>;
 
@@ -35,6 +42,8 @@ pub struct Shelf {
     pub conflict: RwSignal<Option<Conflict>>,
     /// Stored values that could not be opened.
     pub set_aside: RwSignal<Vec<SetAside>>,
+    /// Whether a delayed write of staged edits is already scheduled.
+    write_scheduled: StoredValue<bool>,
 }
 
 /// The opened shelf, the scenario to show first and the unit to show it in.
@@ -74,6 +83,7 @@ impl Shelf {
             notices: RwSignal::new(Vec::new()),
             conflict: RwSignal::new(None),
             set_aside: RwSignal::new(Vec::new()),
+            write_scheduled: StoredValue::new(false),
         };
         shelf.refresh();
         Opening {
@@ -111,10 +121,26 @@ impl Shelf {
     }
 
     /// Stores the edited scenario: memory takes it at once (the indicator
-    /// says "Saving…"), storage when this tab's turn to write comes.
+    /// says "Saving…"), storage [`WRITE_DELAY_MS`] later in this tab's turn
+    /// to write, with every edit made meanwhile.
     pub fn autosave(&self, scenario: &Scenario) {
         let now = now_ms();
         self.run(|s| s.stage(scenario, now));
+        if self.write_scheduled.get_value() {
+            return;
+        }
+        self.write_scheduled.set_value(true);
+        let shelf = *self;
+        set_timeout(
+            move || shelf.write_now(),
+            std::time::Duration::from_millis(WRITE_DELAY_MS),
+        );
+    }
+
+    /// Writes every staged edit in this tab's turn, without waiting (the
+    /// tab is being hidden or left, or the delay is over).
+    pub fn write_now(&self) {
+        self.write_scheduled.set_value(false);
         self.in_turn(|s, _| s.write_waiting(), |()| {});
     }
 

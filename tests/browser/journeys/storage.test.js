@@ -23,6 +23,32 @@ const ROOT = resolve(import.meta.dirname, "../../..");
 
 const app = appUnderTest();
 
+test("a number typed key by key is written to storage once, after the typing, and kept across a reload", async () => {
+  const { context, page, planner } = await freshPlanner(app.browser(), app.url());
+  await planner.open();
+  await planner.byTestId("recommendation").waitFor();
+  await page.evaluate((prefix) => {
+    window.__scenarioWrites = 0;
+    const setItem = Storage.prototype.setItem;
+    Storage.prototype.setItem = function (key, value) {
+      if (key.startsWith(prefix)) window.__scenarioWrites += 1;
+      return setItem.call(this, key, value);
+    };
+  }, SCENARIO_PREFIX);
+  const age = planner.byTestId(AGE);
+  await age.fill("");
+  await age.pressSequentially("5861", { delay: 20 });
+  await planner.waitForSaveState("Saved on this device");
+  const writes = await page.evaluate(() => window.__scenarioWrites);
+  assert.ok(writes >= 1 && writes <= 2, `${writes} writes of the scenario for five edits`);
+  await planner.setNumber(AGE, "58");
+  await planner.waitForSaveState("Saved on this device");
+  await planner.reload();
+  assert.equal(await planner.valueOf(AGE), "58");
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
 test("a reload keeps the edited value and the open scenario", async () => {
   const { context, page, planner } = await freshPlanner(app.browser(), app.url());
   await planner.open();
