@@ -22,7 +22,9 @@ pub struct Row {
     /// position, following the row as rows before it come and go (`None`
     /// once it is gone); an eye; 0 for the wearer's block.
     pub at: Signal<Option<usize>>,
-    /// Changes whenever the row's content does.
+    /// Changes whenever the row's content does. It reads its memo (`with`),
+    /// not only tracks it: a memo merely tracked is never brought up to
+    /// date, and the row's fields then kept showing the old value.
     changed: Signal<()>,
 }
 
