@@ -8,6 +8,7 @@ pub mod chart;
 pub mod core;
 pub mod display;
 pub mod library;
+pub mod markup;
 pub mod plan;
 pub mod scenario;
 #[cfg(feature = "web")]

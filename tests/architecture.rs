@@ -88,18 +88,19 @@ fn every_source_file_opens_with_a_module_paragraph() {
 
 /// Each layer of the library and the crate modules it may import besides
 /// itself. The web layer and the binaries sit on top and may use them all.
-const LAYERS: [(&str, &[&str]); 6] = [
+const LAYERS: [(&str, &[&str]); 7] = [
     ("core", &[]),
     ("scenario", &["core"]),
     ("plan", &["core", "scenario", "display"]),
     ("display", &["core", "scenario"]),
     ("library", &["core", "scenario", "display"]),
     ("chart", &["core", "scenario", "plan", "display"]),
+    ("markup", &["core", "scenario", "plan", "display", "chart"]),
 ];
 
 /// Every crate module a layer could name.
-const MODULES: [&str; 7] = [
-    "core", "scenario", "plan", "library", "display", "chart", "web",
+const MODULES: [&str; 8] = [
+    "core", "scenario", "plan", "library", "display", "chart", "markup", "web",
 ];
 
 /// Outside crates the core may use: the standard library, serde and nalgebra.

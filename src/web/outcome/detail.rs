@@ -8,11 +8,10 @@
 //! task is gone (removed, or another scenario opened). It is a screen aid
 //! only: the printed plan sheet has its own table of the tasks.
 
-use super::marks::verdict_mark;
-use crate::plan::{Plan, TaskPlan};
+use crate::markup::marks::Mark;
+use crate::markup::task_detail::task_detail;
 use crate::web::dialog::focus_element;
 use crate::web::state::{use_app_state, AppState};
-use crate::web::table::column_heads;
 use leptos::html;
 use leptos::prelude::*;
 use wasm_bindgen::JsCast;
@@ -26,30 +25,6 @@ const GAP: f64 = 8.0;
 /// short (its heading and two rows), in CSS pixels; it is then scrolled
 /// into view instead.
 const MIN_HEIGHT: f64 = 160.0;
-
-/// The kinds of mark a task's detail is opened from.
-#[derive(Clone, Copy, PartialEq, Eq, Debug)]
-pub enum Mark {
-    /// The task's row heading in the comparison table.
-    Row,
-    /// The task's numbered marker above the range chart.
-    Marker,
-    /// The task's point on the lens map.
-    Point,
-}
-
-impl Mark {
-    /// The `data-mark` attribute of this kind of mark for the task at input
-    /// index `t`, by which the detail finds the mark to sit beside.
-    pub fn id(self, t: usize) -> String {
-        let kind = match self {
-            Mark::Row => "row",
-            Mark::Marker => "marker",
-            Mark::Point => "point",
-        };
-        format!("{kind}-{t}")
-    }
-}
 
 /// Which task's detail is open and beside which mark: the task's input
 /// index is the app state's `chosen_task`; its row id tells whether the
@@ -91,17 +66,6 @@ fn mark_element(id: &str) -> Option<Element> {
 }
 
 impl TaskDetail {
-    /// A key handler for a chart mark drawn as a button: Enter or Space
-    /// opens the detail of the task at input index `t` beside it.
-    pub fn on_key(self, mark: Mark, t: usize) -> impl Fn(web_sys::KeyboardEvent) + 'static {
-        move |ev| {
-            if ev.key() == "Enter" || ev.key() == " " {
-                ev.prevent_default();
-                self.open(mark, t);
-            }
-        }
-    }
-
     /// Opens the detail of the task at input index `t` beside its `mark`
     /// and moves focus into it once it is drawn.
     pub fn open(self, mark: Mark, t: usize) {
@@ -129,9 +93,13 @@ impl TaskDetail {
         let task = self.state.chosen_task.get_untracked();
         self.opened.set(None);
         self.state.chosen_task.set(None);
-        if let Some(anchor) = mark.zip(task).and_then(|(m, t)| mark_element(&m.id(t))) {
-            focus_element(&anchor);
-        }
+        // The marks are written again without the detail open: focus goes
+        // to the mark on the page once they are.
+        request_animation_frame(move || {
+            if let Some(anchor) = mark.zip(task).and_then(|(m, t)| mark_element(&m.id(t))) {
+                focus_element(&anchor);
+            }
+        });
     }
 
     /// The mark and the task's input index of the open detail, while the
@@ -145,10 +113,10 @@ impl TaskDetail {
             .then_some((opened.mark, t))
     }
 
-    /// Whether the detail of the task at input index `t` is open (for the
-    /// marks' `aria-expanded`).
-    pub fn is_open_for(self, t: usize) -> bool {
-        self.open_at().is_some_and(|(_, at)| at == t)
+    /// The input index of the task whose detail is open, if any
+    /// (reactive; for the marks' `aria-expanded`).
+    pub fn open_task(self) -> Option<usize> {
+        self.open_at().map(|(_, t)| t)
     }
 }
 
@@ -251,57 +219,6 @@ fn place(popover: &HtmlElement, anchor: &Element) {
     let _ = style.set_property("max-height", &px(height.max(MIN_HEIGHT)));
 }
 
-/// Task `t` as every option serves it: the task's name, then each option's
-/// rank, label and report of the task (best option first).
-type TaskThrough = (String, Vec<(usize, String, TaskPlan)>);
-
-/// What the detail of task `t` shows, taken from `plan`.
-fn task_through(plan: &Plan, t: usize) -> Option<TaskThrough> {
-    let ctx = plan.tasks.iter().find(|c| c.task.index == t)?;
-    let rows = plan
-        .options
-        .iter()
-        .filter_map(|o| {
-            let tp = o.tasks.iter().find(|tp| tp.task.index == t)?;
-            Some((o.rank, o.option.label.clone(), tp.clone()))
-        })
-        .collect();
-    Some((format!("{}. {} in detail", t + 1, ctx.task.name), rows))
-}
-
-/// The table of one task's numbers through every option.
-fn task_table(options: Vec<(usize, String, TaskPlan)>) -> impl IntoView {
-    let rows = options
-        .into_iter()
-        .map(|(rank, label, tp)| {
-            let (symbol, class, words) = verdict_mark(tp.verdict);
-            let share = tp
-                .share_of_amplitude
-                .map(|s| format!("{:.0} %", s * 100.0))
-                .unwrap_or_else(|| "n/a".into());
-            view! {
-                <tr>
-                    <th scope="row">{format!("#{rank} {label}")}</th>
-                    <td class=format!("verdict {class}")><span aria-hidden="true">{symbol}</span>" "{words}</td>
-                    <td>{tp.local_power.to_string()}</td>
-                    <td>{format!("{} ({share})", tp.accommodation)}</td>
-                    <td>{format!("{:.1}′, −{:.2} logMAR", tp.blur.blur_disc_arcmin, tp.blur.acuity_loss_logmar)}</td>
-                    <td>{tp.posture.to_string()}</td>
-                    <td>{format!("{:.1} mm, {:.1} Δ", tp.near_vision.near_pd.0, tp.near_vision.convergence.0)}</td>
-                </tr>
-            }
-        })
-        .collect_view();
-    view! {
-        <div class="table-scroll">
-            <table>
-                {column_heads(&["Option", "Verdict", "Local power", "Accommodation (share)", "Blur, acuity loss", "Head posture", "Near PD, convergence"])}
-                <tbody>{rows}</tbody>
-            </table>
-        </div>
-    }
-}
-
 /// The detail of the chosen task, beside the mark it was chosen from.
 #[component]
 pub fn TaskDetailPopover() -> impl IntoView {
@@ -309,14 +226,14 @@ pub fn TaskDetailPopover() -> impl IntoView {
     let state = detail.state;
     let shown = Memo::new(move |_| {
         let (mark, t) = detail.open_at()?;
-        let through = state
+        let (heading, table) = state
             .outcome
-            .with(|o| o.plan.as_ref().and_then(|p| task_through(p, t)))?;
-        Some((mark.id(t), through))
+            .with(|o| o.plan.as_ref().and_then(|p| task_detail(p, t)))?;
+        Some((mark.id(t), heading, table))
     });
     let node = NodeRef::<html::Div>::new();
     let replace = move || {
-        if let Some((id, _)) = shown.get_untracked() {
+        if let Some((id, _, _)) = shown.get_untracked() {
             if let Some((popover, anchor)) = node.get_untracked().zip(mark_element(&id)) {
                 place(&popover, &anchor);
             }
@@ -338,7 +255,7 @@ pub fn TaskDetailPopover() -> impl IntoView {
         }
     };
     move || {
-        shown.get().map(|(_, (heading, options))| {
+        shown.get().map(|(_, heading, table)| {
             view! {
                 <div
                     node_ref=node
@@ -361,7 +278,7 @@ pub fn TaskDetailPopover() -> impl IntoView {
                             "Close"
                         </button>
                     </div>
-                    {task_table(options)}
+                    <div class="part" inner_html=table></div>
                 </div>
             }
         })

@@ -1,17 +1,17 @@
 //! The lens map: the chosen option's local addition over the lens, drawn
 //! from the family's own map, with the usable-zone edges, the fitting point
-//! and each task's crossing point labelled with the power found there;
-//! choosing a point opens its task's detail beside it.
+//! and each task's crossing point labelled with the power found there.
 //! The shaded lens depends only on the design and the frame, so it is
 //! painted once on a canvas when they change; the outline, zone edges,
-//! cross and task points are a small SVG over it, and only the points
-//! follow every edit (keyed, so only the points that moved are redrawn).
+//! cross are a small SVG over it, and only the task points (written by
+//! `markup::lens_points`) follow every edit.
 
-use super::detail::{use_task_detail, Mark};
-use crate::chart::coord::Coord;
-use crate::chart::lens_map::{label_places, LensFrame, ShadeRun};
+use super::detail::use_task_detail;
+use super::written::written_marks;
+use crate::chart::lens_map::{LensFrame, ShadeRun};
 use crate::core::lens::LensDesign;
 use crate::core::units::{Dioptres, Millimetres};
+use crate::markup::lens_points::lens_points;
 use crate::plan::{context::TOLERATED_ASTIGMATISM_D, OptionPlan};
 use crate::scenario::FamilyChoice;
 use crate::web::state::use_app_state;
@@ -28,11 +28,6 @@ const STEP_MM: f64 = 1.0;
 /// What the shaded lens depends on: the design, the fitting height, the lens
 /// height and the lens to centre-of-rotation distance the plan used, in millimetres.
 type Geometry = (FamilyChoice, f64, f64, f64);
-
-/// Radius of the circle that takes a tap or a click on a task point, in SVG
-/// units: 44 px across or more where the map is drawn at its full width
-/// (touch-target size, WCAG 2.5.5).
-const HIT: f64 = 20.0;
 
 /// Canvas pixels per SVG unit: twice the drawing's size, sharp on
 /// high-density screens and in print.
@@ -70,18 +65,6 @@ fn paint(canvas: &HtmlCanvasElement, runs: &[ShadeRun], clip: &str) {
     }
 }
 
-/// A task's point on the lens as drawn.
-#[derive(Clone, PartialEq, Eq, Hash)]
-struct PointMark {
-    index: usize,
-    x: Coord,
-    y: Coord,
-    label_x: Coord,
-    label_y: Coord,
-    label: String,
-    tooltip: String,
-}
-
 /// The shaded lens, zone edges and fitting cross for `geometry`, with the
 /// task points of `chosen` drawn over them.
 fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
@@ -112,67 +95,14 @@ fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
         Millimetres(lens_to_cor),
     );
     let (fx, fy) = (frame.x(0.0), frame.y(0.0));
-    let points = move || {
+    let points = Memo::new(move |_| {
+        let open = detail.open_task();
         chosen.with(|o| {
-            let tasks: Vec<_> = o.iter().flat_map(|o| o.tasks.iter()).collect();
-            let labels: Vec<String> = tasks
-                .iter()
-                .map(|t| format!("{} {}", t.task.index + 1, t.local_power.addition))
-                .collect();
-            let dots: Vec<(f64, f64, usize)> = tasks
-                .iter()
-                .zip(&labels)
-                .map(|(t, l)| {
-                    let (x, y) = (frame.x(t.lens_point.x.0), frame.y(t.lens_point.y.0));
-                    (x, y, l.chars().count())
-                })
-                .collect();
-            let places = label_places(&dots, (fx, fy));
-            tasks
-                .iter()
-                .zip(dots.iter().zip(places))
-                .zip(labels)
-                .map(|((t, (&(x, y, _), (lx, ly))), label)| PointMark {
-                    index: t.task.index,
-                    x: Coord::of(x),
-                    y: Coord::of(y),
-                    label_x: Coord::of(lx),
-                    label_y: Coord::of(ly),
-                    label,
-                    tooltip: format!(
-                        "{}. {}: {} zone, addition {}, {}",
-                        t.task.index + 1,
-                        t.task.name,
-                        t.zone,
-                        t.local_power.addition,
-                        t.verdict
-                    ),
-                })
-                .collect::<Vec<_>>()
+            o.as_ref()
+                .map(|o| lens_points(&frame, o, open))
+                .unwrap_or_default()
         })
-    };
-    let point = move |p: PointMark| {
-        let index = p.index;
-        let name = p.tooltip.clone();
-        view! {
-            <g
-                class="lens-point"
-                tabindex="0"
-                role="button"
-                aria-label=name
-                aria-haspopup="dialog"
-                aria-expanded=move || detail.is_open_for(index).to_string()
-                data-mark=Mark::Point.id(index)
-                on:click=move |_| detail.open(Mark::Point, index)
-                on:keydown=detail.on_key(Mark::Point, index)
-            >
-                <title>{p.tooltip}</title>
-                <circle class="hit" cx=p.x.get() cy=p.y.get() r=HIT />
-                <circle class="dot" cx=p.x.get() cy=p.y.get() r="5" />
-                <text x=p.label_x.get() y=p.label_y.get()>{p.label}</text>
-            </g>
-        }
-    };
+    });
     let outline = frame.outline();
     let label = move || {
         chosen.with(|o| {
@@ -198,7 +128,7 @@ fn drawing(geometry: Geometry, chosen: Memo<Option<OptionPlan>>) -> AnyView {
                 <path class="lens-outline" d=outline />
                 <path class="zone-edge" d=edges />
                 <path class="fitting-cross" d=format!("M{:.1} {fy:.1}h16M{fx:.1} {:.1}v16", fx - 8.0, fy - 8.0) />
-                <For each=points key=PointMark::clone children=point />
+                {written_marks(move || points.get())}
             </svg>
         </div>
         <figcaption id="lens-map-caption">

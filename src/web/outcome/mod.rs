@@ -1,90 +1,31 @@
 //! The outcome panel: the recommended option with its reasons, the cautions,
 //! tasks no option serves, the comparison table, the range chart, the lens
 //! map, a task's numbers in detail (beside the mark it was chosen from)
-//! and the order sheet. Each part redraws
-//! only when its own share of the plan changes (a memo per part, keyed rows
-//! in the tables and charts), so an edit touches little of the page; a
+//! and the order sheet. The read-only parts are written as HTML text
+//! (`crate::markup`) from memos over the plan, so a part whose text did not
+//! change is not touched and a changed part is replaced in one step; a
 //! stale plan stays visible and says so.
 
 mod detail;
 mod lens_map;
-mod marks;
-mod matrix;
 mod order_sheet;
 mod peek;
-mod range_chart;
+mod written;
 
-use crate::plan::text::{amplitude_line, family_name, pupil_line, refraction_line};
-use crate::plan::{Caution, Choice, OptionPlan, OptionRef, Plan, UnservedTask};
+use crate::markup::comparison::{comparison, CAPTION};
+use crate::markup::range_chart::range_chart;
+use crate::markup::summary::{cautions, chosen_note, recommendation, unserved};
+use crate::plan::text::{amplitude_line, pupil_line, refraction_line};
+use crate::plan::{OptionPlan, Plan};
 use crate::web::state::use_app_state;
 use crate::web::walkthrough::WalkthroughLauncher;
 use detail::{provide_task_detail, TaskDetailPopover};
 use lens_map::LensMap;
 use leptos::prelude::*;
-use matrix::Comparison;
-use range_chart::RangeChart;
+use order_sheet::OrderSheet;
+use written::{on_choose, on_choose_key, written_marks, written_rows};
 
 pub use peek::PlanPeek;
-
-/// The recommended (best-ranked) option with its parameters and reasons.
-fn recommendation(best: &OptionPlan) -> impl IntoView {
-    let parameters = best
-        .parameters
-        .iter()
-        .map(|p| view! { <li>{format!("{} {} ({})", p.kind, p.value, p.source)}</li> })
-        .collect_view();
-    view! {
-        <div class="recommendation" data-testid="recommendation">
-            <h3>{format!("Recommended: {} · {}", best.option.label, family_name(&best.design))}</h3>
-            <ul class="parameters">{parameters}</ul>
-            <p>{best.describe_choice()}</p>
-            {best.prescribed_addition.map(|c| view! { <p class="detail">{format!("Prescribed: {c}.")}</p> })}
-            <p class="detail">
-                {format!(
-                    "Comfortable {:.1} h, in focus but tiring {:.1} h, blurred {:.1} h of the working day.",
-                    best.score.comfortable_hours,
-                    best.score.tiring_hours,
-                    best.score.blurred_hours
-                )}
-            </p>
-        </div>
-    }
-}
-
-/// The cautions drawn from the scenario, planning-aid note included.
-/// Cautions that concern only options other than `shown` are marked, so
-/// the printed sheet carries only those of the option it orders.
-fn cautions((cautions, shown): (Vec<Caution>, Option<OptionRef>)) -> impl IntoView {
-    let items = cautions
-        .into_iter()
-        .map(|c| {
-            let other = !c.options.is_empty() && shown.as_ref().is_some_and(|s| !c.options.contains(s));
-            view! { <li class:other-option=other><strong>{c.kind.to_string()}</strong>": "{c.text}</li> }
-        })
-        .collect_view();
-    view! {
-        <section class="cautions" aria-labelledby="cautions-heading" data-testid="cautions">
-            <h3 id="cautions-heading">"Cautions"</h3>
-            <ul>{items}</ul>
-        </section>
-    }
-}
-
-/// Tasks that no option makes comfortable.
-fn unserved(unserved: Vec<UnservedTask>) -> impl IntoView {
-    (!unserved.is_empty()).then(|| {
-        let items = unserved
-            .iter()
-            .map(|u| view! { <li>{u.describe()}</li> })
-            .collect_view();
-        view! {
-            <section class="unserved" data-testid="unserved">
-                <h3>"Tasks no option makes comfortable"</h3>
-                <ul>{items}</ul>
-            </section>
-        }
-    })
-}
 
 /// The option the charts, the lens map and the order show: the plan's
 /// chosen option (the dispenser's choice, else the recommendation).
@@ -95,19 +36,14 @@ fn shown_option(plan: &Plan) -> Option<&OptionPlan> {
         .or_else(|| plan.options.first())
 }
 
-/// The dispenser's choice when it differs from the recommendation, and why
-/// the planner ranks another option first.
-fn chosen_note(choice: Option<Choice>) -> Option<impl IntoView> {
-    let choice = choice?;
-    choice.by_dispenser.then(|| {
-        view! {
-            <p class="chosen-note" data-testid="chosen-note">
-                <strong>{format!("Chosen: {}", choice.chosen.label)}</strong>
-                {format!(" — {choice}.")}
-            </p>
-        }
-    })
-}
+/// The plan's opening parts, each written apart: the cautions, the
+/// recommendation, the dispenser's choice and the tasks no option serves.
+const OPENING: [fn(&Plan) -> String; 4] = [
+    |p| cautions(&p.cautions, shown_option(p).map(|o| &o.option)),
+    |p| p.options.first().map(recommendation).unwrap_or_default(),
+    |p| chosen_note(p.choice.as_ref()),
+    |p| unserved(&p.unserved),
+];
 
 /// What the panel shows besides the plan's parts.
 #[derive(Clone, Copy, PartialEq)]
@@ -118,18 +54,6 @@ enum Stage {
     NoTasks,
     /// A plan is on screen.
     Planned,
-}
-
-/// A part of the panel drawn from its own share of the plan: `share` takes
-/// it out of the plan on every edit, and `draw` runs only when it changed.
-fn part<T, V>(share: fn(&Plan) -> T, draw: fn(T) -> V) -> impl IntoView
-where
-    T: PartialEq + Clone + Send + Sync + 'static,
-    V: IntoView + 'static,
-{
-    let state = use_app_state();
-    let shown = Memo::new(move |_| state.outcome.with(|o| o.plan.as_ref().map(share)));
-    move || shown.get().map(draw)
 }
 
 /// The outcome panel.
@@ -147,7 +71,48 @@ pub fn OutcomePanel() -> impl IntoView {
         })
     });
     let error = Memo::new(move |_| state.outcome.with(|o| o.error.clone()));
-    provide_task_detail();
+    let detail = provide_task_detail();
+    let open = move || detail.open_task();
+    let opening = OPENING.map(|write| {
+        Memo::new(move |_| {
+            state
+                .outcome
+                .with(|o| o.plan.as_ref().map(write).unwrap_or_default())
+        })
+    });
+    let line = Memo::new(move |_| {
+        state.outcome.with(|o| {
+            o.plan.as_ref().map(|p| {
+                format!(
+                    "{} · {} · {}",
+                    amplitude_line(&p.amplitude),
+                    refraction_line(&p.refraction),
+                    pupil_line(&p.pupil)
+                )
+            })
+        })
+    });
+    let table = Memo::new(move |_| {
+        let (chosen, open) = (state.chosen_option(), open());
+        state.outcome.with(|o| {
+            o.plan
+                .as_ref()
+                .map(|p| comparison(p, chosen, open))
+                .unwrap_or_default()
+        })
+    });
+    let table_head = Memo::new(move |_| table.with(|t| t.head.clone()));
+    let chart = Memo::new(move |_| {
+        let (unit, open) = (state.unit.get(), open());
+        state.outcome.with(|o| {
+            o.plan
+                .as_ref()
+                .and_then(|p| Some(range_chart(p, shown_option(p)?, unit, open)))
+                .unwrap_or_default()
+        })
+    });
+    let view_box = Memo::new(move |_| chart.with(|c| c.view_box.clone()));
+    let caption = Memo::new(move |_| chart.with(|c| c.caption.clone()));
     let planned = move || {
         view! {
             <Show when=move || stale.get()>
@@ -157,23 +122,34 @@ pub fn OutcomePanel() -> impl IntoView {
                 </p>
             </Show>
             <div class="plan" class:is-stale=move || stale.get() data-testid="plan">
-                {part(|p| (p.cautions.clone(), shown_option(p).map(|o| o.option.clone())), cautions)}
-                {part(|p| p.options.first().cloned(), |best| best.map(|b| recommendation(&b)))}
-                {part(|p| p.choice.clone(), chosen_note)}
-                {part(|p| p.unserved.clone(), unserved)}
-                <p class="detail">
-                    {part(|p| {
-                        format!(
-                            "{} · {} · {}",
-                            amplitude_line(&p.amplitude),
-                            refraction_line(&p.refraction),
-                            pupil_line(&p.pupil)
-                        )
-                    }, |line| line)}
-                </p>
-                <Comparison />
+                {opening.map(|text| view! { <div class="part" inner_html=move || text.get()></div> })}
+                <p class="detail">{move || line.get()}</p>
+                <h3 class="comparison-heading">"Comparison"</h3>
+                <div class="table-scroll comparison-block">
+                    <table class="comparison" data-testid="comparison">
+                        <caption>{CAPTION}</caption>
+                        <thead>
+                            <tr inner_html=move || table_head.get()></tr>
+                        </thead>
+                        <tbody>{written_rows(move || table.with(|t| t.tasks.clone()))}</tbody>
+                        <tfoot>{written_rows(move || table.with(|t| t.foot.clone()))}</tfoot>
+                    </table>
+                </div>
                 <TaskDetailPopover />
-                <RangeChart />
+                <h3 class="range-heading">"Range of clear vision"</h3>
+                <figure class="range-chart">
+                    <svg
+                        viewBox=move || view_box.get()
+                        role="img"
+                        aria-labelledby="range-chart-caption"
+                        data-testid="range-chart"
+                    >
+                        {written_marks(move || chart.with(|c| c.ticks.clone()))}
+                        {written_marks(move || chart.with(|c| c.rows.clone()))}
+                        {written_marks(move || chart.with(|c| c.markers.clone()))}
+                    </svg>
+                    <figcaption id="range-chart-caption" inner_html=move || caption.get()></figcaption>
+                </figure>
             </div>
         }
     };
@@ -192,18 +168,19 @@ pub fn OutcomePanel() -> impl IntoView {
         .into_any(),
         Stage::Planned => planned().into_any(),
     };
-    let sheet = move || {
-        state
-            .outcome
-            .with(|o| o.plan.as_ref().map(order_sheet::order_sheet))
-    };
     view! {
-        <section class="panel outcome" aria-labelledby="outcome-heading" data-testid="outcome">
+        <section
+            class="panel outcome"
+            aria-labelledby="outcome-heading"
+            data-testid="outcome"
+            on:click=on_choose(state, detail)
+            on:keydown=on_choose_key(state, detail)
+        >
             <h2 id="outcome-heading">"Plan"</h2>
             <WalkthroughLauncher />
             {body}
             <LensMap />
-            {sheet}
+            <OrderSheet />
         </section>
     }
 }

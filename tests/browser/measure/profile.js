@@ -3,12 +3,13 @@
 // an edit, summed by function (self time) and printed as the top entries.
 // A measurement, not a test. Run with `npm run profile` after a release
 // build; wasm functions show their names when the build keeps them.
+import { resolve } from "node:path";
 import { serveDist, launchBrowser } from "../support/harness.js";
 import { editDistances, openTwentyTaskDay } from "./day.js";
 
 const EDITS = 40;
 
-const server = await serveDist();
+const server = await serveDist(process.env.CLEARSPAN_DIST ? resolve(process.env.CLEARSPAN_DIST) : undefined);
 const browser = await launchBrowser();
 try {
   const { context, page } = await openTwentyTaskDay(browser, server.url);

@@ -15,11 +15,13 @@
 // 3. First plan on screen: from navigation start to the range chart in the
 //    DOM, in a fresh context (cold cache), median of several loads.
 import { readFile } from "node:fs/promises";
-import { join } from "node:path";
+import { join, resolve } from "node:path";
 import { serveDist, launchBrowser } from "../support/harness.js";
 import { VIEWPORTS } from "../support/planner-page.js";
 import { openTwentyTaskDay, ROOT, TASKS } from "./day.js";
 
+/** The build measured: dist/, or the directory CLEARSPAN_DIST names (an earlier build, for a before-and-after). */
+const DIST = process.env.CLEARSPAN_DIST ? resolve(process.env.CLEARSPAN_DIST) : join(ROOT, "dist");
 const WARM_UP = 3;
 const SAMPLES = 30;
 
@@ -71,7 +73,7 @@ function summary(values) {
 async function downloadBytes() {
   const { readdir } = await import("node:fs/promises");
   const { gzipSync } = await import("node:zlib");
-  const dist = join(ROOT, "dist");
+  const dist = DIST;
   let total = 0;
   const parts = [];
   for (const name of await readdir(dist)) {
@@ -94,7 +96,7 @@ async function firstPlan(browser, url) {
   return ms;
 }
 
-const server = await serveDist();
+const server = await serveDist(DIST);
 const browser = await launchBrowser();
 let failed = false;
 try {

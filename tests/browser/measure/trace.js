@@ -3,6 +3,7 @@
 // (script, style, layout, paint and the rest), summed from the trace's
 // top-level events. A measurement, not a test. Run with `npm run trace`
 // after a release build.
+import { resolve } from "node:path";
 import { serveDist, launchBrowser } from "../support/harness.js";
 import { editDistances, openTwentyTaskDay, TASKS } from "./day.js";
 
@@ -17,7 +18,7 @@ function phase(name) {
   return null;
 }
 
-const server = await serveDist();
+const server = await serveDist(process.env.CLEARSPAN_DIST ? resolve(process.env.CLEARSPAN_DIST) : undefined);
 const browser = await launchBrowser();
 try {
   const { context, page } = await openTwentyTaskDay(browser, server.url);
