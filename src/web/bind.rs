@@ -7,49 +7,58 @@ use super::fields::NumberField;
 use super::state::use_app_state;
 use crate::display::{describe_problem, shown_symbol, to_shown, to_stored};
 use crate::scenario::fields::{Field, Unit};
-use crate::scenario::Scenario;
+use crate::scenario::{Problem, RowIds, Scenario};
 use leptos::prelude::*;
 
 /// One row of the form: the wearer's block, a task or a lens option.
 ///
 /// A row's views re-read the scenario only when the row's own content
-/// changes: an edit re-runs one memo per row, and then only the views of
-/// the row it changed, instead of every view of the form (the framework's
-/// cost of re-running a reader grows with the number of readers).
+/// or its problems change (`web::row_watch`): an edit reaches only the
+/// views of the row it changed, instead of every view of the form (the
+/// framework's cost of marking and re-running readers grows with their
+/// number).
 #[derive(Clone, Copy)]
 pub struct Row {
     /// Where the row stands in its list now: a task's or an option's
     /// position, following the row as rows before it come and go (`None`
     /// once it is gone); an eye; 0 for the wearer's block.
     pub at: Signal<Option<usize>>,
-    /// Changes whenever the row's content does. It reads its memo (`with`),
-    /// not only tracks it: a memo merely tracked is never brought up to
-    /// date, and the row's fields then kept showing the old value.
+    /// Changes whenever the row's content or its problems do
+    /// (`RowWatch`).
     changed: Signal<()>,
 }
 
 impl Row {
-    /// The row of a list at `at`, whose content `content` copies out of the
-    /// scenario (a task, an option).
-    pub fn listed<T: Clone + PartialEq + Send + Sync + 'static>(
-        at: Memo<Option<usize>>,
-        content: fn(&Scenario, usize) -> Option<T>,
-    ) -> Row {
-        let copy = use_app_state().part(move |s| at.get().and_then(|i| content(s, i)));
+    /// The row with id `id` of a list (a task, an option), now at `at`.
+    pub fn listed(id: u64, at: Memo<Option<usize>>) -> Row {
+        let signal = use_app_state().row_watch.signal(id);
         Row {
             at: at.into(),
-            changed: Signal::derive(move || copy.with(|_| ())),
+            changed: Signal::derive(move || signal.track()),
         }
     }
 
     /// A row of the wearer's block that never moves: an eye (0 right,
     /// 1 left), or 0 for a field of the wearer or the plan settings.
     pub fn wearer(index: usize) -> Row {
-        let block = use_app_state().wearer_block;
+        let state = use_app_state();
+        let signal = state
+            .row_watch
+            .signal(state.rows.with_untracked(RowIds::wearer));
         Row {
             at: Signal::stored(Some(index)),
-            changed: Signal::derive(move || block.with(|_| ())),
+            changed: Signal::derive(move || signal.track()),
         }
+    }
+
+    /// The validation problem of the field at `path` in this row, in the
+    /// words `words` gives it, re-read only when the row changes.
+    pub fn problem(
+        self,
+        path: Signal<String>,
+        words: impl Fn(&Problem) -> String + Send + Sync + 'static,
+    ) -> Memo<Option<String>> {
+        use_app_state().problem_in(self.changed, path, words)
     }
 
     /// The path of `field` in this row of `list` (`tasks[1].name`), as the
@@ -102,7 +111,7 @@ pub fn row_field(field: &'static Field, row: Row) -> impl IntoView {
     let path: Signal<String> =
         Memo::new(move |_| at.get().map(|i| field.path(i)).unwrap_or_default()).into();
     let test_id = Signal::derive(move || path.with(|p| p.replace(['[', ']', '.'], "-")));
-    let problem = state.problem_at(path, move |p| {
+    let problem = row.problem(path, move |p| {
         describe_problem(p, field.label, unit, length.get())
     });
     let unit_text = Signal::derive(move || shown_symbol(unit, length.get()).to_string());

@@ -10,6 +10,7 @@ mod files;
 mod locks;
 mod options_panel;
 mod outcome;
+mod row_watch;
 mod shelf;
 mod shelf_panel;
 mod state;

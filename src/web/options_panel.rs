@@ -41,7 +41,7 @@ fn option_at_mut(row: Row, s: &mut Scenario) -> Option<&mut LensOption> {
 fn option_card(id: u64) -> impl IntoView {
     let state = use_app_state();
     let at = Memo::new(move |_| state.rows.with(|rows| rows.option_index(id)));
-    let row = Row::listed(at, |s, i| s.options.get(i).cloned());
+    let row = Row::listed(id, at);
     let family = row.part(|s, i| s.options.get(i).map(|o| family_key(&o.family)));
     let key = Memo::new(move |_| family.get().unwrap_or("single_vision"));
     let label = row.part(|s, i| s.options.get(i).map(|o| o.label.clone()));
@@ -54,7 +54,7 @@ fn option_card(id: u64) -> impl IntoView {
         })
     });
     let label_path = row.path("options", "label");
-    let label_problem = state.problem_at(label_path, Problem::to_string);
+    let label_problem = row.problem(label_path, Problem::to_string);
     let on_family = Callback::new(move |v: String| {
         state.edit(|s| {
             if let Some(o) = option_at_mut(row, s) {

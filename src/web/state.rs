@@ -2,6 +2,7 @@
 //! the user's length unit, and what is derived from them. Later views (a
 //! wearer walkthrough, a task-demand sheet) read the same state.
 
+use super::row_watch::RowWatch;
 use super::shelf::{Opening, Shelf};
 use crate::display::LengthUnit;
 use crate::plan::{plan, Plan};
@@ -39,6 +40,8 @@ pub struct AppState {
     pub unparsed: RwSignal<BTreeSet<String>>,
     /// The scenarios kept on this device and the save state of the open one.
     pub shelf: Shelf,
+    /// The change signal of each row of the form.
+    pub row_watch: RowWatch,
 }
 
 /// The plan on screen: the latest from a valid scenario, kept and marked
@@ -58,6 +61,8 @@ impl AppState {
         let rows = RwSignal::new(RowIds::new(&opening.scenario));
         let scenario = RwSignal::new(opening.scenario);
         let checked = Memo::new(move |_| scenario.with(|s| validate(s.clone())));
+        let problems =
+            Memo::new(move |_| checked.with(|c| c.as_ref().err().cloned().unwrap_or_default()));
         let outcome = Memo::new(move |previous: Option<&Outcome>| {
             let last = || previous.and_then(|p| p.plan.clone());
             checked.with(|c| match c {
@@ -85,9 +90,8 @@ impl AppState {
             wearer_block: Memo::new(move |_| scenario.with(|s| (s.wearer.clone(), s.settings))),
             unit: RwSignal::new(opening.unit),
             checked,
-            problems: Memo::new(move |_| {
-                checked.with(|c| c.as_ref().err().cloned().unwrap_or_default())
-            }),
+            problems,
+            row_watch: RowWatch::new(scenario, rows, problems),
             outcome,
             chosen_task: RwSignal::new(None),
             rows,
@@ -109,9 +113,9 @@ impl AppState {
         Memo::new(move |_| scenario.with(&read))
     }
 
-    /// The validation problem of the field at `path` (a path that follows
-    /// its row), in the words `words` gives it, as a memo that changes
-    /// only when that field's problem does.
+    /// The validation problem of the scenario's own field at `path` (its
+    /// name, its list of tasks), in the words `words` gives it, as a memo
+    /// that changes only when that field's problem does.
     pub fn problem_at(
         &self,
         path: Signal<String>,
@@ -119,14 +123,25 @@ impl AppState {
     ) -> Memo<Option<String>> {
         let problems = self.problems;
         Memo::new(move |_| {
-            path.with(|path| {
-                problems.with(|errors| {
-                    errors
-                        .iter()
-                        .find(|e| &e.path == path)
-                        .map(|e| words(&e.problem))
-                })
-            })
+            problems.track();
+            path.with(|path| problem_of(problems, path, &words))
+        })
+    }
+
+    /// The validation problem of the field at `path` (a path that follows
+    /// its row) in the row whose change signal is `row`, in the words
+    /// `words` gives it: re-read only when that row changes (the row's
+    /// signal covers its problems), not on every edit.
+    pub fn problem_in(
+        &self,
+        row: Signal<()>,
+        path: Signal<String>,
+        words: impl Fn(&Problem) -> String + Send + Sync + 'static,
+    ) -> Memo<Option<String>> {
+        let problems = self.problems;
+        Memo::new(move |_| {
+            row.track();
+            path.with(|path| problem_of(problems, path, &words))
         })
     }
 
@@ -210,6 +225,21 @@ impl AppState {
             self.replace_scenario(scenario);
         }
     }
+}
+
+/// The problem at `path` among the gate's `problems` (read without
+/// tracking them), in the words `words` gives it.
+fn problem_of(
+    problems: Memo<Vec<FieldError>>,
+    path: &str,
+    words: &impl Fn(&Problem) -> String,
+) -> Option<String> {
+    problems.with_untracked(|errors| {
+        errors
+            .iter()
+            .find(|e| e.path == path)
+            .map(|e| words(&e.problem))
+    })
 }
 
 /// Opens the shelf, creates the app state around the scenario it opens, and

@@ -133,7 +133,7 @@ fn position_fields(row: Row) -> impl IntoView {
 fn task_card(id: u64) -> impl IntoView {
     let state = use_app_state();
     let at = Memo::new(move |_| state.rows.with(|rows| rows.task_index(id)));
-    let row = Row::listed(at, |s, i| s.tasks.get(i).cloned());
+    let row = Row::listed(id, at);
     let name = task_part(row, |t| t.name.clone());
     let name = Signal::derive(move || name.get().unwrap_or_default());
     let on_name = Callback::new(move |v: String| {
@@ -146,7 +146,7 @@ fn task_card(id: u64) -> impl IntoView {
     let name_path = row.path("tasks", "name");
     let flags_set = task_part(row, |t| flags_in_words(t.flags));
     let flags_set = move || flags_set.get().unwrap_or_default();
-    let name_problem = state.problem_at(name_path, Problem::to_string);
+    let name_problem = row.problem(name_path, Problem::to_string);
     let name_test_id = Signal::derive(move || {
         at.get()
             .map(|i| format!("task-{i}-name"))

@@ -23,7 +23,7 @@ use detail::{provide_task_detail, TaskDetailPopover};
 use lens_map::LensMap;
 use leptos::prelude::*;
 use order_sheet::OrderSheet;
-use written::{on_choose, on_choose_key, written_marks, written_rows};
+use written::{on_choose, on_choose_key, written_body, written_foot, written_marks};
 
 pub use peek::PlanPeek;
 
@@ -131,8 +131,8 @@ pub fn OutcomePanel() -> impl IntoView {
                         <thead>
                             <tr inner_html=move || table_head.get()></tr>
                         </thead>
-                        <tbody>{written_rows(move || table.with(|t| t.tasks.clone()))}</tbody>
-                        <tfoot>{written_rows(move || table.with(|t| t.foot.clone()))}</tfoot>
+                        {written_body(move || table.with(|t| t.tasks.clone()))}
+                        {written_foot(move || table.with(|t| t.foot.clone()))}
                     </table>
                 </div>
                 <TaskDetailPopover />

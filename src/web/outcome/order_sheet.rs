@@ -2,7 +2,7 @@
 //! `markup::order_sheet` for the plan shown, dated today as this device
 //! writes dates, and a button that prints the plan sheet.
 
-use super::written::written_rows;
+use super::written::written_body;
 use crate::markup::order_sheet::{order_sheet, SIGNATURE, TASK_COLUMNS};
 use crate::web::state::use_app_state;
 use crate::web::table::column_heads;
@@ -44,9 +44,7 @@ pub fn OrderSheet() -> impl IntoView {
                 <h4>"Tasks planned for"</h4>
                 <table class="sheet-tasks">
                     {column_heads(&TASK_COLUMNS)}
-                    <tbody>
-                        {written_rows(move || sheet.with(|s| s.as_ref().map(|s| s.tasks.clone()).unwrap_or_default()))}
-                    </tbody>
+                    {written_body(move || sheet.with(|s| s.as_ref().map(|s| s.tasks.clone()).unwrap_or_default()))}
                 </table>
                 <p class="signature">{SIGNATURE}</p>
                 <button type="button" class="no-print" on:click=print>"Print plan sheet"</button>

@@ -64,26 +64,75 @@ pub fn on_choose_key(state: AppState, detail: TaskDetail) -> impl Fn(KeyboardEve
     }
 }
 
-/// Table rows written as HTML text (each the content of one `<tr>`), in
-/// order: a row is replaced only when its own text or its place changes.
-pub fn written_rows(rows: impl Fn() -> Vec<String> + Send + Sync + 'static) -> impl IntoView {
-    view! {
-        <For
-            each=move || rows().into_iter().enumerate()
-            key=|row| row.clone()
-            children=|(_, row)| view! { <tr inner_html=row></tr> }
-        />
-    }
+/// The SVG namespace, for the groups made in a chart.
+const SVG: &str = "http://www.w3.org/2000/svg";
+
+/// Keeps the children of the element `node` refers to showing `texts`:
+/// one child element per text (made by `make`), in order, each rewritten
+/// only when its own text changed since the last time, extra children
+/// removed. Comparing the texts in place costs far less than a keyed list
+/// of them (every key hashed on every edit) and leaves the unchanged rows
+/// and marks untouched.
+fn keep_written<E>(
+    node: NodeRef<E>,
+    make: fn(&web_sys::Document) -> Option<Element>,
+    texts: impl Fn() -> Vec<String> + 'static,
+) where
+    E: leptos::html::ElementType,
+    E::Output: JsCast + Clone + 'static,
+{
+    Effect::new(move |before: Option<Option<(Element, Vec<String>)>>| {
+        let now = texts();
+        let parent = node.get()?.unchecked_into::<Element>();
+        // What this element shows: nothing yet if it is not the element
+        // written last time.
+        let before = before
+            .flatten()
+            .filter(|(written, _)| *written == parent)
+            .map(|(_, texts)| texts)
+            .unwrap_or_default();
+        let children = parent.children();
+        for (i, text) in now.iter().enumerate() {
+            if before.get(i) == Some(text) {
+                continue;
+            }
+            let index = u32::try_from(i).unwrap_or(u32::MAX);
+            let child = children.item(index).or_else(|| {
+                make(&document()).and_then(|c| parent.append_child(&c).ok()?.dyn_into().ok())
+            });
+            if let Some(child) = child {
+                child.set_inner_html(text);
+            }
+        }
+        while children.length() > u32::try_from(now.len()).unwrap_or(u32::MAX) {
+            match parent.last_element_child() {
+                Some(last) => last.remove(),
+                None => break,
+            }
+        }
+        Some((parent, now))
+    });
 }
 
-/// SVG marks written as text, each in a group of its own, in order: a mark
-/// is replaced only when its own text or its place changes.
-pub fn written_marks(marks: impl Fn() -> Vec<String> + Send + Sync + 'static) -> impl IntoView {
-    view! {
-        <For
-            each=move || marks().into_iter().enumerate()
-            key=|mark| mark.clone()
-            children=|(_, mark)| view! { <g inner_html=mark></g> }
-        />
-    }
+/// A table body whose rows are `rows`, written as HTML text (each the
+/// content of one `<tr>`), a row rewritten only when its own text changes.
+pub fn written_body(rows: impl Fn() -> Vec<String> + 'static) -> impl IntoView {
+    let node = NodeRef::<leptos::html::Tbody>::new();
+    keep_written(node, |d| d.create_element("tr").ok(), rows);
+    view! { <tbody node_ref=node></tbody> }
+}
+
+/// A table foot whose rows are `rows`, as [`written_body`].
+pub fn written_foot(rows: impl Fn() -> Vec<String> + 'static) -> impl IntoView {
+    let node = NodeRef::<leptos::html::Tfoot>::new();
+    keep_written(node, |d| d.create_element("tr").ok(), rows);
+    view! { <tfoot node_ref=node></tfoot> }
+}
+
+/// An SVG group of `marks` written as SVG text, each in a group of its
+/// own, a mark rewritten only when its own text changes.
+pub fn written_marks(marks: impl Fn() -> Vec<String> + 'static) -> impl IntoView {
+    let node = NodeRef::<leptos::svg::G>::new();
+    keep_written(node, |d| d.create_element_ns(Some(SVG), "g").ok(), marks);
+    view! { <g node_ref=node></g> }
 }

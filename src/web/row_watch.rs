@@ -1,0 +1,110 @@
+//! Which rows of the form an edit changed. Every row of the form (the
+//! wearer's block, each task, each option) has a change signal of its own,
+//! and one watcher, run after each change of the scenario or of the gate's
+//! problems, compares every row's content and problems with what it saw
+//! last and signals only the rows that differ. The fields of a row depend
+//! on that row's signal alone, never on the scenario: an edit then marks
+//! one row's views for checking, where a field depending on the scenario
+//! (even through a memo) had every field of the form marked and checked on
+//! every keystroke (the framework walks and copies each reader's list of
+//! readers as it marks them).
+
+use crate::scenario::{FieldError, LensOption, PlanSettings, RowIds, Scenario, Task, Wearer};
+use leptos::prelude::*;
+use std::collections::HashMap;
+
+/// What a row's views show from the scenario.
+#[derive(PartialEq)]
+enum Content {
+    /// The wearer's block: the wearer and the plan settings.
+    Wearer(Box<(Wearer, PlanSettings)>),
+    /// A task.
+    Task(Box<Task>),
+    /// A lens option.
+    Option(Box<LensOption>),
+}
+
+/// Every row's content and the gate's problems in it, by row id.
+type Seen = HashMap<u64, (Content, Vec<FieldError>)>;
+
+/// The row id a problem's path belongs to: `tasks[i].…` to the task at i,
+/// `options[i].…` to the option at i, `wearer.…` and `settings.…` to the
+/// wearer's block; `None` for the scenario's own fields.
+fn row_of(path: &str, rows: &RowIds) -> Option<u64> {
+    let listed = |list: &str, ids: &[u64]| {
+        let rest = path.strip_prefix(list)?.strip_prefix('[')?;
+        let (index, _) = rest.split_once(']')?;
+        ids.get(index.parse::<usize>().ok()?).copied()
+    };
+    if path.starts_with("wearer.") || path.starts_with("settings.") {
+        Some(rows.wearer())
+    } else {
+        listed("tasks", rows.tasks()).or_else(|| listed("options", rows.options()))
+    }
+}
+
+/// What every row shows now.
+fn look(scenario: &Scenario, rows: &RowIds, problems: &[FieldError]) -> Seen {
+    let mut seen = Seen::new();
+    seen.insert(
+        rows.wearer(),
+        (
+            Content::Wearer(Box::new((scenario.wearer.clone(), scenario.settings))),
+            Vec::new(),
+        ),
+    );
+    for (id, task) in rows.tasks().iter().zip(&scenario.tasks) {
+        seen.insert(*id, (Content::Task(Box::new(task.clone())), Vec::new()));
+    }
+    for (id, option) in rows.options().iter().zip(&scenario.options) {
+        seen.insert(*id, (Content::Option(Box::new(option.clone())), Vec::new()));
+    }
+    for problem in problems {
+        if let Some((_, list)) = row_of(&problem.path, rows).and_then(|id| seen.get_mut(&id)) {
+            list.push(problem.clone());
+        }
+    }
+    seen
+}
+
+/// The change signals of the form's rows.
+#[derive(Clone, Copy)]
+pub struct RowWatch {
+    signals: StoredValue<HashMap<u64, ArcTrigger>>,
+}
+
+impl RowWatch {
+    /// Watches `scenario` and `problems` for the rows `rows` lists.
+    pub fn new(
+        scenario: RwSignal<Scenario>,
+        rows: RwSignal<RowIds>,
+        problems: Memo<Vec<FieldError>>,
+    ) -> RowWatch {
+        let watch = RowWatch {
+            signals: StoredValue::new(HashMap::new()),
+        };
+        Effect::new(move |before: Option<Seen>| {
+            let now = scenario.with(|s| rows.with(|r| problems.with(|p| look(s, r, p))));
+            if let Some(before) = before {
+                watch.signals.update_value(|signals| {
+                    signals.retain(|id, _| now.contains_key(id));
+                    for (id, signal) in signals.iter() {
+                        if before.get(id) != now.get(id) {
+                            signal.notify();
+                        }
+                    }
+                });
+            }
+            now
+        });
+        watch
+    }
+
+    /// The change signal of the row with id `id`: notified whenever that
+    /// row's content or its problems change.
+    pub fn signal(self, id: u64) -> ArcTrigger {
+        self.signals
+            .try_update_value(|signals| signals.entry(id).or_default().clone())
+            .unwrap_or_default()
+    }
+}
