@@ -3,6 +3,7 @@
 //! wearer walkthrough, a task-demand sheet) read the same state.
 
 use super::shelf::{Opening, Shelf};
+use super::startup::mark;
 use crate::display::LengthUnit;
 use crate::plan::{plan, Plan};
 use crate::scenario::{
@@ -60,7 +61,12 @@ impl AppState {
         let checked = Memo::new(move |_| scenario.with(|s| validate(s.clone())));
         let outcome = Memo::new(move |previous: Option<&Outcome>| {
             let last = || previous.and_then(|p| p.plan.clone());
-            checked.with(|c| match c {
+            // The first plan is marked for the start-up measurement.
+            let first = previous.is_none();
+            if first {
+                mark("planning");
+            }
+            let outcome = checked.with(|c| match c {
                 Ok(valid) => match plan(valid) {
                     Ok(plan) => Outcome {
                         plan: Some(plan),
@@ -78,7 +84,11 @@ impl AppState {
                     stale: true,
                     error: None,
                 },
-            })
+            });
+            if first {
+                mark("planned");
+            }
+            outcome
         });
         AppState {
             scenario,
@@ -215,7 +225,9 @@ impl AppState {
 /// Opens the shelf, creates the app state around the scenario it opens, and
 /// provides the state to every component below.
 pub fn provide_app_state() -> AppState {
-    let state = AppState::new(Shelf::open());
+    let opening = Shelf::open();
+    mark("shelf-opened");
+    let state = AppState::new(opening);
     provide_context(state);
     state
 }
