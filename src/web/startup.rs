@@ -3,8 +3,8 @@
 //! first plan is painted. At start the app draws what is in view (the
 //! masthead, the shelf, the wearer's block, the plan) and leaves what is
 //! not (the demos a first visit brings besides the one shown, the working
-//! day and the lens options below the wearer's block) to the task after
-//! the first paint.
+//! day and the lens options about 2,000 px down, below the wearer's block)
+//! to the task after the first paint.
 
 use leptos::prelude::*;
 use std::time::Duration;

@@ -14,7 +14,7 @@
 // above within a load: the split of the time to the first plan.
 import { resolve } from "node:path";
 import { serveDist, launchBrowser, DIST } from "../support/harness.js";
-import { firstVisit } from "./first-plan.js";
+import { firstVisit, FIRST_PLAN } from "./first-plan.js";
 
 const LOADS = Number(process.env.LOADS ?? 9);
 
@@ -49,6 +49,12 @@ try {
       const since = previous ? `, +${median(spans.map((r) => r[name] - r[previous])).toFixed(0)} after the line above` : "";
       console.log(`  ${name.padEnd(34)} ${middle.toFixed(0).padStart(5)} [${low}–${high}]${since}`);
       previous = name;
+    }
+    // The app's own part: from its entry point to the chart, within each load.
+    const own = runs[at].filter((r) => r["clearspan:wasm-run"] !== undefined && r[FIRST_PLAN] !== undefined);
+    if (own.length) {
+      const spans = own.map((r) => r[FIRST_PLAN] - r["clearspan:wasm-run"]);
+      console.log(`  entry point to first plan: median ${median(spans).toFixed(0)} ms`);
     }
   }
 } finally {
