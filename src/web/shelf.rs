@@ -144,10 +144,18 @@ impl Shelf {
     }
 
     /// Writes every staged edit in this tab's turn, without waiting (the
-    /// tab is being hidden or left, or the delay is over).
+    /// tab is being hidden or left, or the delay is over), after importing
+    /// the demos a first visit still leaves waiting (a tab left within its
+    /// first frame keeps them).
     pub fn write_now(&self) {
         self.write_scheduled.set_value(false);
-        self.in_turn(|s, _| s.write_waiting(), |()| {});
+        self.in_turn(
+            |s, now| {
+                s.import_waiting_demos(now);
+                s.write_waiting();
+            },
+            |()| {},
+        );
     }
 
     /// Adds a notice.
