@@ -1,6 +1,8 @@
 //! One tab's session with the scenario library: which entry is open, what
 //! the user is told, and the conflict waiting for a choice. It opens the
-//! library at start (importing the fictional demos on a first visit),
+//! library at start (on a first visit importing the first fictional demo,
+//! which opens, and leaving the others for [`Session::import_waiting_demos`],
+//! so the first plan is not kept waiting for them),
 //! stores every edit of the open scenario, follows changes made in other
 //! tabs, and turns every outcome the [`Library`] reports into a [`Notice`]
 //! or the [`Conflict`] banner. Storage faults never lose the open work: it
@@ -11,7 +13,7 @@
 //! and taking turns with other tabs is the caller's job.
 
 use super::collection::{id_for_key, Library};
-use super::demos::DEMO_FILES;
+use super::demos::{DemoFile, DEMO_FILES};
 use super::format::EntryId;
 use super::notice::{Notice, NoticeAction, Notices, NOTICE_LIST_LINES};
 use super::report::{Conflict, LibraryError, Persisted, SetAside, Summary};
@@ -58,13 +60,17 @@ pub struct Session<S: KeyValueStore> {
     notices: Notices,
     /// A change made in another tab that clashes with this tab's edits.
     conflict: Option<Conflict>,
+    /// The demo files still to import on this first visit (the first one
+    /// is imported at start), in the order they are offered.
+    waiting_demos: &'static [DemoFile],
 }
 
 impl<S: KeyValueStore> Session<S> {
     /// Opens the library over `store` at `now_ms` (milliseconds since the
     /// Unix epoch). Entries that cannot be read are set aside and reported;
-    /// an empty library gets the fictional demos and opens the first. The
-    /// entry open at the last visit opens again.
+    /// an empty library gets the first fictional demo, which opens, and the
+    /// others wait for [`Session::import_waiting_demos`]. The entry open at
+    /// the last visit opens again.
     pub fn start(store: S, now_ms: u64) -> Started<S> {
         let (library, report) = Library::open(store);
         let mut session = Session {
@@ -72,6 +78,7 @@ impl<S: KeyValueStore> Session<S> {
             current: None,
             notices: Notices::default(),
             conflict: None,
+            waiting_demos: &[],
         };
         let action = report.storage.map(|_| NoticeAction::ExportAll);
         for text in report.messages() {
@@ -83,11 +90,13 @@ impl<S: KeyValueStore> Session<S> {
             .as_deref()
             .and_then(EntryId::parse)
             .filter(|id| session.library.get(id).is_some());
-        if session.library.list("").is_empty() {
-            current = session.import_demos(now_ms).or(current);
+        let listed = session.library.list("");
+        if listed.is_empty() {
+            let (first, others) = DEMO_FILES.split_at(DEMO_FILES.len().min(1));
+            current = session.import_demos(first, now_ms).or(current);
+            session.waiting_demos = others;
         }
-        session.current =
-            current.or_else(|| session.library.list("").first().map(|s| s.id.clone()));
+        session.current = current.or_else(|| listed.first().map(|s| s.id.clone()));
         let scenario = session
             .current
             .as_ref()
@@ -347,6 +356,7 @@ impl<S: KeyValueStore> Session<S> {
     pub fn erase_all(&mut self) -> Option<Scenario> {
         match self.library.erase_all_local_data() {
             Ok(count) => {
+                self.waiting_demos = &[];
                 self.notices.tell(
                     format!(
                         "Erased all of clearspan's data on this device ({count} stored items)."
@@ -487,10 +497,25 @@ impl<S: KeyValueStore> Session<S> {
             .unwrap_or_default()
     }
 
-    /// Imports every demo file at `now_ms`; returns the first demo's entry.
-    fn import_demos(&mut self, now_ms: u64) -> Option<EntryId> {
+    /// Whether demos of this first visit are still to be imported.
+    pub fn has_waiting_demos(&self) -> bool {
+        !self.waiting_demos.is_empty()
+    }
+
+    /// Imports at `now_ms` the demos a first visit left waiting (nothing
+    /// when none wait, and nothing after the user erased everything: an
+    /// erase is not undone behind their back). Another tab that started
+    /// meanwhile found the first demo stored and imported none; it follows
+    /// these writes like any other.
+    pub fn import_waiting_demos(&mut self, now_ms: u64) {
+        let waiting = std::mem::take(&mut self.waiting_demos);
+        self.import_demos(waiting, now_ms);
+    }
+
+    /// Imports the demo files `demos` at `now_ms`; returns the first one's entry.
+    fn import_demos(&mut self, demos: &[DemoFile], now_ms: u64) -> Option<EntryId> {
         let mut first = None;
-        for demo in DEMO_FILES {
+        for demo in demos {
             match parse_import(demo.text) {
                 Ok(batch) => {
                     let report = self.library.import(batch, now_ms);

@@ -4,6 +4,7 @@ use super::demands::WorkVisionLauncher;
 use super::options_panel::OptionsPanel;
 use super::outcome::{OutcomePanel, PlanPeek};
 use super::shelf_panel::{NoticeBar, ShelfPanel};
+use super::startup::after_first_paint;
 use super::state::provide_app_state;
 use super::tasks_panel::TasksPanel;
 use super::wearer_panel::WearerPanel;
@@ -44,6 +45,13 @@ pub fn App() -> impl IntoView {
         }
     });
     let wearer_row = Memo::new(move |_| state.rows.with(|rows| rows.wearer()));
+    // The working day and the lens options start below the wearer's block,
+    // about 2,000 px down (measured at 1366 x 900 and 768 x 1024), out of
+    // view at start: they are drawn in the task after the first plan is
+    // painted, which then comes sooner (on a screen tall enough to show
+    // them, they appear a frame later).
+    let below_wearer = RwSignal::new(false);
+    after_first_paint(move || below_wearer.set(true));
     let unit_label = move || match state.unit.get() {
         LengthUnit::Centimetres => "Show inches",
         LengthUnit::Inches => "Show centimetres",
@@ -81,8 +89,12 @@ pub fn App() -> impl IntoView {
                     wearer_row.track();
                     view! { <WearerPanel /> }
                 }}
-                <TasksPanel />
-                <OptionsPanel />
+                {move || {
+                    below_wearer.get().then(|| view! {
+                        <TasksPanel />
+                        <OptionsPanel />
+                    })
+                }}
             </div>
             <OutcomePanel />
         </main>

@@ -13,6 +13,7 @@ mod outcome;
 mod row_watch;
 mod shelf;
 mod shelf_panel;
+mod startup;
 mod state;
 mod storage;
 mod table;
@@ -21,10 +22,13 @@ mod walkthrough;
 mod wearer_panel;
 
 use leptos::prelude::*;
+use startup::mark;
 
 /// Installs the panic hook, removes the note the page shows while the app
-/// loads, and mounts the app into the document body.
+/// loads, and mounts the app into the document body. Marks `wasm-run` when
+/// the wasm starts running and `mounted` when the views are in the page.
 pub fn start() {
+    mark("wasm-run");
     console_error_panic_hook::set_once();
     if let Some(note) = web_sys::window()
         .and_then(|w| w.document())
@@ -33,4 +37,5 @@ pub fn start() {
         note.remove();
     }
     mount_to_body(app::App);
+    mark("mounted");
 }

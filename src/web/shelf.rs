@@ -5,6 +5,7 @@
 //! only gives it local storage, the clock and this tab's turn to write.
 
 use super::locks::with_write_lock;
+use super::startup::after_first_paint;
 use super::storage::BrowserStore;
 use crate::display::LengthUnit;
 use crate::library::{Conflict, EntryId, Notice, SaveStatus, Session, SetAside, Summary};
@@ -69,7 +70,9 @@ fn set_if_changed<T: PartialEq + Send + Sync + 'static>(signal: RwSignal<T>, val
 }
 
 impl Shelf {
-    /// Opens the library from local storage (see [`Session::start`]).
+    /// Opens the library from local storage (see [`Session::start`]). On
+    /// a first visit the demos besides the one shown are imported, in this
+    /// tab's turn to write, after the first plan is painted.
     pub fn open() -> Opening {
         let started = Session::start(BrowserStore::probe(), now_ms());
         let shelf = Shelf {
@@ -86,6 +89,9 @@ impl Shelf {
             write_scheduled: StoredValue::new(false),
         };
         shelf.refresh();
+        if shelf.read(|s| s.has_waiting_demos()).unwrap_or(false) {
+            after_first_paint(move || shelf.in_turn(|s, now| s.import_waiting_demos(now), |()| {}));
+        }
         Opening {
             shelf,
             scenario: started.scenario,
@@ -138,10 +144,18 @@ impl Shelf {
     }
 
     /// Writes every staged edit in this tab's turn, without waiting (the
-    /// tab is being hidden or left, or the delay is over).
+    /// tab is being hidden or left, or the delay is over), after importing
+    /// the demos a first visit still leaves waiting (a tab left within its
+    /// first frame keeps them).
     pub fn write_now(&self) {
         self.write_scheduled.set_value(false);
-        self.in_turn(|s, _| s.write_waiting(), |()| {});
+        self.in_turn(
+            |s, now| {
+                s.import_waiting_demos(now);
+                s.write_waiting();
+            },
+            |()| {},
+        );
     }
 
     /// Adds a notice.

@@ -4,6 +4,7 @@
 
 use super::row_watch::RowWatch;
 use super::shelf::{Opening, Shelf};
+use super::startup::mark;
 use crate::display::LengthUnit;
 use crate::plan::{plan, Plan};
 use crate::scenario::{
@@ -65,7 +66,12 @@ impl AppState {
             Memo::new(move |_| checked.with(|c| c.as_ref().err().cloned().unwrap_or_default()));
         let outcome = Memo::new(move |previous: Option<&Outcome>| {
             let last = || previous.and_then(|p| p.plan.clone());
-            checked.with(|c| match c {
+            // The first plan is marked for the start-up measurement.
+            let first = previous.is_none();
+            if first {
+                mark("planning");
+            }
+            let outcome = checked.with(|c| match c {
                 Ok(valid) => match plan(valid) {
                     Ok(plan) => Outcome {
                         plan: Some(plan),
@@ -83,7 +89,11 @@ impl AppState {
                     stale: true,
                     error: None,
                 },
-            })
+            });
+            if first {
+                mark("planned");
+            }
+            outcome
         });
         AppState {
             scenario,
@@ -245,7 +255,9 @@ fn problem_of(
 /// Opens the shelf, creates the app state around the scenario it opens, and
 /// provides the state to every component below.
 pub fn provide_app_state() -> AppState {
-    let state = AppState::new(Shelf::open());
+    let opening = Shelf::open();
+    mark("shelf-opened");
+    let state = AppState::new(opening);
     provide_context(state);
     state
 }

@@ -16,10 +16,12 @@ fn shared() -> SharedMemoryStore {
     Rc::new(RefCell::new(MemoryStore::new()))
 }
 
-/// A session over an empty shared store, started at t=1, with the demos in.
+/// A session over an empty shared store, started at t=1, with the demos in
+/// (those left waiting at start imported at t=1 too).
 fn first_visit() -> (Session<SharedMemoryStore>, SharedMemoryStore, Scenario) {
     let store = shared();
-    let started = Session::start(Rc::clone(&store), 1);
+    let mut started = Session::start(Rc::clone(&store), 1);
+    started.session.import_waiting_demos(1);
     (started.session, store, started.scenario)
 }
 
@@ -68,6 +70,66 @@ fn a_first_visit_brings_the_demos_and_opens_the_first_and_a_reload_opens_it_agai
     assert_eq!(again.session.current(), session.current());
     assert_eq!(again.scenario, first_demo);
     assert_eq!(again.unit, LengthUnit::Centimetres, "the default unit");
+}
+
+#[test]
+fn a_first_visit_opens_the_first_demo_at_once_and_imports_the_others_after() {
+    let store = shared();
+    let started = Session::start(Rc::clone(&store), 1);
+    let mut a = started.session;
+    assert_eq!(
+        a.list("").len(),
+        1,
+        "only the demo shown is imported at start"
+    );
+    assert_eq!(open_name(&a), Some(started.scenario.name.clone()));
+    assert!(a.has_waiting_demos());
+    assert_eq!(a.status().to_string(), "Saved on this device");
+
+    // A second tab opening meanwhile finds the first demo stored and
+    // imports nothing itself.
+    let mut b = Session::start(Rc::clone(&store), 2).session;
+    assert!(!b.has_waiting_demos());
+    assert_eq!(b.list("").len(), 1);
+    assert_eq!(b.current(), a.current(), "the same demo opens");
+
+    a.import_waiting_demos(3);
+    assert!(!a.has_waiting_demos());
+    assert_eq!(a.list("").len(), DEMO_FILES.len());
+    assert!(a.notices().is_empty(), "{:?}", words(&a));
+    assert_eq!(a.status().to_string(), "Saved on this device");
+    a.import_waiting_demos(4);
+    assert_eq!(a.list("").len(), DEMO_FILES.len(), "imported once");
+
+    // The second tab follows the writes, as the browser reports them.
+    let keys: Vec<String> = store
+        .borrow()
+        .keys()
+        .expect("keys")
+        .into_iter()
+        .filter(|k| k.starts_with(SCENARIO_PREFIX))
+        .collect();
+    for key in &keys {
+        assert_eq!(
+            b.follow_other_tab(Some(key)),
+            None,
+            "the open one is unchanged"
+        );
+    }
+    let names = |s: &Session<SharedMemoryStore>| -> Vec<String> {
+        s.list("").into_iter().map(|e| e.name).collect()
+    };
+    assert_eq!(names(&b), names(&a));
+}
+
+#[test]
+fn demos_left_waiting_are_not_imported_after_an_erase() {
+    let store = shared();
+    let mut session = Session::start(Rc::clone(&store), 1).session;
+    session.erase_all().expect("an untitled scenario");
+    assert!(!session.has_waiting_demos());
+    session.import_waiting_demos(2);
+    assert!(session.list("").is_empty());
 }
 
 #[test]
@@ -156,6 +218,7 @@ fn without_storage_the_session_runs_from_memory_and_offers_export() {
     store.set_unavailable(true);
     let started = Session::start(store, 1);
     let mut session = started.session;
+    session.import_waiting_demos(1);
     assert_eq!(words(&session), [StoreError::Unavailable.to_string()]);
     assert_eq!(
         session.notices()[0].action,
@@ -323,7 +386,8 @@ fn erase_removes_everything_and_says_how_much() {
     );
     assert!(session.list("").is_empty());
     assert_eq!(store.borrow().raw("other-app/keep"), Some("x"));
-    let again = Session::start(Rc::clone(&store), 9);
+    let mut again = Session::start(Rc::clone(&store), 9);
+    again.session.import_waiting_demos(9);
     assert_eq!(
         again.session.list("").len(),
         DEMO_FILES.len(),
