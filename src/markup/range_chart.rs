@@ -17,8 +17,12 @@ use crate::core::units::Metres;
 use crate::display::{trim_number, LengthUnit};
 use crate::plan::{OptionPlan, Plan};
 
+/// Width of the chart, in SVG units.
 const WIDTH: f64 = 820.0;
+/// Where the task labels end (right-aligned), in SVG units.
 const LABEL_END: f64 = 250.0;
+/// Where the dioptric axis starts (the nearest distance) and ends (the
+/// farthest), in SVG units.
 const X_NEAR: f64 = 270.0;
 const X_FAR: f64 = 800.0;
 /// Top of the first row when every task marker fits on one lane.
@@ -26,6 +30,7 @@ const TOP: f64 = 70.0;
 /// Side of the square that takes a tap on a task marker, in SVG units: about
 /// 44 px or more at the widths the chart is drawn (touch-target size, WCAG 2.5.5).
 const HIT: f64 = 76.0;
+/// Height of one task's row, in SVG units.
 const ROW: f64 = 26.0;
 
 /// An SVG coordinate rounded to a tenth (below a pixel at every width the
