@@ -1,8 +1,8 @@
-//! The task-demand sheet of occupational health as HTML text: who and
-//! through what glasses, each task's demands against what the worker has,
-//! its flag with the reasons in numbers and what would clear it, the
-//! display-screen rule, the date and a line for the nurse's name and
-//! signature; or, when there is no sheet, why. Every figure and word comes
+//! The task-demand sheet of occupational health as HTML text, after a note
+//! on what it is: who and through what glasses, each task's demands
+//! against what the worker has, its flag with the reasons in numbers and
+//! what would clear it, the display-screen rule, the date and a line for
+//! the nurse's name and signature; or, when there is no sheet, why. Every figure and word comes
 //! from `plan::demands`, `plan::demand_words` and `plan::roster`; the
 //! scenario's and the tasks' names are escaped like every text.
 
@@ -75,6 +75,18 @@ fn task_row(html: &mut Html, t: &TaskDemand, unit: LengthUnit) {
         html.element("p", &[("class", "wv-advice")], &advice);
     }
     html.close("td").close("tr");
+}
+
+/// What the tab says before the sheet: whose glasses, and that the sheet
+/// screens and documents but neither examines nor prescribes.
+pub fn sheet_intro() -> String {
+    let mut html = Html::new();
+    html.element(
+        "p",
+        &[("class", "hint wv-intro")],
+        "Each task of the scenario on screen, seen through the worker's current glasses (the distance correction alone when none are entered). A screening aid for occupational health: it flags and documents; it does not examine or prescribe.",
+    );
+    html.finish()
 }
 
 /// The whole sheet, distances in `unit`, signed on `date` (as shown, for

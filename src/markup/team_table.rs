@@ -1,6 +1,7 @@
-//! Team mode's result as HTML text: how many roster rows were read, used
-//! and skipped, each skipped row by line and field, the tally of flags,
-//! and the table of who needs what (the first `SHOWN_WORKERS` workers; the
+//! Team mode's words as HTML text: the note on privacy and what a roster
+//! holds; then the result: how many roster rows were read, used and
+//! skipped, each skipped row by line and field, the tally of flags, and
+//! the table of who needs what (the first `SHOWN_WORKERS` workers; the
 //! exported CSV holds them all); or why the roster was not screened. The
 //! workers' ids and the task names are text typed by the user, escaped
 //! like every text.
@@ -8,7 +9,7 @@
 use super::html::Html;
 use crate::display::thousands;
 use crate::plan::demands::Flag;
-use crate::plan::roster::{advice, Screened, TeamResult};
+use crate::plan::roster::{advice, Screened, TeamResult, COLUMNS as ROSTER_COLUMNS};
 
 /// The most workers listed on screen (a product choice that keeps the tab
 /// responsive); the exported CSV always holds every worker.
@@ -20,6 +21,29 @@ const COLUMNS: [&str; 3] = [
     "Most serious flag",
     "Tasks not fine as they are",
 ];
+
+/// What the tab says before the roster inputs: names of people are not
+/// asked for, and what a roster holds (screened against the `tasks` tasks
+/// of the scenario on screen).
+pub fn team_intro(tasks: usize) -> String {
+    let mut html = Html::new();
+    html.open(
+        "p",
+        &[("class", "wv-privacy"), ("data-testid", "team-privacy")],
+    )
+    .element("strong", &[], "Names of real people are not asked for.")
+    .text(" Give each worker a pseudonymous id (for example W-017) and keep the key to it elsewhere. The roster is read on this device, is not saved and is sent nowhere.")
+    .close("p")
+    .element(
+        "p",
+        &[("class", "hint")],
+        &format!(
+            "Each worker is screened against the {tasks} tasks of the scenario on screen. The first line names the columns: {} (id and age_years required; amplitude_d a push-up amplitude with the distance correction worn, correction_d its spherical equivalent, addition_d the current addition).",
+            ROSTER_COLUMNS.join(", ")
+        ),
+    );
+    html.finish()
+}
 
 /// One worker's row: the most serious flag, then each task that is not
 /// fine with its reasons and advice.

@@ -3,8 +3,8 @@
 //! listed, one item per sentence, and text typed by the user (scenario,
 //! task and option names, worker ids) never read as markup.
 
-use super::demand_sheet::{demand_sheet, sheet_problem};
-use super::team_table::{team_problem, team_summary, team_table, SHOWN_WORKERS};
+use super::demand_sheet::{demand_sheet, sheet_intro, sheet_problem};
+use super::team_table::{team_intro, team_problem, team_summary, team_table, SHOWN_WORKERS};
 use super::tests::{demo_plans, well_formed};
 use super::walkthrough_step::{closing_step, no_plan, picture_caption, task_words};
 use crate::display::LengthUnit;
@@ -69,6 +69,7 @@ fn every_demo_sheet_is_well_formed_with_one_row_per_task() {
         assert_eq!(text.matches("class=\"wv-flag ").count(), tasks);
         assert_eq!(text.matches("data-testid=\"wv-rule\"").count(), 1);
     }
+    assert!(well_formed(&sheet_intro()));
 }
 
 #[test]
@@ -89,6 +90,10 @@ fn every_demo_team_is_well_formed_with_one_row_per_worker() {
             assert!(table.contains(&format!("<th scope=\"row\">{id}<span")));
         }
         assert!(!table.contains("class=\"hint\""), "every worker listed");
+        let intro = team_intro(scenario.tasks.len());
+        assert!(well_formed(&intro), "{intro}");
+        let station = format!("screened against the {} tasks", scenario.tasks.len());
+        assert!(intro.contains(&station), "{intro}");
     }
 }
 

@@ -3,7 +3,7 @@
 //! and a print button. Printed, the sheet is one A4 page (the print rules
 //! in `style/app.css` hide everything else while this view is open).
 
-use crate::markup::demand_sheet::{demand_sheet, sheet_problem};
+use crate::markup::demand_sheet::{demand_sheet, sheet_intro, sheet_problem};
 use crate::plan::demands;
 use crate::web::state::use_app_state;
 use leptos::prelude::*;
@@ -39,9 +39,7 @@ pub fn SheetTab() -> impl IntoView {
         }
     };
     view! {
-        <p class="hint wv-intro">
-            "Each task of the scenario on screen, seen through the worker's current glasses (the distance correction alone when none are entered). A screening aid for occupational health: it flags and documents; it does not examine or prescribe."
-        </p>
+        <div class="part" inner_html=sheet_intro()></div>
         <button type="button" class="primary wv-print" data-testid="wv-print" on:click=print>
             "Print the sheet"
         </button>

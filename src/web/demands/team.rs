@@ -6,8 +6,8 @@
 //! team CSV as a download made on this device. The roster is not saved and
 //! names of people are not asked for.
 
-use crate::markup::team_table::{team_problem, team_summary, team_table};
-use crate::plan::roster::{read_roster, screen_team, TeamResult, COLUMNS};
+use crate::markup::team_table::{team_intro, team_problem, team_summary, team_table};
+use crate::plan::roster::{read_roster, screen_team, TeamResult};
 use crate::web::files::{download_text, picked_file, read_text_or_advise};
 use crate::web::state::{use_app_state, AppState};
 use leptos::prelude::*;
@@ -67,19 +67,9 @@ pub fn TeamTab() -> impl IntoView {
             }
         }
     };
-    let station = move || state.scenario.with(|s| s.tasks.len());
+    let intro = Memo::new(move |_| team_intro(state.scenario.with(|s| s.tasks.len())));
     view! {
-        <p class="wv-privacy" data-testid="team-privacy">
-            <strong>"Names of real people are not asked for."</strong>
-            " Give each worker a pseudonymous id (for example W-017) and keep the key to it elsewhere. The roster is read on this device, is not saved and is sent nowhere."
-        </p>
-        <p class="hint">
-            {move || format!(
-                "Each worker is screened against the {} tasks of the scenario on screen. The first line names the columns: {} (id and age_years required; amplitude_d a push-up amplitude with the distance correction worn, correction_d its spherical equivalent, addition_d the current addition).",
-                station(),
-                COLUMNS.join(", ")
-            )}
-        </p>
+        <div class="part" inner_html=move || intro.get()></div>
         <div class="wv-roster-inputs">
             <div class="field">
                 <label for="team-file">"Roster file (CSV)"</label>
