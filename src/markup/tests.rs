@@ -16,7 +16,7 @@ use crate::plan::{plan, Plan};
 use crate::scenario::{validate, Scenario};
 
 /// Every demo scenario with its plan.
-fn demo_plans() -> Vec<(Scenario, Plan)> {
+pub(super) fn demo_plans() -> Vec<(Scenario, Plan)> {
     DEMO_FILES
         .iter()
         .flat_map(|file| parse_import(file.text).expect("demo reads").accepted)
@@ -93,7 +93,7 @@ fn tags(html: &str) -> Vec<String> {
 }
 
 /// Whether every element of `html` is closed, innermost first.
-fn well_formed(html: &str) -> bool {
+pub(super) fn well_formed(html: &str) -> bool {
     let mut open = Vec::new();
     for tag in tags(html) {
         match tag.strip_prefix('/') {

@@ -1,6 +1,6 @@
-//! Pieces of the data tables the views draw (the task detail, the
-//! task-demand sheet, the team table, the plan sheet's tasks): one header
-//! row of column heads.
+//! Pieces of the data tables the views draw with leptos (the plan sheet's
+//! tasks): one header row of column heads. Tables written as HTML text use
+//! `markup::html::Html::column_heads`.
 
 use leptos::prelude::*;
 

@@ -3,8 +3,9 @@
 //! task-demand sheet of the scenario on screen (printable on one A4 page);
 //! "Team" screens a roster of pseudonymous workers against the scenario's
 //! tasks. Every figure, flag and word comes from `plan::demands`,
-//! `plan::demand_words` and `plan::roster`; this layer reads the app state
-//! and draws. Nothing here edits the scenario. Escape closes the dialog and
+//! `plan::demand_words` and `plan::roster`, written as HTML text by
+//! `markup::demand_sheet` and `markup::team_table`; this layer reads the
+//! app state, holds the controls and puts the text on the page. Nothing here edits the scenario. Escape closes the dialog and
 //! focus returns to its opener.
 
 mod sheet;

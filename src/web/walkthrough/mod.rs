@@ -4,18 +4,20 @@
 //! close. The lenses the words are about start as the planned option; the
 //! wearer may look at any other option planned (a tap on its name, or the
 //! up and down arrow keys), which changes only what this presentation shows.
-//! The words come from `plan::walkthrough`, the pictures from the core's
-//! scene and blur disc; this layer only reads the app state and draws.
+//! The words come from `plan::walkthrough`, written as HTML text by
+//! `markup::walkthrough_step`; the pictures from the core's scene and blur
+//! disc; this layer only reads the app state, draws and puts the text on
+//! the page.
 //! Nothing here edits the scenario.
 
 mod picture;
 
 use crate::chart::scene::SceneKind;
-use crate::core::units::{Metres, Millimetres};
-use crate::display::{trim_number, LengthUnit};
-use crate::plan::walkthrough::{
-    current_glasses_plan, walkthrough, Closing, Picture, Sharpness, TaskStep, Walkthrough,
+use crate::core::units::Millimetres;
+use crate::markup::walkthrough_step::{
+    closing_step, no_plan, picture_caption, scale_words, task_words,
 };
+use crate::plan::walkthrough::{current_glasses_plan, walkthrough, TaskStep, Walkthrough};
 use crate::web::dialog::focus_follows;
 use crate::web::state::{use_app_state, AppState};
 use leptos::html;
@@ -27,20 +29,6 @@ const THUMB: (u32, u32) = (480, 300);
 /// Horizontal travel of a pointer, in CSS pixels, that counts as a swipe.
 const SWIPE_PX: i32 = 60;
 
-/// A distance for the wearer: centimetres or inches near by, metres or feet
-/// beyond 2 m.
-fn distance_words(distance: Metres, unit: LengthUnit) -> String {
-    match unit {
-        LengthUnit::Centimetres if distance.0 >= 2.0 => {
-            format!("{} m", trim_number(distance.0, 1))
-        }
-        LengthUnit::Inches if distance.0 >= 2.0 => {
-            format!("{} ft", trim_number(unit.from_metres(distance) / 12.0, 0))
-        }
-        _ => format!("{} {}", unit.format(distance), unit.symbol()),
-    }
-}
-
 /// The scene and detail of task `index` in the scenario being shown.
 fn scene_of(state: AppState, index: usize) -> Option<(SceneKind, Millimetres)> {
     state.scenario.with(|s| {
@@ -50,26 +38,8 @@ fn scene_of(state: AppState, index: usize) -> Option<(SceneKind, Millimetres)> {
     })
 }
 
-/// The caption under a picture: whose lenses, how it looks, and the letter
-/// chart lines lost when there are any worth saying.
-fn caption(p: &Picture) -> String {
-    let lines = if p.chart_lines_lost >= 0.5 {
-        format!(
-            " (about {} {} lower on a letter chart)",
-            trim_number(p.chart_lines_lost.round(), 0),
-            if p.chart_lines_lost.round() == 1.0 {
-                "line"
-            } else {
-                "lines"
-            }
-        )
-    } else {
-        String::new()
-    };
-    format!("{}{lines}", p.sharpness.words())
-}
-
-/// One task step: facts, words and the pictures side by side.
+/// One task step: facts and words (written as HTML text), then the
+/// pictures side by side.
 fn task_view(
     state: AppState,
     step: &TaskStep,
@@ -78,12 +48,6 @@ fn task_view(
     enlarged: RwSignal<Option<(PictureSpec, String)>>,
 ) -> impl IntoView {
     let unit = state.unit.get_untracked();
-    let distance = distance_words(step.distance, unit);
-    let sentences = step
-        .sentences
-        .iter()
-        .map(|s| view! { <li>{s.clone()}</li> })
-        .collect_view();
     let scene = scene_of(state, step.task_index);
     let pictures = scene.map(|(kind, detail)| {
         let figures = step
@@ -114,69 +78,19 @@ fn task_view(
                         >
                             <ScenePicture spec=spec width=THUMB.0 height=THUMB.1 label=words.clone() />
                         </button>
-                        <figcaption>
-                            <strong>{p.label.clone()}</strong>
-                            {(p.option.is_some() && p.option == planned).then_some(" (planned for you)")}
-                            <span class=format!("walk-sharpness {}", sharpness_class(p.sharpness))>
-                                {caption(p)}
-                            </span>
-                        </figcaption>
+                        <figcaption inner_html=picture_caption(p, planned)></figcaption>
                     </figure>
                 }
             })
             .collect_view();
-        let scale = format!(
-            "The pictures show {} as seen from {distance}, drawn larger so that its finest detail ({} mm) is three dots wide; the blur is enlarged to match. Tap a picture to see it bigger.",
-            kind.describe(),
-            trim_number(detail.0, 1)
-        );
         view! {
             <div class="walk-pictures">{figures}</div>
-            <p class="walk-scale">{scale}</p>
+            <p class="walk-scale">{scale_words(kind, detail, step, unit)}</p>
         }
     });
     view! {
-        <p class="walk-facts">
-            {format!("{distance} away · {} a day", hours_figure(step.hours_per_day))}
-        </p>
-        <ul class="walk-words">{sentences}</ul>
+        <div class="part" inner_html=task_words(step, unit)></div>
         {pictures}
-    }
-}
-
-fn hours_figure(hours: f64) -> String {
-    if hours < 1.0 {
-        format!("{} min", trim_number(hours * 60.0, 0))
-    } else {
-        format!("{} h", trim_number(hours, 1))
-    }
-}
-
-fn sharpness_class(s: Sharpness) -> &'static str {
-    match s {
-        Sharpness::Sharp => "sharp",
-        Sharpness::SharpWithEffort => "effort",
-        Sharpness::ALittleSoft => "soft",
-        Sharpness::Blurred => "blurred",
-    }
-}
-
-/// The closing step: the choice, why, getting used to it, cautions.
-fn closing_view(c: &Closing) -> impl IntoView {
-    let list = |items: &[String]| {
-        items
-            .iter()
-            .map(|s| view! { <li>{s.clone()}</li> })
-            .collect_view()
-    };
-    view! {
-        <p class="walk-what">{format!("{}.", c.what)}</p>
-        <h3>"Why these"</h3>
-        <ul class="walk-words">{list(&c.why)}</ul>
-        <h3>"Getting used to them"</h3>
-        <ul class="walk-words">{list(&c.adapting)}</ul>
-        <h3>"Please keep in mind"</h3>
-        <ul class="walk-words walk-cautions" data-testid="walk-cautions">{list(&c.cautions)}</ul>
     }
 }
 
@@ -287,16 +201,15 @@ pub fn WalkthroughLauncher() -> impl IntoView {
 
     let body = move || {
         walk.with(|w| {
-            let Some(w) = w.as_ref() else {
-                return view! {
-                    <p class="walk-words">"There is no plan to show yet: the planner needs a valid scenario with at least one lens option."</p>
+            let step = w.as_ref().and_then(|w| w.steps.get(at()).map(|s| (w, s)));
+            match step {
+                Some((w, s)) => task_view(state, s, w.pupil, planned.get(), enlarged).into_any(),
+                None => {
+                    let text = w
+                        .as_ref()
+                        .map_or_else(no_plan, |w| closing_step(&w.closing));
+                    view! { <div class="part" inner_html=text></div> }.into_any()
                 }
-                .into_any();
-            };
-            let i = at();
-            match w.steps.get(i) {
-                Some(s) => task_view(state, s, w.pupil, planned.get(), enlarged).into_any(),
-                None => closing_view(&w.closing).into_any(),
             }
         })
     };
