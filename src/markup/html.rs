@@ -77,14 +77,19 @@ impl Html {
         self
     }
 
-    /// Writes a table's head: one row of column headers, each scoped to
-    /// its column for screen readers.
-    pub fn column_heads(&mut self, names: &[&str]) -> &mut Html {
-        self.open("thead", &[]).open("tr", &[]);
+    /// Writes a table's head row: one column header per name, each
+    /// scoped to its column for screen readers.
+    pub fn column_row(&mut self, names: &[&str]) -> &mut Html {
+        self.open("tr", &[]);
         for name in names {
             self.element("th", &[("scope", "col")], name);
         }
-        self.close("tr").close("thead")
+        self.close("tr")
+    }
+
+    /// Writes a table's head (`<thead>`) holding its [`Html::column_row`].
+    pub fn column_heads(&mut self, names: &[&str]) -> &mut Html {
+        self.open("thead", &[]).column_row(names).close("thead")
     }
 
     /// The text written.

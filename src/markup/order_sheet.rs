@@ -42,8 +42,13 @@ pub struct OrderSheetText {
     pub tasks: Vec<String>,
 }
 
-/// The heads of the columns of the sheet's table of tasks.
-pub const TASK_COLUMNS: [&str; 3] = ["Task: distance, gaze, time", "Zone", "Verdict"];
+/// The head row of the sheet's table of tasks (the content of its
+/// `<thead>`): one header per column.
+pub fn task_columns() -> String {
+    let mut html = Html::new();
+    html.column_row(&["Task: distance, gaze, time", "Zone", "Verdict"]);
+    html.finish()
+}
 
 /// The line signed under the sheet.
 pub const SIGNATURE: &str = "Checked and confirmed by a licensed eye-care practitioner: name, signature, date ______________________________";

@@ -16,7 +16,6 @@ mod shelf_panel;
 mod startup;
 mod state;
 mod storage;
-mod table;
 mod tasks_panel;
 mod walkthrough;
 mod wearer_panel;

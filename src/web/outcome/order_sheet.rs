@@ -3,9 +3,8 @@
 //! writes dates, and a button that prints the plan sheet.
 
 use super::written::written_body;
-use crate::markup::order_sheet::{order_sheet, SIGNATURE, TASK_COLUMNS};
+use crate::markup::order_sheet::{order_sheet, task_columns, SIGNATURE};
 use crate::web::state::use_app_state;
-use crate::web::table::column_heads;
 use leptos::prelude::*;
 
 /// Today's date as the device writes it, day first.
@@ -43,7 +42,7 @@ pub fn OrderSheet() -> impl IntoView {
                 <div class="part" inner_html=move || order.get().unwrap_or_default()></div>
                 <h4>"Tasks planned for"</h4>
                 <table class="sheet-tasks">
-                    {column_heads(&TASK_COLUMNS)}
+                    <thead inner_html=task_columns()></thead>
                     {written_body(move || sheet.with(|s| s.as_ref().map(|s| s.tasks.clone()).unwrap_or_default()))}
                 </table>
                 <p class="signature">{SIGNATURE}</p>
