@@ -85,8 +85,11 @@ pub fn App() -> impl IntoView {
             <ShelfPanel />
             <div class="inputs">
                 {move || {
-                    // The wearer's fields are drawn afresh with each scenario opened.
-                    wearer_row.track();
+                    // The wearer's fields are drawn afresh with each scenario
+                    // opened (a new row id). The memo is read, not only
+                    // tracked: a memo never read is never computed, so it
+                    // never hears of a change.
+                    let _opened = wearer_row.get();
                     view! { <WearerPanel /> }
                 }}
                 {move || {
