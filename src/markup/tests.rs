@@ -178,14 +178,23 @@ fn the_chosen_option_is_pressed_and_the_open_task_expanded() {
     )));
 }
 
+/// Text a user could type that would be markup if it were not escaped.
+pub(super) const TYPED: &str = "<img src=x onerror=\"alert(1)\"> & co";
+
+/// The first demo with [`TYPED`] as its name, its first task's name and its
+/// first option's label, and its plan.
+pub(super) fn typed_demo() -> (Scenario, Plan) {
+    let (mut scenario, _) = demo_plans().swap_remove(0);
+    scenario.name = TYPED.into();
+    scenario.tasks[0].name = TYPED.into();
+    scenario.options[0].label = TYPED.into();
+    let planned = plan(&validate(scenario.clone()).expect("still valid")).expect("plans");
+    (scenario, planned)
+}
+
 #[test]
 fn text_typed_by_the_user_is_never_read_as_markup() {
-    let (mut scenario, _) = demo_plans().swap_remove(0);
-    let typed = "<img src=x onerror=\"alert(1)\"> & co";
-    scenario.name = typed.into();
-    scenario.tasks[0].name = typed.into();
-    scenario.options[0].label = typed.into();
-    let plan = plan(&validate(scenario.clone()).expect("still valid")).expect("plans");
+    let (scenario, plan) = typed_demo();
     let escaped = "&lt;img src=x onerror=";
     for part in every_part(&scenario, &plan, Some(0)) {
         assert!(!part.contains("<img"), "{part}");

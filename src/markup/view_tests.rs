@@ -5,13 +5,13 @@
 
 use super::demand_sheet::{demand_sheet, sheet_intro, sheet_problem};
 use super::team_table::{team_intro, team_problem, team_summary, team_table, SHOWN_WORKERS};
-use super::tests::{demo_plans, well_formed};
+use super::tests::{demo_plans, typed_demo, well_formed, TYPED};
 use super::walkthrough_step::{closing_step, no_plan, picture_caption, task_words};
 use crate::display::LengthUnit;
 use crate::plan::demands;
 use crate::plan::roster::{read_roster, screen_team, TeamResult};
 use crate::plan::walkthrough::{current_glasses_plan, walkthrough};
-use crate::plan::{plan, Plan};
+use crate::plan::Plan;
 use crate::scenario::{validate, Scenario};
 
 /// A roster of the first `n` workers of a small fictional team (ids
@@ -159,12 +159,7 @@ fn only_the_planned_option_is_named_planned_for_you() {
 
 #[test]
 fn text_typed_by_the_user_is_never_read_as_markup_in_the_views() {
-    let (mut scenario, _) = demo_plans().swap_remove(0);
-    let typed = "<img src=x onerror=\"alert(1)\"> & co";
-    scenario.name = typed.into();
-    scenario.tasks[0].name = typed.into();
-    scenario.options[0].label = typed.into();
-    let planned = plan(&validate(scenario.clone()).expect("still valid")).expect("plans");
+    let (scenario, planned) = typed_demo();
     let id = "\"<img src=x onerror=\"\"alert(1)\"\"> & co\"";
     let team = team(
         &scenario,
@@ -174,8 +169,8 @@ fn text_typed_by_the_user_is_never_read_as_markup_in_the_views() {
     parts.push(sheet_text(&scenario).1);
     parts.push(team_summary(&team));
     parts.push(team_table(&team));
-    parts.push(sheet_problem(typed));
-    parts.push(team_problem(typed));
+    parts.push(sheet_problem(TYPED));
+    parts.push(team_problem(TYPED));
     for part in &parts {
         assert!(!part.contains("<img") && !part.contains("<b>"), "{part}");
         assert!(well_formed(part), "{part}");
