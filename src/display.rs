@@ -365,6 +365,60 @@ pub fn printable(text: &str) -> String {
         .collect()
 }
 
+/// Abbreviated month names, January first.
+const MONTHS: [&str; 12] = [
+    "Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec",
+];
+
+/// The proleptic Gregorian date (year, month 1 to 12, day 1 to 31) of the
+/// day `days` after 1 January 1970 (the inverse of H. Hinnant's
+/// `days_from_civil`, "chrono-Compatible Low-Level Date Algorithms").
+fn civil_from_days(days: i64) -> (i64, usize, i64) {
+    let z = days + 719_468;
+    let era = z.div_euclid(146_097);
+    let day_of_era = z.rem_euclid(146_097);
+    let year_of_era =
+        (day_of_era - day_of_era / 1460 + day_of_era / 36_524 - day_of_era / 146_096) / 365;
+    let day_of_year = day_of_era - (365 * year_of_era + year_of_era / 4 - year_of_era / 100);
+    let month_from_march = (5 * day_of_year + 2) / 153;
+    let day = day_of_year - (153 * month_from_march + 2) / 5 + 1;
+    let month = if month_from_march < 10 {
+        month_from_march + 3
+    } else {
+        month_from_march - 9
+    };
+    let year = year_of_era + era * 400 + i64::from(month <= 2);
+    (year, month as usize, day)
+}
+
+/// The local date and time of the instant `utc_ms` (milliseconds since
+/// 1970-01-01 00:00 UTC) where the clock is `ahead_min` minutes ahead of
+/// UTC: the day, the date as "3 Dec 2026" and the time as "14:05".
+fn local_date_time(utc_ms: f64, ahead_min: f64) -> (String, String) {
+    let minutes = ((utc_ms / 60_000.0).floor() + ahead_min.round()) as i64;
+    let (year, month, day) = civil_from_days(minutes.div_euclid(1440));
+    let of_day = minutes.rem_euclid(1440);
+    let month = MONTHS.get(month - 1).copied().unwrap_or("");
+    (
+        format!("{day} {month} {year}"),
+        format!("{:02}:{:02}", of_day / 60, of_day % 60),
+    )
+}
+
+/// The local date of the instant `utc_ms` (milliseconds since 1970-01-01
+/// UTC) on a clock `ahead_min` minutes ahead of UTC, as "3 Dec 2026": the
+/// month in words, so no reader takes the day for the month.
+pub fn date_words(utc_ms: f64, ahead_min: f64) -> String {
+    local_date_time(utc_ms, ahead_min).0
+}
+
+/// The local date and time of the instant `utc_ms`, as [`date_words`]
+/// with the time on a 24-hour clock: "3 Dec 2026, 14:05".
+pub fn date_time_words(utc_ms: f64, ahead_min: f64) -> String {
+    let (date, time) = local_date_time(utc_ms, ahead_min);
+    format!("{date}, {time}")
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -520,5 +574,28 @@ mod tests {
                 "{text}"
             );
         }
+    }
+
+    // Expected values from GNU coreutils `date -u -d @SECONDS "+%-d %b %Y, %H:%M"`
+    // (and `TZ=Europe/Paris date -d @1796340600` for the clock an hour ahead).
+    #[test]
+    fn dates_and_times_agree_with_gnu_date() {
+        let cases = [
+            (0.0, 0.0, "1 Jan 1970, 00:00"),
+            (951_782_400_000.0, 0.0, "29 Feb 2000, 00:00"),
+            (-86_400_000.0, 0.0, "31 Dec 1969, 00:00"),
+            (1_798_761_600_000.0, 0.0, "1 Jan 2027, 00:00"),
+            (1_796_340_600_000.0, 0.0, "3 Dec 2026, 23:30"),
+            (1_796_340_600_000.0, 60.0, "4 Dec 2026, 00:30"),
+            (4_107_542_399_000.0, 0.0, "28 Feb 2100, 23:59"),
+        ];
+        for (ms, ahead, words) in cases {
+            assert_eq!(
+                date_time_words(ms, ahead),
+                words,
+                "{ms} ms, {ahead} min ahead"
+            );
+        }
+        assert_eq!(date_words(1_796_340_600_000.0, 60.0), "4 Dec 2026");
     }
 }

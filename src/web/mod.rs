@@ -3,6 +3,7 @@
 
 mod app;
 mod bind;
+mod clock;
 mod demands;
 mod dialog;
 mod fields;

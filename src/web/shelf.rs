@@ -4,6 +4,7 @@
 //! every call and only where they changed. The session decides; this file
 //! only gives it local storage, the clock and this tab's turn to write.
 
+use super::clock::now_ms;
 use super::locks::with_write_lock;
 use super::startup::after_first_paint;
 use super::storage::BrowserStore;
@@ -11,11 +12,6 @@ use crate::display::LengthUnit;
 use crate::library::{Conflict, EntryId, Notice, SaveStatus, Session, SetAside, Summary};
 use crate::scenario::Scenario;
 use leptos::prelude::*;
-
-/// The milliseconds since the Unix epoch, from the browser clock.
-pub fn now_ms() -> u64 {
-    js_sys::Date::now().max(0.0) as u64
-}
 
 /// How long the write of an edit waits for the edits that follow it, in
 /// milliseconds: a number typed is written once, not once a keystroke,

@@ -5,9 +5,10 @@
 //! and draws. Every action that writes runs in this tab's turn to write
 //! ([`Shelf::in_turn`]).
 
+use super::clock::{now_ms, when};
 use super::fields::{focus_test_id, TextField};
 use super::files::{download_json, picked_file, read_text};
-use super::shelf::{now_ms, BrowserSession, Shelf};
+use super::shelf::{BrowserSession, Shelf};
 use super::state::{use_app_state, AppState};
 use crate::display::thousands;
 use crate::library::{EntryId, NoticeAction, MAX_DOCUMENT_BYTES};
@@ -41,14 +42,6 @@ fn export_all(shelf: Shelf) {
         shelf,
         text.map(|text| ("clearspan-all-scenarios.json".to_string(), text)),
     );
-}
-
-/// A local date and time for a timestamp in milliseconds.
-fn when(ms: u64) -> String {
-    js_sys::Date::new(&(ms as f64).into())
-        .to_locale_string("default", &wasm_bindgen::JsValue::UNDEFINED)
-        .as_string()
-        .unwrap_or_default()
 }
 
 /// The notice bar: messages with their actions and a dismiss button, and the

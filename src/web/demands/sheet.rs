@@ -5,6 +5,7 @@
 
 use crate::markup::demand_sheet::{demand_sheet, sheet_intro, sheet_problem};
 use crate::plan::demands;
+use crate::web::clock::today;
 use crate::web::state::use_app_state;
 use leptos::prelude::*;
 
@@ -13,9 +14,7 @@ use leptos::prelude::*;
 #[component]
 pub fn SheetTab() -> impl IntoView {
     let state = use_app_state();
-    let date = String::from(
-        js_sys::Date::new_0().to_locale_date_string("en-GB", &wasm_bindgen::JsValue::UNDEFINED),
-    );
+    let date = today();
     let sheet =
         Memo::new(move |_| {
             let unit = state.unit.get();

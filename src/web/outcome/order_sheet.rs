@@ -1,18 +1,12 @@
 //! The order sheet on the page: its content written by
-//! `markup::order_sheet` for the plan shown, dated today as this device
-//! writes dates, and a button that prints the plan sheet.
+//! `markup::order_sheet` for the plan shown, dated today (the local date,
+//! month in words), and a button that prints the plan sheet.
 
 use super::written::written_body;
 use crate::markup::order_sheet::{order_sheet, task_columns, SIGNATURE};
+use crate::web::clock::today;
 use crate::web::state::use_app_state;
 use leptos::prelude::*;
-
-/// Today's date as the device writes it, day first.
-fn today() -> String {
-    String::from(
-        js_sys::Date::new_0().to_locale_date_string("en-GB", &wasm_bindgen::JsValue::UNDEFINED),
-    )
-}
 
 /// The order sheet of the plan on screen, while there is one.
 #[component]
