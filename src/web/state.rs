@@ -7,9 +7,7 @@ use super::shelf::{Opening, Shelf};
 use super::startup::mark;
 use crate::display::LengthUnit;
 use crate::plan::{plan, Plan};
-use crate::scenario::{
-    validate, FieldError, PlanSettings, Problem, RowIds, Scenario, ValidScenario, Wearer,
-};
+use crate::scenario::{validate, FieldError, Problem, RowIds, Scenario, ValidScenario};
 use leptos::prelude::*;
 use std::collections::BTreeSet;
 
@@ -20,9 +18,6 @@ pub struct AppState {
     pub scenario: RwSignal<Scenario>,
     /// The unit task distances and sizes are shown and typed in.
     pub unit: RwSignal<LengthUnit>,
-    /// Changes whenever the wearer or the plan settings do: the wearer's
-    /// block of fields re-reads the scenario on it alone.
-    pub wearer_block: Memo<(Wearer, PlanSettings)>,
     /// The scenario after the validation gate: checked, or every field problem.
     pub checked: Memo<Result<ValidScenario, Vec<FieldError>>>,
     /// The gate's field problems alone (none for a valid scenario): it
@@ -97,7 +92,6 @@ impl AppState {
         });
         AppState {
             scenario,
-            wearer_block: Memo::new(move |_| scenario.with(|s| (s.wearer.clone(), s.settings))),
             unit: RwSignal::new(opening.unit),
             checked,
             problems,

@@ -12,15 +12,12 @@ use leptos::prelude::*;
 #[component]
 pub fn OrderSheet() -> impl IntoView {
     let state = use_app_state();
+    let wearer = state.part(|s| s.wearer.clone());
     let sheet = Memo::new(move |_| {
         let unit = state.unit.get();
         state.outcome.with(|o| {
             let plan = o.plan.as_ref()?;
-            Some(
-                state
-                    .wearer_block
-                    .with(|(w, _)| order_sheet(plan, w, unit, &today())),
-            )
+            Some(wearer.with(|w| order_sheet(plan, w, unit, &today())))
         })
     });
     let planned = Memo::new(move |_| sheet.with(Option::is_some));
