@@ -48,8 +48,18 @@ function geometry(page, mark) {
 }
 
 /** Whether the element with the focus is the mark `mark`. */
+/**
+ * Whether the focus is on the mark `mark` or reaches it within a second: the
+ * marks are written again when a detail closes, and the focus follows them a
+ * frame later.
+ */
 function focusIsOn(page, mark) {
-  return page.evaluate((mark) => document.activeElement?.getAttribute("data-mark") === mark, mark);
+  return page
+    .waitForFunction((mark) => document.activeElement?.getAttribute("data-mark") === mark, mark, { timeout: 1000 })
+    .then(
+      () => true,
+      () => false,
+    );
 }
 
 /** The `data-mark` of the last mark of kind `kind` (the last task's), scrolled into view. */
