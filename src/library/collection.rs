@@ -191,6 +191,9 @@ impl<S: KeyValueStore> Library<S> {
             .slots
             .values()
             .filter(|slot| {
+                if words.is_empty() {
+                    return true;
+                }
                 let e = &slot.entry;
                 let mut text = format!("{}\n{}", e.scenario.name, e.note);
                 for t in &e.scenario.tasks {

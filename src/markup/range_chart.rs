@@ -5,7 +5,10 @@
 //! also marked by its number above, a mark that opens the task's detail
 //! (`data-mark`). Hovering shows the numbers. All geometry comes from
 //! `chart`; this writes the figure's marks, each grid line, row and marker
-//! apart, so the app replaces only the marks whose text changed.
+//! apart, so the app replaces only the marks whose text changed. The marks
+//! are placed from the top of the first row, and the whole figure is moved
+//! down by the height the markers' lanes take (`shift`): a task whose
+//! marker changes lane then rewrites its own marker, not every row.
 
 use super::html::{number, Html};
 use super::marks::{verdict_mark, Mark};
@@ -27,6 +30,8 @@ const X_NEAR: f64 = 270.0;
 const X_FAR: f64 = 800.0;
 /// Top of the first row when every task marker fits on one lane.
 const TOP: f64 = 70.0;
+/// Where a marker on the first lane sits, from the top of the first row.
+const MARKER_Y: f64 = -40.0;
 /// Side of the square that takes a tap on a task marker, in SVG units: about
 /// 44 px or more at the widths the chart is drawn (touch-target size, WCAG 2.5.5).
 const HIT: f64 = 76.0;
@@ -60,6 +65,9 @@ fn band(html: &mut Html, class: &str, span: Option<Span>, y: f64, inset: f64) {
 pub struct RangeChartMarks {
     /// The SVG's `viewBox`: its width and its height for the rows drawn.
     pub view_box: String,
+    /// The `transform` that moves every mark down to the first row's top,
+    /// below the markers' lanes.
+    pub shift: String,
     /// One grid line with its distance label per tick of the axis.
     pub ticks: Vec<String>,
     /// One group per task: its label, bands and distance dot.
@@ -84,7 +92,8 @@ pub fn range_chart(
     let markers = task_markers(plan, &axis);
     let lanes = markers.iter().map(|m| m.lane).max().unwrap_or(0);
     let top = TOP + lanes as f64 * MARKER_SPACING;
-    let bottom = top + rows.len() as f64 * ROW;
+    // Every mark is placed from the first row's top (y = 0).
+    let bottom = rows.len() as f64 * ROW;
     let ticks = axis
         .ticks(unit)
         .iter()
@@ -97,7 +106,7 @@ pub fn range_chart(
                     ("class", "grid"),
                     ("x1", &x),
                     ("x2", &x),
-                    ("y1", &at(top, -4.0)),
+                    ("y1", &number(-4.0)),
                     ("y2", &at(bottom, 0.0)),
                 ],
             )
@@ -118,7 +127,7 @@ pub fn range_chart(
         .iter()
         .enumerate()
         .map(|(i, r)| {
-            let y = top + i as f64 * ROW;
+            let y = i as f64 * ROW;
             let (symbol, class, _) = verdict_mark(r.focus);
             let (x, text_y) = (at(r.x_task, 0.0), at(y, ROW / 2.0 + 4.0));
             let mut html = Html::new();
@@ -182,7 +191,7 @@ pub fn range_chart(
                 trim_number(unit.from_metres(Metres(m.distance_m)), 0),
                 unit.symbol()
             );
-            let y = top - 40.0 - m.lane as f64 * MARKER_SPACING;
+            let y = MARKER_Y - m.lane as f64 * MARKER_SPACING;
             let x = at(m.x, 0.0);
             let mut html = Html::new();
             html.open(
@@ -236,7 +245,8 @@ pub fn range_chart(
         .element("span", &[("class", "key key-comfort")], "Dark: comfortable for sustained work.")
         .text(" Dots: each task's own distance, marked by its focus verdict. Numbered lines: the tasks.");
     RangeChartMarks {
-        view_box: format!("0 0 {WIDTH} {}", at(bottom, 36.0)),
+        view_box: format!("0 0 {WIDTH} {}", at(top + bottom, 36.0)),
+        shift: format!("translate(0 {})", number(top)),
         ticks,
         rows,
         markers,

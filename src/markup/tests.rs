@@ -13,7 +13,7 @@ use crate::chart::lens_map::LensFrame;
 use crate::display::LengthUnit;
 use crate::library::{parse_import, DEMO_FILES};
 use crate::plan::{plan, Plan};
-use crate::scenario::{validate, Scenario};
+use crate::scenario::{validate, Scenario, Task};
 
 /// Every demo scenario with its plan.
 pub(super) fn demo_plans() -> Vec<(Scenario, Plan)> {
@@ -176,6 +176,36 @@ fn the_chosen_option_is_pressed_and_the_open_task_expanded() {
     assert!(chart.contains(&format!(
         "aria-expanded=\"true\" data-mark=\"marker-{open}\""
     )));
+}
+
+#[test]
+fn a_marker_moving_up_a_lane_leaves_the_other_rows_and_the_grid_as_written() {
+    // Four copies of a demo task at 40, 67, 100 and 200 cm: their markers
+    // are far apart, on one lane. The last one moved to 101 cm sits on the
+    // 100 cm marker and takes a second lane; the rows of the other three,
+    // the grid and the other markers are written exactly as before.
+    let (mut scenario, _) = demo_plans().swap_remove(0);
+    let task = scenario.tasks[0].clone();
+    scenario.tasks = [0.40, 0.67, 1.00, 2.00]
+        .map(|distance_m| Task {
+            distance_m,
+            ..task.clone()
+        })
+        .to_vec();
+    let chart = |scenario: &Scenario| {
+        let plan = plan(&validate(scenario.clone()).expect("valid")).expect("plans");
+        range_chart(&plan, &plan.options[0], LengthUnit::Centimetres, None)
+    };
+    let apart = chart(&scenario);
+    scenario.tasks[3].distance_m = 1.01;
+    let stacked = chart(&scenario);
+    assert_ne!(apart.shift, stacked.shift, "the markers take more room");
+    assert_ne!(apart.view_box, stacked.view_box);
+    assert_eq!(apart.ticks, stacked.ticks);
+    assert_eq!(apart.rows[..3], stacked.rows[..3]);
+    assert_ne!(apart.rows[3], stacked.rows[3]);
+    assert_eq!(apart.markers[..3], stacked.markers[..3]);
+    assert_ne!(apart.markers[3], stacked.markers[3]);
 }
 
 /// Text a user could type that would be markup if it were not escaped.

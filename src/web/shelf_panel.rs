@@ -11,9 +11,45 @@ use super::files::{download_json, picked_file, read_text};
 use super::shelf::{BrowserSession, Shelf};
 use super::state::{use_app_state, AppState};
 use crate::display::thousands;
-use crate::library::{EntryId, NoticeAction, MAX_DOCUMENT_BYTES};
+use crate::library::{EntryId, NoticeAction, Summary, MAX_DOCUMENT_BYTES};
 use crate::scenario::{Problem, Scenario};
 use leptos::prelude::*;
+
+/// One line of the shelf list as drawn. A line is drawn afresh only when
+/// what it shows changes: an edit stages the scenario every keystroke, but
+/// its time is written to the minute.
+#[derive(Clone, PartialEq, Eq, Hash)]
+struct ShelfLine {
+    /// The entry.
+    id: EntryId,
+    /// The scenario's name.
+    name: String,
+    /// What is written under the name: tasks, last change, state.
+    meta: String,
+}
+
+impl ShelfLine {
+    /// The line of the library's `summary`.
+    fn of(summary: Summary) -> ShelfLine {
+        let meta = format!(
+            "{} task{} · {}{}{}",
+            summary.task_count,
+            if summary.task_count == 1 { "" } else { "s" },
+            when(summary.changed_ms),
+            if summary.draft { " · draft" } else { "" },
+            if summary.unsaved {
+                " · not stored"
+            } else {
+                ""
+            },
+        );
+        ShelfLine {
+            id: summary.id,
+            name: summary.name,
+            meta,
+        }
+    }
+}
 
 /// Runs a session operation in this tab's turn to write and shows the
 /// scenario it opens, if any.
@@ -125,12 +161,13 @@ pub fn ShelfPanel() -> impl IntoView {
     let confirming_erase = RwSignal::new(false);
     let summaries = move || {
         let words = filter.get();
-        if words.trim().is_empty() {
+        let list = if words.trim().is_empty() {
             shelf.list.get()
         } else {
             shelf.list.track();
             shelf.read(|s| s.list(&words)).unwrap_or_default()
-        }
+        };
+        list.into_iter().map(ShelfLine::of).collect::<Vec<_>>()
     };
     let current = move || shelf.current.get();
     // A new scenario is named first: focus goes to its name.
@@ -253,9 +290,9 @@ pub fn ShelfPanel() -> impl IntoView {
                     />
                 </div>
                 <ul class="shelf-list" data-testid="shelf-list">
-                    <For each=summaries key=|s| (s.id.clone(), s.name.clone(), s.changed_ms, s.unsaved, s.draft) let:summary>
+                    <For each=summaries key=|line| line.clone() let:line>
                         {
-                            let id = summary.id.clone();
+                            let id = line.id.clone();
                             let is_current = {
                                 let id = id.clone();
                                 move || current().as_ref() == Some(&id)
@@ -268,17 +305,8 @@ pub fn ShelfPanel() -> impl IntoView {
                                         aria-current=move || if is_current() { "true" } else { "false" }
                                         on:click=move |_| open_entry(state, &id)
                                     >
-                                        <span class="shelf-name">{summary.name.clone()}</span>
-                                        <span class="shelf-meta">
-                                            {format!(
-                                                "{} task{} · {}{}{}",
-                                                summary.task_count,
-                                                if summary.task_count == 1 { "" } else { "s" },
-                                                when(summary.changed_ms),
-                                                if summary.draft { " · draft" } else { "" },
-                                                if summary.unsaved { " · not stored" } else { "" },
-                                            )}
-                                        </span>
+                                        <span class="shelf-name">{line.name}</span>
+                                        <span class="shelf-meta">{line.meta}</span>
                                     </button>
                                 </li>
                             }

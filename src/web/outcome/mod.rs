@@ -112,6 +112,7 @@ pub fn OutcomePanel() -> impl IntoView {
         })
     });
     let view_box = Memo::new(move |_| chart.with(|c| c.view_box.clone()));
+    let shift = Memo::new(move |_| chart.with(|c| c.shift.clone()));
     let caption = Memo::new(move |_| chart.with(|c| c.caption.clone()));
     let planned = move || {
         view! {
@@ -144,9 +145,11 @@ pub fn OutcomePanel() -> impl IntoView {
                         aria-labelledby="range-chart-caption"
                         data-testid="range-chart"
                     >
-                        {written_marks(move || chart.with(|c| c.ticks.clone()))}
-                        {written_marks(move || chart.with(|c| c.rows.clone()))}
-                        {written_marks(move || chart.with(|c| c.markers.clone()))}
+                        <g transform=move || shift.get()>
+                            {written_marks(move || chart.with(|c| c.ticks.clone()))}
+                            {written_marks(move || chart.with(|c| c.rows.clone()))}
+                            {written_marks(move || chart.with(|c| c.markers.clone()))}
+                        </g>
                     </svg>
                     <figcaption id="range-chart-caption" inner_html=move || caption.get()></figcaption>
                 </figure>
