@@ -4,7 +4,7 @@ use super::demands::WorkVisionLauncher;
 use super::options_panel::OptionsPanel;
 use super::outcome::{OutcomePanel, PlanPeek};
 use super::shelf_panel::{NoticeBar, ShelfPanel};
-use super::startup::after_first_paint;
+use super::startup::drawn_after_first_paint;
 use super::state::provide_app_state;
 use super::tasks_panel::TasksPanel;
 use super::wearer_panel::WearerPanel;
@@ -50,8 +50,7 @@ pub fn App() -> impl IntoView {
     // view at start: they are drawn in the task after the first plan is
     // painted, which then comes sooner (on a screen tall enough to show
     // them, they appear a frame later).
-    let below_wearer = RwSignal::new(false);
-    after_first_paint(move || below_wearer.set(true));
+    let later = drawn_after_first_paint();
     let unit_label = move || match state.unit.get() {
         LengthUnit::Centimetres => "Show inches",
         LengthUnit::Inches => "Show centimetres",
@@ -93,7 +92,7 @@ pub fn App() -> impl IntoView {
                     view! { <WearerPanel /> }
                 }}
                 {move || {
-                    below_wearer.get().then(|| view! {
+                    later.get().then(|| view! {
                         <TasksPanel />
                         <OptionsPanel />
                     })
@@ -101,6 +100,6 @@ pub fn App() -> impl IntoView {
             </div>
             <OutcomePanel />
         </main>
-        <PlanPeek />
+        {move || later.get().then(|| view! { <PlanPeek /> })}
     }
 }

@@ -46,3 +46,13 @@ pub fn after_first_paint(work: impl FnOnce() + 'static) {
     request_animation_frame(move || set_timeout(after_frame, Duration::ZERO));
     set_timeout(once(), Duration::from_millis(AT_THE_LATEST_MS));
 }
+
+/// A signal that turns true in the task after the first paint (see
+/// [`after_first_paint`]): views that are out of view at start, or that
+/// only narrow screens show, are drawn once it is, so the first plan
+/// comes sooner.
+pub fn drawn_after_first_paint() -> ReadSignal<bool> {
+    let (drawn, set_drawn) = signal(false);
+    after_first_paint(move || set_drawn.set(true));
+    drawn
+}

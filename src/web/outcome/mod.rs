@@ -17,6 +17,7 @@ use crate::markup::range_chart::range_chart;
 use crate::markup::summary::{cautions, chosen_note, recommendation, unserved};
 use crate::plan::text::{amplitude_line, pupil_line, refraction_line};
 use crate::plan::{OptionPlan, Plan};
+use crate::web::startup::drawn_after_first_paint;
 use crate::web::state::use_app_state;
 use crate::web::walkthrough::WalkthroughLauncher;
 use detail::{provide_task_detail, TaskDetailPopover};
@@ -72,6 +73,7 @@ pub fn OutcomePanel() -> impl IntoView {
     });
     let error = Memo::new(move |_| state.outcome.with(|o| o.error.clone()));
     let detail = provide_task_detail();
+    let later = drawn_after_first_paint();
     let open = move || detail.open_task();
     let opening = OPENING.map(|write| {
         Memo::new(move |_| {
@@ -182,8 +184,10 @@ pub fn OutcomePanel() -> impl IntoView {
             <h2 id="outcome-heading">"Plan"</h2>
             <WalkthroughLauncher />
             {body}
-            <LensMap />
-            <OrderSheet />
+            {move || later.get().then(|| view! {
+                <LensMap />
+                <OrderSheet />
+            })}
         </section>
     }
 }
