@@ -2,8 +2,6 @@
 //! text and attribute value escaped on the way in, so a task named
 //! `<b>` or `"x" & y` shows as typed and can never become markup.
 
-use std::fmt::Write;
-
 /// HTML (or inline SVG) being written, element by element.
 #[derive(Debug, Default)]
 pub struct Html {
@@ -11,17 +9,24 @@ pub struct Html {
 }
 
 /// Writes `text` with `&`, `<` and `>` escaped, and `"` too when `quote`
-/// (inside a double-quoted attribute value).
+/// (inside a double-quoted attribute value). The runs between those
+/// characters are copied whole.
 fn escape_into(out: &mut String, text: &str, quote: bool) {
-    for c in text.chars() {
-        match c {
-            '&' => out.push_str("&amp;"),
-            '<' => out.push_str("&lt;"),
-            '>' => out.push_str("&gt;"),
-            '"' if quote => out.push_str("&quot;"),
-            c => out.push(c),
-        }
+    let mut copied = 0;
+    for (at, byte) in text.bytes().enumerate() {
+        let reference = match byte {
+            b'&' => "&amp;",
+            b'<' => "&lt;",
+            b'>' => "&gt;",
+            b'"' if quote => "&quot;",
+            _ => continue,
+        };
+        // The four characters are ASCII: `at` is on a character boundary.
+        out.push_str(&text[copied..at]);
+        out.push_str(reference);
+        copied = at + 1;
     }
+    out.push_str(&text[copied..]);
 }
 
 /// An SVG coordinate or length as written in an attribute: the shortest
@@ -40,7 +45,9 @@ impl Html {
         self.out.push('<');
         self.out.push_str(tag);
         for (name, value) in attributes {
-            let _ = write!(self.out, " {name}=\"");
+            self.out.push(' ');
+            self.out.push_str(name);
+            self.out.push_str("=\"");
             escape_into(&mut self.out, value, true);
             self.out.push('"');
         }
@@ -55,7 +62,9 @@ impl Html {
 
     /// Closes element `tag`.
     pub fn close(&mut self, tag: &str) -> &mut Html {
-        let _ = write!(self.out, "</{tag}>");
+        self.out.push_str("</");
+        self.out.push_str(tag);
+        self.out.push('>');
         self
     }
 
@@ -115,6 +124,16 @@ mod tests {
         assert_eq!(
             html.finish(),
             "<td title=\"a &quot;b&quot; &amp; &lt;c&gt;\">&lt;b&gt;x&lt;/b&gt; &amp; 'y'</td>"
+        );
+    }
+
+    #[test]
+    fn letters_of_any_script_beside_escaped_characters_are_kept_whole() {
+        let mut html = Html::new();
+        html.element("td", &[("title", "Ø\"é")], "ü<Δ>&—");
+        assert_eq!(
+            html.finish(),
+            "<td title=\"Ø&quot;é\">ü&lt;Δ&gt;&amp;—</td>"
         );
     }
 

@@ -18,7 +18,7 @@ const HIT: f64 = 20.0;
 /// An SVG coordinate rounded to a tenth (below a pixel at every width the
 /// map is drawn), as written.
 fn at(value: f64) -> String {
-    number(Coord::of(value).get())
+    Coord::of(value).written()
 }
 
 /// The task points of `option` on the lens drawn in `frame`, one group of

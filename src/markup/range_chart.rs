@@ -41,7 +41,7 @@ const ROW: f64 = 26.0;
 /// An SVG coordinate rounded to a tenth (below a pixel at every width the
 /// chart is drawn), moved by `offset`, as written.
 fn at(value: f64, offset: f64) -> String {
-    number(Coord::of(value).plus(offset))
+    Coord::of(value).moved(offset).written()
 }
 
 /// A band of a row whose top edge is at `y`, inset by `inset` above and below.

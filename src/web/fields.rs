@@ -131,12 +131,14 @@ pub fn NumberField(
     };
     let message = move || parse_message().or_else(|| problem.get());
     let unparsed_key = id.clone();
+    // Only a change of the set is told to its readers: most keystrokes
+    // leave it as it was.
     let mark_unparsed = move |bad: bool| {
-        state.unparsed.update(|set| {
+        state.unparsed.maybe_update(|set| {
             if bad {
-                set.insert(unparsed_key.clone());
+                set.insert(unparsed_key.clone())
             } else {
-                set.remove(&unparsed_key);
+                set.remove(&unparsed_key)
             }
         })
     };
