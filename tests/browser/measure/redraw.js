@@ -17,14 +17,26 @@
 //    chart's arrival is marked by a mutation observer (`first-plan.js`), so
 //    work the app puts off until after the first paint does not count.
 //    `npm run measure:startup` splits this time by the app's own marks.
+//
+// On a machine shared with other work, compare builds only in the same
+// minutes: CLEARSPAN_COMPARE=DIR[,DIR] measures those builds too, in turn
+// with the first, load by load and edit by edit.
 import { readFile } from "node:fs/promises";
 import { join, resolve } from "node:path";
 import { serveDist, launchBrowser } from "../support/harness.js";
 import { openTwentyTaskDay, ROOT, TASKS } from "./day.js";
 import { firstVisit, FIRST_PLAN } from "./first-plan.js";
 
-/** The build measured: dist/, or the directory CLEARSPAN_DIST names (an earlier build, for a before-and-after). */
-const DIST = process.env.CLEARSPAN_DIST ? resolve(process.env.CLEARSPAN_DIST) : join(ROOT, "dist");
+/**
+ * The builds measured: dist/, or the directory CLEARSPAN_DIST names (an
+ * earlier build); and, for a before-and-after on a shared machine, the
+ * directories CLEARSPAN_COMPARE lists (comma-separated), measured in turn
+ * with it, load by load and edit by edit, so that both see the same load.
+ */
+const DISTS = [
+  process.env.CLEARSPAN_DIST ? resolve(process.env.CLEARSPAN_DIST) : join(ROOT, "dist"),
+  ...(process.env.CLEARSPAN_COMPARE ?? "").split(",").filter(Boolean).map((d) => resolve(d)),
+];
 const WARM_UP = 3;
 const SAMPLES = 30;
 
@@ -73,10 +85,9 @@ function summary(values) {
 }
 
 /** The wasm and JavaScript files of dist/, each compressed with gzip -9, in bytes. */
-async function downloadBytes() {
+async function downloadBytes(dist) {
   const { readdir } = await import("node:fs/promises");
   const { gzipSync } = await import("node:zlib");
-  const dist = DIST;
   let total = 0;
   const parts = [];
   for (const name of await readdir(dist)) {
@@ -88,45 +99,52 @@ async function downloadBytes() {
   return { total, parts };
 }
 
-const server = await serveDist(DIST);
 const browser = await launchBrowser();
+const builds = [];
 let failed = false;
 try {
-  const { context, page } = await openTwentyTaskDay(browser, server.url);
-
-  const download = await downloadBytes();
-  console.log(`download (wasm + JavaScript, gzip -9): ${download.total} bytes (${download.parts.join(", ")})`);
-  const loads = [];
-  for (let i = 0; i < 7; i += 1) loads.push((await firstVisit(browser, server.url))[FIRST_PLAN]);
-  console.log(`first plan on screen (navigation to range chart, cold cache, ${loads.length} loads): ${summary(loads)}`);
-
-  const samples = [];
-  const settled = [];
-  const missed = [];
+  for (const dist of DISTS) {
+    const build = { dist, server: await serveDist(dist), loads: [], samples: [], settled: [], missed: [] };
+    builds.push(build);
+    Object.assign(build, await openTwentyTaskDay(browser, build.server.url));
+  }
+  for (let i = 0; i < 7; i += 1) {
+    for (const b of builds) b.loads.push((await firstVisit(browser, b.server.url))[FIRST_PLAN]);
+  }
   for (let i = 0; i < WARM_UP + SAMPLES; i += 1) {
     const index = (i * 7) % TASKS;
     const cm = 40 + (i % 2 === 0 ? i : 60 + i);
-    const sample = await timedEdit(page, index, cm);
-    if (!sample.redrawn) missed.push(`task ${index + 1} -> ${cm} cm: chart shows "${sample.shown}"`);
-    if (i >= WARM_UP) {
-      samples.push(sample.ms);
-      settled.push(sample.settled);
+    for (const b of builds) {
+      const sample = await timedEdit(b.page, index, cm);
+      if (!sample.redrawn) b.missed.push(`task ${index + 1} -> ${cm} cm: chart shows "${sample.shown}"`);
+      if (i >= WARM_UP) {
+        b.samples.push(sample.ms);
+        b.settled.push(sample.settled);
+      }
     }
   }
-  console.log(`edit to settled page, ${TASKS} tasks, ${samples.length} edits (after ${WARM_UP} warm-up): ${summary(settled)}`);
-  console.log(`  the same up to the second animation frame: ${summary(samples)}`);
-  if (missed.length) {
-    failed = true;
-    console.error(`the chart did not show the new distance after ${missed.length} edit(s):\n  ${missed.join("\n  ")}`);
+  for (const b of builds) {
+    if (builds.length > 1) console.log(`== ${b.dist}`);
+    const download = await downloadBytes(b.dist);
+    console.log(`download (wasm + JavaScript, gzip -9): ${download.total} bytes (${download.parts.join(", ")})`);
+    console.log(`first plan on screen (navigation to range chart, cold cache, ${b.loads.length} loads): ${summary(b.loads)}`);
+    console.log(`edit to settled page, ${TASKS} tasks, ${b.samples.length} edits (after ${WARM_UP} warm-up): ${summary(b.settled)}`);
+    console.log(`  the same up to the second animation frame: ${summary(b.samples)}`);
+    if (b.missed.length) {
+      failed = true;
+      console.error(`the chart did not show the new distance after ${b.missed.length} edit(s):\n  ${b.missed.join("\n  ")}`);
+    }
+    const problems = b.page.problems();
+    if (problems.length) {
+      failed = true;
+      console.error(`page problems:\n  ${problems.join("\n  ")}`);
+    }
   }
-  const problems = page.problems();
-  if (problems.length) {
-    failed = true;
-    console.error(`page problems:\n  ${problems.join("\n  ")}`);
-  }
-  await context.close();
 } finally {
+  for (const b of builds) {
+    await b.context?.close();
+    await b.server.close();
+  }
   await browser.close();
-  await server.close();
 }
 process.exitCode = failed ? 1 : 0;
