@@ -51,6 +51,7 @@ pub fn App() -> impl IntoView {
     // painted, which then comes sooner (on a screen tall enough to show
     // them, they appear a frame later).
     let later = drawn_after_first_paint();
+    let title = state.part(|s| s.name.clone());
     let unit_label = move || match state.unit.get() {
         LengthUnit::Centimetres => "Show inches",
         LengthUnit::Inches => "Show centimetres",
@@ -67,7 +68,7 @@ pub fn App() -> impl IntoView {
                 <span class="name">"clearspan"</span>
                 <span class="tagline">"eyewear planning for working distances"</span>
             </div>
-            <h1 data-testid="scenario-title">{move || state.scenario.with(|s| s.name.clone())}</h1>
+            <h1 data-testid="scenario-title">{move || title.get()}</h1>
             <nav class="jump" aria-label="Sections">
                 <a href="#wearer-heading">"Wearer"</a>
                 <a href="#tasks-heading">"Working day"</a>

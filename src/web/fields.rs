@@ -129,7 +129,10 @@ pub fn NumberField(
             _ => None,
         })
     };
-    let message = move || parse_message().or_else(|| problem.get());
+    // One memo for the three places that show it: a keystroke that leaves
+    // the message as it was re-runs none of them.
+    let message = Memo::new(move |_| parse_message().or_else(|| problem.get()));
+    let invalid = move || message.with(Option::is_some);
     let unparsed_key = id.clone();
     // Only a change of the set is told to its readers: most keystrokes
     // leave it as it was.
@@ -165,7 +168,7 @@ pub fn NumberField(
         })
     });
     view! {
-        <div class="field" class:invalid=move || message().is_some()>
+        <div class="field" class:invalid=invalid>
             <span class="label-row">
                 <label for=id.clone()>{label}</label>
                 {(!help.is_empty())
@@ -199,7 +202,7 @@ pub fn NumberField(
                     placeholder=placeholder
                     data-testid=test_id
                     prop:value=text
-                    aria-invalid=move || if message().is_some() { "true" } else { "false" }
+                    aria-invalid=move || if invalid() { "true" } else { "false" }
                     aria-describedby=described_by
                     on:input=on_text
                     on:keydown=move |ev: web_sys::KeyboardEvent| {

@@ -71,6 +71,11 @@ fn look(scenario: &Scenario, rows: &RowIds, problems: &[FieldError]) -> Seen {
 #[derive(Clone, Copy)]
 pub struct RowWatch {
     signals: StoredValue<HashMap<u64, ArcTrigger>>,
+    /// What every row showed when last checked; `None` before the first check.
+    seen: StoredValue<Option<Seen>>,
+    scenario: RwSignal<Scenario>,
+    rows: RwSignal<RowIds>,
+    problems: Memo<Vec<FieldError>>,
 }
 
 impl RowWatch {
@@ -82,22 +87,51 @@ impl RowWatch {
     ) -> RowWatch {
         let watch = RowWatch {
             signals: StoredValue::new(HashMap::new()),
+            seen: StoredValue::new(None),
+            scenario,
+            rows,
+            problems,
         };
-        Effect::new(move |before: Option<Seen>| {
-            let now = scenario.with(|s| rows.with(|r| problems.with(|p| look(s, r, p))));
-            if let Some(before) = before {
-                watch.signals.update_value(|signals| {
-                    signals.retain(|id, _| now.contains_key(id));
-                    for (id, signal) in signals.iter() {
-                        if before.get(id) != now.get(id) {
-                            signal.notify();
-                        }
-                    }
-                });
-            }
-            now
+        Effect::new(move |_| {
+            scenario.track();
+            rows.track();
+            problems.track();
+            watch.check();
         });
         watch
+    }
+
+    /// Signals every row whose content or problems changed since the last
+    /// check. Run after each change by the watcher, and at once by an edit
+    /// (`AppState::edit`): the edited row's fields then hear of the new
+    /// value in the same turn as of the text typed, and a field never
+    /// writes the old value back into the input for a moment, which would
+    /// move the caret to the end of the text.
+    pub fn check(self) {
+        let now = self.scenario.with_untracked(|s| {
+            self.rows
+                .with_untracked(|r| self.problems.with_untracked(|p| look(s, r, p)))
+        });
+        let before = self
+            .seen
+            .try_update_value(|seen| seen.replace(now))
+            .flatten();
+        let Some(before) = before else {
+            return;
+        };
+        self.seen.with_value(|now| {
+            let Some(now) = now else {
+                return;
+            };
+            self.signals.update_value(|signals| {
+                signals.retain(|id, _| now.contains_key(id));
+                for (id, signal) in signals.iter() {
+                    if before.get(id) != now.get(id) {
+                        signal.notify();
+                    }
+                }
+            });
+        });
     }
 
     /// The change signal of the row with id `id`: notified whenever that

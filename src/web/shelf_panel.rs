@@ -204,10 +204,12 @@ pub fn ShelfPanel() -> impl IntoView {
         act(state, |s, _| s.erase_all());
     };
     let set_aside = move || shelf.set_aside.get();
-    let name = Signal::derive(move || state.scenario.with(|s| s.name.clone()));
+    // Memos, not derived signals: every edit changes the scenario and the
+    // list (its time), and the fields are written only when their text does.
+    let name = state.part(|s| s.name.clone());
     let on_name = Callback::new(move |v: String| state.edit(|s| s.name = v));
     let name_problem = state.problem_at(Signal::stored("name".to_string()), Problem::to_string);
-    let note = Signal::derive(move || {
+    let stored_note = Memo::new(move |_| {
         let id = shelf.current.get();
         shelf.list.with(|list| {
             list.iter()
@@ -216,9 +218,27 @@ pub fn ShelfPanel() -> impl IntoView {
                 .unwrap_or_default()
         })
     });
+    // A note is stored in this tab's turn to write, a moment after each
+    // keystroke: until every write asked is done, the field shows what was
+    // typed, so that a write catching up never puts an older text (and the
+    // caret at its end) back under the user's fingers.
+    let note_typed = RwSignal::new(String::new());
+    let note_writes = RwSignal::new(0_u32);
+    let note = Memo::new(move |_| {
+        if note_writes.get() > 0 {
+            note_typed.get()
+        } else {
+            stored_note.get()
+        }
+    });
     let no_problem = Signal::derive(|| None::<String>);
     let on_note = Callback::new(move |v: String| {
-        shelf.in_turn(move |s, now| s.set_note(&v, now), |()| {});
+        note_typed.set(v.clone());
+        note_writes.update(|n| *n += 1);
+        shelf.in_turn(
+            move |s, now| s.set_note(&v, now),
+            move |()| note_writes.update(|n| *n = n.saturating_sub(1)),
+        );
     });
 
     let wide_at_start = window()

@@ -167,6 +167,7 @@ impl AppState {
         self.scenario.update(edit);
         self.scenario
             .with_untracked(|s| self.rows.maybe_update(|rows| rows.fit(s)));
+        self.row_watch.check();
         self.store();
     }
 

@@ -349,6 +349,28 @@ test("text typed in a task stays with that task when a task above it is removed 
   await context.close();
 });
 
+test("typing inside a value, however fast, keeps each keystroke where it was typed and the caret after it", async () => {
+  const { context, page, planner } = await freshPlanner(app.browser(), app.url(), { viewport: VIEWPORTS.desktop });
+  await planner.open();
+  // A number, a signed power, a task's name, the scenario's name and its
+  // note (stored a moment after each keystroke, in this tab's turn).
+  for (const id of [DISTANCE, "wearer-right-sphere_d", "task-0-name", "scenario-name", "scenario-note"]) {
+    const field = planner.byTestId(id);
+    await field.scrollIntoViewIfNeeded();
+    await field.click();
+    await field.evaluate((input) => input.setSelectionRange(1, 1));
+    const before = await field.inputValue();
+    await page.keyboard.type("05");
+    // Every update the keystrokes started has run once the save state has settled.
+    await page.waitForTimeout(300);
+    const [value, caret] = await field.evaluate((input) => [input.value, input.selectionStart]);
+    assert.equal(value, `${before.slice(0, 1)}05${before.slice(1)}`, `${id}: the keystrokes stay where they were typed`);
+    assert.equal(caret, 3, `${id}: the caret stays after them`);
+  }
+  assert.deepEqual(page.problems(), []);
+  await context.close();
+});
+
 /** Controls a user touches whose drawn box is under 44 px tall or wide. */
 function smallControls(page) {
   return page.evaluate(() => {
