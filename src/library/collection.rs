@@ -209,7 +209,10 @@ impl<S: KeyValueStore> Library<S> {
                 note: slot.entry.note.clone(),
                 changed_ms: slot.entry.changed_ms,
                 task_count: slot.entry.scenario.tasks.len(),
-                unsaved: slot.unsaved.is_some(),
+                unsaved: slot
+                    .unsaved
+                    .as_ref()
+                    .is_some_and(|u| *u != Unsaved::Waiting),
                 draft: slot.draft,
             })
             .collect();

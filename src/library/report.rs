@@ -203,7 +203,9 @@ pub struct Summary {
     pub changed_ms: u64,
     /// Number of tasks in the scenario.
     pub task_count: usize,
-    /// True while a change is held in memory only (storage refused it or a conflict waits).
+    /// True while a change is held in memory only because storage refused
+    /// it, a conflict waits or it cannot be stored; not for an edit merely
+    /// waiting a moment for its write ("Saving…").
     pub unsaved: bool,
     /// True while the scenario cannot be planned yet (a draft with a value to correct).
     pub draft: bool,

@@ -155,6 +155,10 @@ fn an_edit_waits_in_memory_then_is_written_and_a_new_scenario_gets_an_entry() {
     session.stage(&named(&scenario, "Edited"), 5);
     assert_eq!(session.status().to_string(), "Saving…");
     assert!(session.has_unsaved(), "closing now would lose the edit");
+    assert!(
+        session.list("").iter().all(|line| !line.unsaved),
+        "a write waiting a moment is not called \"not stored\" in the list"
+    );
     session.write_waiting();
     assert_eq!(session.status().to_string(), "Saved on this device");
     assert!(!session.has_unsaved());
@@ -192,6 +196,8 @@ fn refused_writes_keep_the_work_say_so_once_and_are_retried() {
     );
     assert_eq!(notices[0].text, StoreError::Full.to_string());
     assert!(notices[0].warning);
+    let line = session.list("").into_iter().find(|l| l.name == "Three");
+    assert!(line.is_some_and(|l| l.unsaved), "a refused write is");
     assert_eq!(notices[0].action, Some(NoticeAction::ExportAll));
     assert_eq!(
         session.status().open,
