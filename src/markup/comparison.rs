@@ -9,7 +9,9 @@
 
 use super::html::Html;
 use super::marks::{verdict_mark, Mark};
-use crate::plan::{DrivingFitness, OptionPlan, Plan, TaskPlan};
+use super::reuse::reused;
+use crate::core::units::Dioptres;
+use crate::plan::{DrivingFitness, HeadPosture, OptionPlan, Plan, TaskPlan, Verdict, ZoneKind};
 
 /// The caption above the table.
 pub const CAPTION: &str = "Each task through each lens option (best first). Choose an option to write the order for it and draw its lens.";
@@ -23,10 +25,45 @@ pub struct ComparisonRows {
     pub tasks: Vec<String>,
     /// The score breakdown, one row per component.
     pub foot: Vec<String>,
+    /// What each task's row was written from.
+    tasks_from: Vec<RowInput>,
+}
+
+/// What a cell shows of a task seen through one option.
+#[derive(Debug, Clone, Copy, PartialEq)]
+struct CellInput {
+    verdict: Verdict,
+    zone: ZoneKind,
+    addition: Dioptres,
+    posture: HeadPosture,
+    head_turn_deg: f64,
+}
+
+impl CellInput {
+    fn of(tp: &TaskPlan) -> CellInput {
+        CellInput {
+            verdict: tp.verdict,
+            zone: tp.zone,
+            addition: tp.local_power.addition,
+            posture: tp.posture,
+            head_turn_deg: tp.field.head_turn.0,
+        }
+    }
+}
+
+/// What a task's row is written from: the task's number, name and hours,
+/// its detail's `aria-expanded` value and each option's cell.
+#[derive(Debug, Clone, PartialEq)]
+struct RowInput {
+    index: usize,
+    name: String,
+    hours_per_day: f64,
+    expanded: &'static str,
+    cells: Vec<CellInput>,
 }
 
 /// One cell: how a task fares through one option.
-fn cell(html: &mut Html, tp: &TaskPlan) {
+fn cell(html: &mut Html, tp: &CellInput) {
     let (symbol, class, words) = verdict_mark(tp.verdict);
     html.open("td", &[("class", &format!("verdict {class}"))])
         .element(
@@ -38,13 +75,13 @@ fn cell(html: &mut Html, tp: &TaskPlan) {
         .element(
             "span",
             &[("class", "detail")],
-            &format!("{} zone, addition {}", tp.zone, tp.local_power.addition),
+            &format!("{} zone, addition {}", tp.zone, tp.addition),
         );
     let posture = tp.posture.to_string();
     if posture != "natural" {
         html.element("span", &[("class", "detail posture")], &posture);
     }
-    let turn = tp.field.head_turn.0;
+    let turn = tp.head_turn_deg;
     if turn >= 1.0 {
         html.element(
             "span",
@@ -53,6 +90,33 @@ fn cell(html: &mut Html, tp: &TaskPlan) {
         );
     }
     html.close("td");
+}
+
+/// A task's row: its heading button, its hours and one cell per option.
+fn row_text(row: &RowInput) -> String {
+    let mut html = Html::new();
+    html.open("th", &[("scope", "row")])
+        .element(
+            "button",
+            &[
+                ("type", "button"),
+                ("class", "task-head-button"),
+                ("data-mark", &Mark::Row.id(row.index)),
+                ("aria-haspopup", "dialog"),
+                ("aria-expanded", row.expanded),
+            ],
+            &format!("{}. {}", row.index + 1, row.name),
+        )
+        .element(
+            "span",
+            &[("class", "detail")],
+            &format!("{:.1} h", row.hours_per_day),
+        )
+        .close("th");
+    for c in &row.cells {
+        cell(&mut html, c);
+    }
+    html.finish()
 }
 
 /// A line of the score breakdown: its label and each option's text.
@@ -108,8 +172,15 @@ fn breakdown(plan: &Plan) -> Vec<String> {
 
 /// The rows of the comparison table of `plan`, with the option at input
 /// index `chosen` (the dispenser's choice, if any) pressed and the task at
-/// input index `open` (whose detail is shown, if any) expanded.
-pub fn comparison(plan: &Plan, chosen: Option<usize>, open: Option<usize>) -> ComparisonRows {
+/// input index `open` (whose detail is shown, if any) expanded; the task
+/// rows written from the same inputs as in the rows `before` are taken
+/// from them as they are.
+pub fn comparison(
+    plan: &Plan,
+    chosen: Option<usize>,
+    open: Option<usize>,
+    before: Option<&ComparisonRows>,
+) -> ComparisonRows {
     let mut head = Html::new();
     head.element("th", &[("scope", "col")], "Task");
     for o in &plan.options {
@@ -143,40 +214,39 @@ pub fn comparison(plan: &Plan, chosen: Option<usize>, open: Option<usize>) -> Co
             )
             .close("th");
     }
-    let tasks = plan
+    let tasks_from: Vec<RowInput> = plan
         .tasks
         .iter()
         .enumerate()
-        .map(|(t, ctx)| {
-            let index = ctx.task.index;
-            let mut html = Html::new();
-            html.open("th", &[("scope", "row")])
-                .element(
-                    "button",
-                    &[
-                        ("type", "button"),
-                        ("class", "task-head-button"),
-                        ("data-mark", &Mark::Row.id(index)),
-                        ("aria-haspopup", "dialog"),
-                        ("aria-expanded", Mark::expanded(index, open)),
-                    ],
-                    &format!("{}. {}", index + 1, ctx.task.name),
-                )
-                .element(
-                    "span",
-                    &[("class", "detail")],
-                    &format!("{:.1} h", ctx.hours_per_day),
-                )
-                .close("th");
-            for tp in plan.options.iter().filter_map(|o| o.tasks.get(t)) {
-                cell(&mut html, tp);
-            }
-            html.finish()
+        .map(|(t, ctx)| RowInput {
+            index: ctx.task.index,
+            name: ctx.task.name.clone(),
+            hours_per_day: ctx.hours_per_day,
+            expanded: Mark::expanded(ctx.task.index, open),
+            cells: plan
+                .options
+                .iter()
+                .filter_map(|o| o.tasks.get(t))
+                .map(CellInput::of)
+                .collect(),
+        })
+        .collect();
+    let tasks = tasks_from
+        .iter()
+        .enumerate()
+        .map(|(t, row)| {
+            reused(
+                before.map(|b| (&b.tasks_from[..], &b.tasks[..])),
+                t,
+                row,
+                || row_text(row),
+            )
         })
         .collect();
     ComparisonRows {
         head: head.finish(),
         tasks,
         foot: breakdown(plan),
+        tasks_from,
     }
 }

@@ -16,6 +16,7 @@ pub mod lens_points;
 pub mod marks;
 pub mod order_sheet;
 pub mod range_chart;
+mod reuse;
 pub mod summary;
 pub mod task_detail;
 pub mod team_table;

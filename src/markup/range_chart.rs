@@ -12,9 +12,10 @@
 
 use super::html::{number, Html};
 use super::marks::{verdict_mark, Mark};
+use super::reuse::reused;
 use crate::chart::coord::Coord;
 use crate::chart::range_rows::{
-    axis_for, range_rows, row_label, task_markers, Span, MARKER_SPACING,
+    axis_for, range_rows, row_label, task_markers, RangeRow, Span, TaskMarker, MARKER_SPACING,
 };
 use crate::core::units::Metres;
 use crate::display::{trim_number, LengthUnit};
@@ -60,6 +61,140 @@ fn band(html: &mut Html, class: &str, span: Option<Span>, y: f64, inset: f64) {
     }
 }
 
+/// The marks of row `i` (its label, bands and distance dot), written from `r`.
+fn row_text(i: usize, r: &RangeRow) -> String {
+    let y = i as f64 * ROW;
+    let (symbol, class, _) = verdict_mark(r.focus);
+    let (x, text_y) = (at(r.x_task, 0.0), at(y, ROW / 2.0 + 4.0));
+    let mut html = Html::new();
+    html.open("g", &[("class", "range-row")])
+        .element(
+            "title",
+            &[],
+            &format!(
+                "{}. {} · {} {:+.2}: {}, {}",
+                r.index + 1,
+                r.task,
+                r.zone,
+                r.addition_d,
+                r.words,
+                r.focus
+            ),
+        )
+        .element(
+            "text",
+            &[
+                ("class", "row-label"),
+                ("x", &number(LABEL_END)),
+                ("y", &text_y),
+                ("text-anchor", "end"),
+            ],
+            &row_label(r, LABEL_END - 4.0),
+        );
+    band(&mut html, "band-focus", r.in_focus, y, 5.0);
+    band(&mut html, "band-comfort", r.comfortable, y, 9.0);
+    html.shape(
+        "circle",
+        &[
+            ("class", &format!("task-dot {class}")),
+            ("cx", &x),
+            ("cy", &at(y, ROW / 2.0)),
+            ("r", "6"),
+        ],
+    )
+    .element(
+        "text",
+        &[
+            ("class", "dot-symbol"),
+            ("x", &x),
+            ("y", &text_y),
+            ("text-anchor", "middle"),
+            ("aria-hidden", "true"),
+        ],
+        symbol,
+    )
+    .close("g");
+    html.finish()
+}
+
+/// The marker of `m` written for its place: the rows' `bottom` its line
+/// reaches, the `unit` of its label and whether its detail is open.
+fn marker_text(m: &TaskMarker, place: &MarkerPlace) -> String {
+    let MarkerPlace {
+        unit,
+        expanded,
+        bottom,
+    } = *place;
+    let label = format!(
+        "{}. {} at {} {}",
+        m.index + 1,
+        m.name,
+        trim_number(unit.from_metres(Metres(m.distance_m)), 0),
+        unit.symbol()
+    );
+    let y = MARKER_Y - m.lane as f64 * MARKER_SPACING;
+    let x = at(m.x, 0.0);
+    let mut html = Html::new();
+    html.open(
+        "g",
+        &[
+            ("class", "task-marker"),
+            ("tabindex", "0"),
+            ("role", "button"),
+            ("aria-label", &label),
+            ("aria-haspopup", "dialog"),
+            ("aria-expanded", expanded),
+            ("data-mark", &Mark::Marker.id(m.index)),
+        ],
+    )
+    .element("title", &[], &label)
+    .shape(
+        "rect",
+        &[
+            ("class", "hit"),
+            ("x", &at(m.x, -HIT / 2.0)),
+            ("y", &at(y, -HIT / 2.0 - 6.0)),
+            ("width", &number(HIT)),
+            ("height", &number(HIT)),
+        ],
+    )
+    .shape(
+        "line",
+        &[
+            ("x1", &x),
+            ("x2", &x),
+            ("y1", &at(y, 13.0)),
+            ("y2", &at(bottom, 0.0)),
+        ],
+    )
+    .shape("circle", &[("cx", &x), ("cy", &at(y, 0.0)), ("r", "13")])
+    .element(
+        "text",
+        &[("x", &x), ("y", &at(y, 5.0)), ("text-anchor", "middle")],
+        &(m.index + 1).to_string(),
+    )
+    .close("g");
+    html.finish()
+}
+
+/// What a marker is written for besides the task's place: the unit of
+/// its label, its `aria-expanded` value and the rows' bottom its line
+/// reaches.
+#[derive(Debug, Clone, Copy, PartialEq)]
+struct MarkerPlace {
+    unit: LengthUnit,
+    expanded: &'static str,
+    bottom: f64,
+}
+
+/// What the rows and markers of a chart were written from, so that the
+/// next chart writes again only those whose inputs changed.
+#[derive(Debug, Clone, PartialEq, Default)]
+struct WrittenFrom {
+    rows: Vec<RangeRow>,
+    markers: Vec<(TaskMarker, MarkerPlace)>,
+}
+
 /// The range chart's marks as SVG text and its caption as HTML text.
 #[derive(Debug, Clone, PartialEq, Default)]
 pub struct RangeChartMarks {
@@ -76,16 +211,20 @@ pub struct RangeChartMarks {
     pub markers: Vec<String>,
     /// The figure's caption: the option drawn and how to read the chart.
     pub caption: String,
+    /// What the rows and markers were written from.
+    written_from: WrittenFrom,
 }
 
 /// The chart of `option` (one of `plan`'s options) with distances in
 /// `unit`, the marker of the task at input index `open` (whose detail is
-/// shown, if any) expanded.
+/// shown, if any) expanded; the rows and markers written from the same
+/// inputs as in the chart `before` are taken from it as they are.
 pub fn range_chart(
     plan: &Plan,
     option: &OptionPlan,
     unit: LengthUnit,
     open: Option<usize>,
+    before: Option<&RangeChartMarks>,
 ) -> RangeChartMarks {
     let axis = axis_for(plan, X_NEAR, X_FAR);
     let rows = range_rows(plan, option, &axis);
@@ -123,117 +262,42 @@ pub fn range_chart(
             html.finish()
         })
         .collect();
-    let rows = rows
+    let rows_text = rows
         .iter()
         .enumerate()
         .map(|(i, r)| {
-            let y = i as f64 * ROW;
-            let (symbol, class, _) = verdict_mark(r.focus);
-            let (x, text_y) = (at(r.x_task, 0.0), at(y, ROW / 2.0 + 4.0));
-            let mut html = Html::new();
-            html.open("g", &[("class", "range-row")])
-                .element(
-                    "title",
-                    &[],
-                    &format!(
-                        "{}. {} · {} {:+.2}: {}, {}",
-                        r.index + 1,
-                        r.task,
-                        r.zone,
-                        r.addition_d,
-                        r.words,
-                        r.focus
-                    ),
-                )
-                .element(
-                    "text",
-                    &[
-                        ("class", "row-label"),
-                        ("x", &number(LABEL_END)),
-                        ("y", &text_y),
-                        ("text-anchor", "end"),
-                    ],
-                    &row_label(r, LABEL_END - 4.0),
-                );
-            band(&mut html, "band-focus", r.in_focus, y, 5.0);
-            band(&mut html, "band-comfort", r.comfortable, y, 9.0);
-            html.shape(
-                "circle",
-                &[
-                    ("class", &format!("task-dot {class}")),
-                    ("cx", &x),
-                    ("cy", &at(y, ROW / 2.0)),
-                    ("r", "6"),
-                ],
+            reused(
+                before.map(|b| (&b.written_from.rows[..], &b.rows[..])),
+                i,
+                r,
+                || row_text(i, r),
             )
-            .element(
-                "text",
-                &[
-                    ("class", "dot-symbol"),
-                    ("x", &x),
-                    ("y", &text_y),
-                    ("text-anchor", "middle"),
-                    ("aria-hidden", "true"),
-                ],
-                symbol,
-            )
-            .close("g");
-            html.finish()
         })
         .collect();
-    let markers = markers
-        .iter()
+    let marker_places: Vec<(TaskMarker, MarkerPlace)> = markers
+        .into_iter()
         .map(|m| {
-            let label = format!(
-                "{}. {} at {} {}",
-                m.index + 1,
-                m.name,
-                trim_number(unit.from_metres(Metres(m.distance_m)), 0),
-                unit.symbol()
-            );
-            let y = MARKER_Y - m.lane as f64 * MARKER_SPACING;
-            let x = at(m.x, 0.0);
-            let mut html = Html::new();
-            html.open(
-                "g",
-                &[
-                    ("class", "task-marker"),
-                    ("tabindex", "0"),
-                    ("role", "button"),
-                    ("aria-label", &label),
-                    ("aria-haspopup", "dialog"),
-                    ("aria-expanded", Mark::expanded(m.index, open)),
-                    ("data-mark", &Mark::Marker.id(m.index)),
-                ],
+            let expanded = Mark::expanded(m.index, open);
+            (
+                m,
+                MarkerPlace {
+                    unit,
+                    expanded,
+                    bottom,
+                },
             )
-            .element("title", &[], &label)
-            .shape(
-                "rect",
-                &[
-                    ("class", "hit"),
-                    ("x", &at(m.x, -HIT / 2.0)),
-                    ("y", &at(y, -HIT / 2.0 - 6.0)),
-                    ("width", &number(HIT)),
-                    ("height", &number(HIT)),
-                ],
+        })
+        .collect();
+    let markers = marker_places
+        .iter()
+        .enumerate()
+        .map(|(i, input)| {
+            reused(
+                before.map(|b| (&b.written_from.markers[..], &b.markers[..])),
+                i,
+                input,
+                || marker_text(&input.0, &input.1),
             )
-            .shape(
-                "line",
-                &[
-                    ("x1", &x),
-                    ("x2", &x),
-                    ("y1", &at(y, 13.0)),
-                    ("y2", &at(bottom, 0.0)),
-                ],
-            )
-            .shape("circle", &[("cx", &x), ("cy", &at(y, 0.0)), ("r", "13")])
-            .element(
-                "text",
-                &[("x", &x), ("y", &at(y, 5.0)), ("text-anchor", "middle")],
-                &(m.index + 1).to_string(),
-            )
-            .close("g");
-            html.finish()
         })
         .collect();
     let mut caption = Html::new();
@@ -248,8 +312,12 @@ pub fn range_chart(
         view_box: format!("0 0 {WIDTH} {}", at(top + bottom, 36.0)),
         shift: format!("translate(0 {})", number(top)),
         ticks,
-        rows,
+        rows: rows_text,
         markers,
         caption: caption.finish(),
+        written_from: WrittenFrom {
+            rows,
+            markers: marker_places,
+        },
     }
 }

@@ -12,8 +12,8 @@ mod order_sheet;
 mod peek;
 mod written;
 
-use crate::markup::comparison::{comparison, CAPTION};
-use crate::markup::range_chart::range_chart;
+use crate::markup::comparison::{comparison, ComparisonRows, CAPTION};
+use crate::markup::range_chart::{range_chart, RangeChartMarks};
 use crate::markup::summary::{cautions, chosen_note, recommendation, unserved};
 use crate::plan::text::{amplitude_line, pupil_line, refraction_line};
 use crate::plan::{OptionPlan, Plan};
@@ -94,22 +94,24 @@ pub fn OutcomePanel() -> impl IntoView {
             })
         })
     });
-    let table = Memo::new(move |_| {
+    // Each table and chart takes the rows it would write the same from
+    // the one before.
+    let table = Memo::new(move |before: Option<&ComparisonRows>| {
         let (chosen, open) = (state.chosen_option(), open());
         state.outcome.with(|o| {
             o.plan
                 .as_ref()
-                .map(|p| comparison(p, chosen, open))
+                .map(|p| comparison(p, chosen, open, before))
                 .unwrap_or_default()
         })
     });
     let table_head = Memo::new(move |_| table.with(|t| t.head.clone()));
-    let chart = Memo::new(move |_| {
+    let chart = Memo::new(move |before: Option<&RangeChartMarks>| {
         let (unit, open) = (state.unit.get(), open());
         state.outcome.with(|o| {
             o.plan
                 .as_ref()
-                .and_then(|p| Some(range_chart(p, shown_option(p)?, unit, open)))
+                .and_then(|p| Some(range_chart(p, shown_option(p)?, unit, open, before)))
                 .unwrap_or_default()
         })
     });
