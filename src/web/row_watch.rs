@@ -112,17 +112,7 @@ impl RowWatch {
             self.rows
                 .with_untracked(|r| self.problems.with_untracked(|p| look(s, r, p)))
         });
-        let before = self
-            .seen
-            .try_update_value(|seen| seen.replace(now))
-            .flatten();
-        let Some(before) = before else {
-            return;
-        };
-        self.seen.with_value(|now| {
-            let Some(now) = now else {
-                return;
-            };
+        if let Some(before) = self.seen.try_update_value(Option::take).flatten() {
             self.signals.update_value(|signals| {
                 signals.retain(|id, _| now.contains_key(id));
                 for (id, signal) in signals.iter() {
@@ -131,7 +121,8 @@ impl RowWatch {
                     }
                 }
             });
-        });
+        }
+        self.seen.set_value(Some(now));
     }
 
     /// The change signal of the row with id `id`: notified whenever that
